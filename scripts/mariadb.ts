@@ -1,0 +1,124 @@
+/**
+ * A private MariaDB server for development, tests and benchmarks: its own data dir,
+ * its own port on 127.0.0.1, started in its own process group and stopped by its pid.
+ * Debian's packaged service is not used (it does not start without systemd).
+ */
+import { spawn, execFileSync } from 'node:child_process';
+import { existsSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { join } from 'node:path';
+import mysql from 'mysql2/promise';
+
+export interface PrivateMariadb {
+  url: string;
+  port: number;
+  socket: string;
+  dataDir: string;
+  stop(): Promise<void>;
+  /** Starts the server again on the same data dir and port (used by the outage tests). */
+  start(): Promise<void>;
+}
+
+export async function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const addr = srv.address();
+      const port = typeof addr === 'object' && addr ? addr.port : 0;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+function binary(name: string): string {
+  for (const dir of ['/usr/sbin', '/usr/bin', '/usr/local/bin', '/usr/local/sbin']) {
+    if (existsSync(join(dir, name))) return join(dir, name);
+  }
+  return name;
+}
+
+async function waitForQuery(port: number, timeoutMs: number): Promise<void> {
+  const deadline = Date.now() + timeoutMs;
+  let lastError: unknown;
+  while (Date.now() < deadline) {
+    try {
+      // `mariadb-admin ping` counts "access denied" as alive, so prove it with a real query.
+      const conn = await mysql.createConnection({ host: '127.0.0.1', port, user: 'root', password: '' });
+      await conn.query('SELECT 1');
+      await conn.end();
+      return;
+    } catch (err) {
+      lastError = err;
+      await new Promise((r) => setTimeout(r, 100));
+    }
+  }
+  throw new Error(`MariaDB did not answer on port ${port}: ${String(lastError)}`);
+}
+
+/**
+ * Starts (initialising if needed) a MariaDB on `dataDir`. The database `dbName`
+ * and a user `waymark` with a random password are created on first start.
+ */
+export async function startPrivateMariadb(opts: { dataDir: string; port?: number; dbName?: string }): Promise<PrivateMariadb> {
+  const dataDir = opts.dataDir;
+  const dbName = opts.dbName ?? 'waymark';
+  const port = opts.port ?? (await freePort());
+  const socket = join(dataDir, 'mysqld.sock');
+  const pidFile = join(dataDir, 'mysqld.pid');
+  const logFile = join(dataDir, 'mysqld.log');
+  const db = join(dataDir, 'db');
+  mkdirSync(dataDir, { recursive: true });
+
+  if (!existsSync(join(db, 'mysql'))) {
+    mkdirSync(db, { recursive: true });
+    execFileSync(binary('mariadb-install-db'), [
+      '--no-defaults', `--datadir=${db}`, '--user=root',
+      '--auth-root-authentication-method=normal', '--skip-test-db',
+    ], { stdio: 'ignore' });
+  }
+
+  let pid = 0;
+  const start = async () => {
+    // A server left over from a killed run would hold the data dir: stop it first.
+    if (existsSync(pidFile)) {
+      const old = Number(readFileSync(pidFile, 'utf8').trim());
+      try { process.kill(old, 'SIGTERM'); await new Promise((r) => setTimeout(r, 1500)); } catch { /* gone */ }
+    }
+    const child = spawn(binary('mariadbd'), [
+      '--no-defaults', `--datadir=${db}`, `--socket=${socket}`, `--pid-file=${pidFile}`,
+      `--port=${port}`, '--bind-address=127.0.0.1', '--user=root',
+      '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
+      `--log-error=${logFile}`, '--skip-log-bin', '--innodb-buffer-pool-size=64M',
+      '--innodb-flush-log-at-trx-commit=2', '--max-connections=500',
+    ], { detached: true, stdio: 'ignore' });
+    child.unref();
+    pid = child.pid ?? 0;
+    await waitForQuery(port, 30_000);
+  };
+  await start();
+
+  const root = await mysql.createConnection({ host: '127.0.0.1', port, user: 'root', password: '' });
+  await root.query(`CREATE DATABASE IF NOT EXISTS \`${dbName}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci`);
+  await root.end();
+
+  const stop = async () => {
+    if (!pid) return;
+    const p = pid;
+    pid = 0;
+    try { process.kill(p, 'SIGTERM'); } catch { return; }
+    const deadline = Date.now() + 15_000;
+    while (Date.now() < deadline) {
+      try { process.kill(p, 0); } catch { return; }
+      await new Promise((r) => setTimeout(r, 100));
+    }
+    try { process.kill(p, 'SIGKILL'); } catch { /* already gone */ }
+  };
+
+  return { url: `mysql://root@127.0.0.1:${port}/${dbName}`, port, socket, dataDir, stop, start };
+}
+
+export function removeDir(dir: string): void {
+  rmSync(dir, { recursive: true, force: true });
+}

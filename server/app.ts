@@ -1,0 +1,47 @@
+/**
+ * Builds the Express app; `index.ts` listens. Tests import this to drive the app with supertest.
+ */
+import express, { type Express } from 'express';
+import helmet from 'helmet';
+import { existsSync } from 'node:fs';
+import { join } from 'node:path';
+import type { AppContext } from './context.js';
+import { sessionMiddleware } from './auth/session.js';
+import { loadUser } from './auth/guard.js';
+import { requireCsrf } from './auth/csrf.js';
+import { apiRoutes } from './routes.js';
+import { errorHandler, notFound } from './errors.js';
+import './http/context.js';
+
+export interface BuiltApp { app: Express; close(): Promise<void> }
+
+export function createApp(ctx: AppContext): BuiltApp {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', ctx.config.trustProxy);
+  app.use(helmet({
+    contentSecurityPolicy: {
+      directives: {
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'frame-src': ["'self'", 'blob:'],
+        'object-src': ["'self'", 'blob:'],
+        'upgrade-insecure-requests': null,
+      },
+    },
+  }));
+  app.use(express.json({ limit: '5mb' }));
+  const sessions = sessionMiddleware(ctx.database.pool, ctx.config.sessionSecret);
+  app.use('/api', sessions.middleware, loadUser(ctx.db), requireCsrf, apiRoutes(ctx));
+  app.use('/api', (_req, _res, next) => next(notFound('No such API route')));
+
+  const clientDir = ctx.config.clientDir;
+  if (clientDir && existsSync(join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h', setHeaders: (res, path) => {
+      if (path.includes(`${join(clientDir, 'assets')}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+    } }));
+    // Every other path is a client route (history mode).
+    app.get('/{*splat}', (_req, res) => res.sendFile(join(clientDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return { app, close: () => sessions.close() };
+}

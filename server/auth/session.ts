@@ -1,0 +1,30 @@
+/**
+ * Sessions live in MariaDB (table `sessions`), so they survive an app restart and are
+ * shared by every app process on the same database.
+ */
+import session from 'express-session';
+import MySQLStoreFactory from 'express-mysql-session';
+import type { RequestHandler } from 'express';
+import type { Pool } from 'mysql2/promise';
+
+export function sessionMiddleware(pool: Pool, secret: string): { middleware: RequestHandler; close(): Promise<void> } {
+  const MySQLStore = MySQLStoreFactory(session as any);
+  const store = new MySQLStore({
+    createDatabaseTable: false, // the migration creates it
+    clearExpired: true,
+    checkExpirationInterval: 15 * 60 * 1000,
+    expiration: 14 * 24 * 3600 * 1000,
+    schema: { tableName: 'sessions', columnNames: { session_id: 'session_id', expires: 'expires', data: 'data' } },
+  }, pool as any);
+  const middleware = session({
+    name: 'waymark.sid',
+    secret,
+    store,
+    resave: false,
+    saveUninitialized: false,
+    rolling: true,
+    // Secure follows the request: with `trust proxy` set, https behind a proxy counts.
+    cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 14 * 24 * 3600 * 1000 },
+  });
+  return { middleware, close: () => store.close() };
+}

@@ -1,0 +1,51 @@
+/** Everything the server reads from its environment, read once and passed down. */
+export interface ServerConfig {
+  port: number;
+  databaseUrl: string;
+  sessionSecret: string;
+  publicBaseUrl: string;
+  /** Express `trust proxy` setting: behind TLS-terminating proxies, cookies become Secure. */
+  trustProxy: boolean | number | string;
+  smtp: { host: string; port: number; from: string };
+  /** Serves the captured-mail page and endpoint; never on in production. */
+  devMail: boolean;
+  /** Directory holding the built client (vite build), or null to serve the API only. */
+  clientDir: string | null;
+  /** Rate limits can be raised for benchmarks; tests lower them to exercise 429. */
+  rateLimits: { loginPerAccount: number; loginPerIp: number; publicPerMinute: number; reportsPerHour: number };
+}
+
+export function parseTrustProxy(value: string | undefined): boolean | number | string {
+  if (value === undefined || value === '' || value === 'false') return false;
+  if (value === 'true') return true;
+  const n = Number(value);
+  return Number.isInteger(n) ? n : value;
+}
+
+export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerConfig> = {}): ServerConfig {
+  const port = Number(env.PORT ?? defaults.port ?? 3000);
+  const databaseUrl = env.DATABASE_URL ?? defaults.databaseUrl;
+  if (!databaseUrl) throw new Error('DATABASE_URL is not set');
+  const sessionSecret = env.SESSION_SECRET ?? defaults.sessionSecret;
+  if (!sessionSecret) throw new Error('SESSION_SECRET is not set');
+  return {
+    port,
+    databaseUrl,
+    sessionSecret,
+    publicBaseUrl: (env.PUBLIC_BASE_URL ?? defaults.publicBaseUrl ?? `http://localhost:${port}`).replace(/\/+$/, ''),
+    trustProxy: parseTrustProxy(env.TRUST_PROXY),
+    smtp: {
+      host: env.SMTP_HOST ?? defaults.smtp?.host ?? '127.0.0.1',
+      port: Number(env.SMTP_PORT ?? defaults.smtp?.port ?? 2525),
+      from: env.MAIL_FROM ?? defaults.smtp?.from ?? 'Waymark <no-reply@waymark.invalid>',
+    },
+    devMail: (env.WAYMARK_DEV_MAIL ?? (defaults.devMail ? 'on' : 'off')) === 'on',
+    clientDir: defaults.clientDir ?? null,
+    rateLimits: {
+      loginPerAccount: Number(env.RATE_LOGIN_ACCOUNT ?? defaults.rateLimits?.loginPerAccount ?? 10),
+      loginPerIp: Number(env.RATE_LOGIN_IP ?? defaults.rateLimits?.loginPerIp ?? 50),
+      publicPerMinute: Number(env.RATE_PUBLIC_MINUTE ?? defaults.rateLimits?.publicPerMinute ?? 120),
+      reportsPerHour: Number(env.RATE_REPORTS_HOUR ?? defaults.rateLimits?.reportsPerHour ?? 10),
+    },
+  };
+}

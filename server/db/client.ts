@@ -1,0 +1,43 @@
+import mysql from 'mysql2/promise';
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
+import * as schema from './schema.js';
+
+export type Db = MySql2Database<typeof schema>;
+
+export interface Database {
+  db: Db;
+  pool: mysql.Pool;
+  /** Number of SQL statements sent through this pool (the benchmark reads it). */
+  queryCount(): number;
+  close(): Promise<void>;
+}
+
+/** Opens a pool on a `mysql://` URL. The pool reconnects by itself after an outage. */
+export function openDatabase(url: string, opts: { connectionLimit?: number } = {}): Database {
+  const pool = mysql.createPool({
+    uri: url,
+    connectionLimit: opts.connectionLimit ?? 20,
+    dateStrings: false,
+    timezone: 'Z',
+    enableKeepAlive: true,
+    connectTimeout: 5000,
+    supportBigNumbers: true,
+  });
+  let count = 0;
+  const countingPool = new Proxy(pool, {
+    get(target, prop, receiver) {
+      if (prop === 'query' || prop === 'execute') {
+        return (...args: unknown[]) => { count++; return (target as any)[prop](...args); };
+      }
+      const value = Reflect.get(target, prop, receiver);
+      return typeof value === 'function' ? value.bind(target) : value;
+    },
+  });
+  const db = drizzle(countingPool as mysql.Pool, { schema, mode: 'default', casing: 'snake_case' });
+  return {
+    db,
+    pool,
+    queryCount: () => count,
+    close: () => pool.end(),
+  };
+}

@@ -1,0 +1,50 @@
+/**
+ * The local capture SMTP server: accepts every message on loopback and stores it in the
+ * `captured_mail` table, where the dev-only mail page and the tests read it. Never used in production.
+ */
+import { SMTPServer } from 'smtp-server';
+import type { Db } from '../db/client.js';
+import { capturedMail } from '../db/schema.js';
+
+export interface CaptureServer { port: number; close(): Promise<void> }
+
+function header(raw: string, name: string): string {
+  const head = raw.split(/\r?\n\r?\n/)[0] ?? '';
+  const unfolded = head.replace(/\r?\n[ \t]+/g, ' ');
+  const m = unfolded.match(new RegExp(`^${name}:\\s*(.*)$`, 'im'));
+  return m ? m[1].trim() : '';
+}
+
+export async function startCaptureServer(db: Db, port = 0): Promise<CaptureServer> {
+  const server = new SMTPServer({
+    authOptional: true,
+    disabledCommands: ['AUTH', 'STARTTLS'],
+    logger: false,
+    size: 30 * 1024 * 1024,
+    onData(stream, session, callback) {
+      const chunks: Buffer[] = [];
+      stream.on('data', (c: Buffer) => chunks.push(c));
+      stream.on('end', async () => {
+        try {
+          const raw = Buffer.concat(chunks).toString('utf8');
+          await db.insert(capturedMail).values({
+            envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
+            envelopeTo: session.envelope.rcptTo.map((r) => r.address).join(', '),
+            subject: header(raw, 'Subject').slice(0, 500),
+            raw,
+          });
+          callback();
+        } catch (err) {
+          callback(err as Error);
+        }
+      });
+    },
+  });
+  await new Promise<void>((resolve, reject) => {
+    server.once('error', reject);
+    server.listen(port, '127.0.0.1', () => resolve());
+  });
+  const address = server.server.address();
+  const actual = typeof address === 'object' && address ? address.port : port;
+  return { port: actual, close: () => new Promise<void>((r) => server.close(() => r())) };
+}

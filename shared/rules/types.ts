@@ -1,0 +1,33 @@
+/**
+ * What a rule check says about a schedule. Findings never block saving: they are shown
+ * beside the field they concern, in the findings panel and on the chart.
+ */
+import type { Schedule } from '../schemas/schedule.js';
+
+export type Severity = 'error' | 'warning' | 'info';
+
+export interface Finding {
+  severity: Severity;
+  /** Where the rule comes from, e.g. "BS 7671 433.1.1" or "Common practice". */
+  rule: string;
+  /** Way numbers the finding concerns (empty for board-level findings). */
+  ways: number[];
+  /** A plain sentence an electrician reads. */
+  message: string;
+  /** Stable machine code of the check, e.g. "zs-over-max". */
+  code: string;
+  /** Path of the field it concerns in the schedule, e.g. "circuits.3.measuredZs" or "board.lastInspectionOn". */
+  field?: string;
+}
+
+export interface CheckContext {
+  /** Today's date as YYYY-MM-DD: passed in, never read from a clock inside shared/. */
+  today: string;
+}
+
+/** A region's wiring rules. BS 7671 is the first; another region adds its own RuleSet. */
+export interface RuleSet {
+  id: string;
+  name: string;
+  check(schedule: Schedule, context: CheckContext): Finding[];
+}

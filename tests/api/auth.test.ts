@@ -1,0 +1,62 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { client, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../helpers/app.js';
+
+let t: TestApp;
+beforeAll(async () => { t = await startTestApp(); });
+afterAll(async () => { await t.close(); });
+
+describe('sign up, sign in, me, sign out', () => {
+  it('when a new contractor signs up, then they are signed in as the owner of a new organisation', async () => {
+    const owner = await signupOwner(t.app, 'Signup Test Ltd');
+    const me = await owner.get('/api/auth/me').expect(200);
+    expect(me.body.user.role).toBe('owner');
+    expect(me.body.user.email).toBe(owner.email);
+    expect(me.body.organisation.name).toBe('Signup Test Ltd');
+  });
+
+  it('when signing in with the right password, then me answers; after sign-out it is 401', async () => {
+    const owner = await signupOwner(t.app);
+    const c = await client(t.app);
+    await c.post('/api/auth/login', { email: owner.email, password: TEST_PASSWORD }).expect(200);
+    await c.get('/api/auth/me').expect(200);
+    await c.post('/api/auth/logout').expect(204);
+    await c.get('/api/auth/me').expect(401);
+  });
+
+  it('when the password is wrong, then 401 with no hint which part was wrong', async () => {
+    const owner = await signupOwner(t.app);
+    const c = await client(t.app);
+    const res = await c.post('/api/auth/login', { email: owner.email, password: 'wrong-password-123' }).expect(401);
+    expect(res.body.error.message).toMatch(/e-mail or password/i);
+  });
+
+  it('when a write has no CSRF token, then 403', async () => {
+    const res = await (await client(t.app)).agent.post('/api/auth/signup').send({ organisation: 'x', name: 'x', email: uniqueEmail(), password: TEST_PASSWORD });
+    expect(res.status).toBe(403);
+  });
+
+  it('when sign-up input is bad, then 400 names each field', async () => {
+    const c = await client(t.app);
+    const res = await c.post('/api/auth/signup', { organisation: '', name: 'A', email: 'not-an-email', password: 'short' }).expect(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['email', 'organisation', 'password']);
+  });
+
+  it('when an unknown field is sent, then 400 rather than silently ignoring it', async () => {
+    const c = await client(t.app);
+    const res = await c.post('/api/auth/signup', { organisation: 'A', name: 'A', email: uniqueEmail(), password: TEST_PASSWORD, role: 'owner' }).expect(400);
+    expect(res.body.error.fields).toBeDefined();
+  });
+
+  it('when the body is not JSON, then 400 not 500', async () => {
+    const c = await client(t.app);
+    const res = await c.agent.post('/api/auth/login').set('X-CSRF-Token', c.csrf).set('Content-Type', 'application/json').send('{"email":');
+    expect(res.status).toBe(400);
+  });
+
+  it('when the e-mail is already registered, then 409 on the email field', async () => {
+    const owner = await signupOwner(t.app);
+    const c = await client(t.app);
+    const res = await c.post('/api/auth/signup', { organisation: 'B', name: 'B', email: owner.email, password: TEST_PASSWORD }).expect(409);
+    expect(res.body.error.fields.email).toBeTruthy();
+  });
+});

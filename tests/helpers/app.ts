@@ -1,0 +1,104 @@
+/**
+ * Test harness for API tests: the real app on the throw-away MariaDB that `npm test` started
+ * (DATABASE_URL), with a capture SMTP server of its own. Each test makes its own organisation
+ * with unique e-mails, so tests never share data and can run in parallel.
+ */
+import request from 'supertest';
+import { randomUUID } from 'node:crypto';
+import { desc, like } from 'drizzle-orm';
+import { createApp } from '../../server/app.js';
+import { configFromEnv, type ServerConfig } from '../../server/config.js';
+import { openDatabase, type Database } from '../../server/db/client.js';
+import { smtpMailer } from '../../server/mail/mailer.js';
+import { startCaptureServer, type CaptureServer } from '../../server/mail/capture.js';
+import { capturedMail } from '../../server/db/schema.js';
+import type { AppContext } from '../../server/context.js';
+import type { Express } from 'express';
+
+export interface TestApp {
+  app: Express;
+  ctx: AppContext;
+  database: Database;
+  capture: CaptureServer;
+  close(): Promise<void>;
+}
+
+export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promise<TestApp> {
+  const databaseUrl = process.env.DATABASE_URL;
+  if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the tests with `npm test`');
+  const database = openDatabase(databaseUrl);
+  const capture = await startCaptureServer(database.db);
+  const base = configFromEnv({ DATABASE_URL: databaseUrl, SESSION_SECRET: 'test-secret-not-for-production', PUBLIC_BASE_URL: 'http://waymark.test' }, {
+    smtp: { host: '127.0.0.1', port: capture.port, from: 'Waymark <no-reply@waymark.test>' },
+    devMail: true,
+  });
+  const config: ServerConfig = { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
+  const mailer = smtpMailer(config.smtp);
+  const ctx: AppContext = { config, database, db: database.db, mailer };
+  const built = createApp(ctx);
+  return {
+    app: built.app,
+    ctx,
+    database,
+    capture,
+    async close() {
+      await built.close();
+      mailer.close();
+      await capture.close();
+      await database.close();
+    },
+  };
+}
+
+export const uniqueEmail = (prefix = 'user') => `${prefix}-${randomUUID().slice(0, 12)}@example.test`;
+export const TEST_PASSWORD = 'correct-horse-battery';
+
+/** A supertest agent that keeps its cookie and sends the CSRF token on every write. */
+export interface Client {
+  agent: ReturnType<typeof request.agent>;
+  csrf: string;
+  get(path: string): request.Test;
+  post(path: string, body?: unknown): request.Test;
+  put(path: string, body?: unknown): request.Test;
+  patch(path: string, body?: unknown): request.Test;
+  delete(path: string): request.Test;
+}
+
+export async function client(app: Express): Promise<Client> {
+  const agent = request.agent(app);
+  const res = await agent.get('/api/auth/csrf').expect(200);
+  const csrf = res.body.token as string;
+  return {
+    agent,
+    csrf,
+    get: (p) => agent.get(p),
+    post: (p, b) => agent.post(p).set('X-CSRF-Token', csrf).send(b as object),
+    put: (p, b) => agent.put(p).set('X-CSRF-Token', csrf).send(b as object),
+    patch: (p, b) => agent.patch(p).set('X-CSRF-Token', csrf).send(b as object),
+    delete: (p) => agent.delete(p).set('X-CSRF-Token', csrf),
+  };
+}
+
+/** Signs up a new organisation and returns its owner's signed-in client. */
+export async function signupOwner(app: Express, organisation = 'Test Electrical'): Promise<Client & { email: string }> {
+  const c = await client(app);
+  const email = uniqueEmail('owner');
+  await c.post('/api/auth/signup', { organisation, name: 'Test Owner', email, password: TEST_PASSWORD }).expect(201);
+  return Object.assign(c, { email });
+}
+
+/** Messages the capture server stored for an address, newest first. */
+export async function mailTo(database: Database, address: string) {
+  return database.db.select().from(capturedMail).where(like(capturedMail.envelopeTo, `%${address}%`)).orderBy(desc(capturedMail.id));
+}
+
+/** Waits for a message to an address (SMTP delivery is asynchronous to the request). */
+export async function waitForMail(database: Database, address: string, timeoutMs = 5000) {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const [m] = await mailTo(database, address);
+    if (m) return m;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`no mail to ${address} within ${timeoutMs} ms`);
+}
