@@ -2,6 +2,10 @@
 import { Router } from 'express';
 import type { AppContext } from './context.js';
 import { authRoutes } from './auth/routes.js';
+import { invitationRoutes, membersRoutes } from './members/routes.js';
+import { organisationRoutes } from './organisation/routes.js';
+import { devRoutes } from './dev/routes.js';
+import { sheetLayoutRoutes } from './sheet-layouts/routes.js';
 
 export function apiRoutes(ctx: AppContext): Router {
   const api = Router();
@@ -10,5 +14,10 @@ export function apiRoutes(ctx: AppContext): Router {
     res.json({ ok: true });
   });
   api.use('/auth', authRoutes(ctx));
+  api.use('/members', membersRoutes(ctx));
+  api.use('/invitations', invitationRoutes(ctx));
+  api.use('/organisation', organisationRoutes(ctx));
+  api.use('/dev', devRoutes(ctx));
+  api.use('/sheet-layouts', sheetLayoutRoutes(ctx));
   return api;
 }
