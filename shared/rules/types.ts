@@ -2,7 +2,7 @@
  * What a rule check says about a schedule. Findings never block saving: they are shown
  * beside the field they concern, in the findings panel and on the chart.
  */
-import type { Schedule } from '../schemas/schedule.js';
+import type { BoardDetails, Circuit, Schedule } from '../schemas/schedule.js';
 
 export type Severity = 'error' | 'warning' | 'info';
 
@@ -30,4 +30,8 @@ export interface RuleSet {
   id: string;
   name: string;
   check(schedule: Schedule, context: CheckContext): Finding[];
+  /** Next periodic inspection (YYYY-MM-DD) by this region's usual intervals; omitted where the region sets none. */
+  nextInspectionDate?(board: BoardDetails): string | null;
+  /** Maximum earth fault loop impedance (Ω) for a circuit of the schedule; omitted where the region tabulates none. */
+  maxZs?(schedule: Schedule, circuit: Circuit): number | null;
 }

@@ -1,0 +1,80 @@
+/**
+ * Recognisable mistakes in the circuit data: they usually mean a typing slip, and left alone
+ * they print wrong labels or hide a real problem from the other checks.
+ */
+import type { Finding } from '../types.js';
+import { wayText } from '../../schedule/derive.js';
+import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
+
+const RULE = 'Data check';
+
+/** Two circuits clash on a way when the board is single-phase, or they share a phase, or either uses all three. */
+function clash(view: ScheduleView, a: CircuitFacts, b: CircuitFacts): boolean {
+  if (a.circuit.way !== b.circuit.way) return false;
+  if (view.schedule.board.phases === 1) return true;
+  return a.circuit.phase == null || b.circuit.phase == null || a.circuit.phase === b.circuit.phase;
+}
+
+function duplicateWays(view: ScheduleView): Finding[] {
+  const out: Finding[] = [];
+  view.circuits.forEach((f, i) => {
+    const earlier = view.circuits.slice(0, i).find((e) => clash(view, e, f));
+    if (!earlier) return;
+    out.push(circuitFinding(f, 'error', 'way-used-twice', RULE, 'way',
+      `${circuitName(f.circuit)}: way ${wayText(f.circuit)} is already used by ${earlier.circuit.label}`));
+  });
+  return out;
+}
+
+function deviceProblems(view: ScheduleView, f: CircuitFacts): Finding[] {
+  const { circuit, device } = f;
+  const name = circuitName(circuit);
+  if (circuit.deviceId == null) {
+    return [circuitFinding(f, 'warning', 'circuit-without-device', RULE, 'deviceId', `${name}: no protective device is recorded, so its rating, cable and Zs cannot be checked`)];
+  }
+  if (!device) {
+    return [circuitFinding(f, 'error', 'unknown-device', RULE, 'deviceId', `${name}: device "${circuit.deviceId}" is not on the board`)];
+  }
+  if (!isOvercurrentDevice(device)) {
+    return [circuitFinding(f, 'warning', 'device-gives-no-overcurrent-protection', 'BS 7671 433.1.1', 'deviceId',
+      `${name}: its device (${deviceName(device)}) gives no overcurrent protection; a circuit needs an MCB, RCBO or fuse`)];
+  }
+  return [];
+}
+
+function cableProblems(f: CircuitFacts): Finding[] {
+  const { liveCsa, cpcCsa } = f.circuit.cable;
+  if (liveCsa == null || cpcCsa == null || cpcCsa <= liveCsa) return [];
+  return [circuitFinding(f, 'warning', 'cpc-larger-than-live', RULE, 'cable.cpcCsa',
+    `${circuitName(f.circuit)}: cpc ${num(cpcCsa)} mm² is larger than the live conductors (${num(liveCsa)} mm²); the two sizes may be swapped`)];
+}
+
+function linkProblems(view: ScheduleView, f: CircuitFacts): Finding[] {
+  const out: Finding[] = [];
+  if (f.circuit.feedsBoardId != null && f.circuit.kind !== 'sub-main') {
+    out.push(circuitFinding(f, 'warning', 'feeds-board-on-final-circuit', RULE, 'feedsBoardId',
+      `${circuitName(f.circuit)}: it names a board it feeds but is not a sub-main; set its kind to sub-main or clear the link`));
+  }
+  if (view.schedule.board.phases === 1 && f.circuit.phase != null && f.circuit.phase !== 'L1') {
+    out.push(circuitFinding(f, 'warning', 'phase-on-single-phase-board', RULE, 'phase',
+      `${circuitName(f.circuit)}: phase ${f.circuit.phase} is recorded on a single-phase board`));
+  }
+  return out;
+}
+
+function duplicateIds(view: ScheduleView): Finding[] {
+  const seen = new Set<string>();
+  return view.circuits.flatMap((f) => {
+    if (!seen.has(f.circuit.id)) { seen.add(f.circuit.id); return []; }
+    return [circuitFinding(f, 'error', 'circuit-id-twice', RULE, 'id', `${circuitName(f.circuit)}: id "${f.circuit.id}" is used by another circuit`)];
+  });
+}
+
+/** Mistakes in ways, device links, cable sizes and board links. */
+export function checkCircuitData(view: ScheduleView): Finding[] {
+  return [
+    ...duplicateWays(view),
+    ...duplicateIds(view),
+    ...view.circuits.flatMap((f) => [...deviceProblems(view, f), ...cableProblems(f), ...linkProblems(view, f)]),
+  ];
+}

@@ -1,0 +1,43 @@
+/**
+ * The BS 7671:2018+A2:2022 rule set: every rule group run over one prepared view of the
+ * schedule. The checks help and do not replace the designer's and inspector's judgement.
+ */
+import type { RuleSet } from '../types.js';
+import { checkAdditionalProtection } from './additional-protection.js';
+import { checkCapacity } from './capacity.js';
+import { checkCircuitData } from './data-circuits.js';
+import { checkDeviceData } from './data-devices.js';
+import { checkEarthFaultLoop, zsLimit } from './earth-fault-loop.js';
+import { checkInspection, nextInspectionOn } from './inspection.js';
+import { checkLightingSpread } from './lighting-spread.js';
+import { viewOf } from './view.js';
+import { checkVoltageDrop } from './voltage-drop.js';
+
+export { maxZs, zsLimit, disconnectionSeconds, type ZsLimit } from './earth-fault-loop.js';
+export { twinEarthIz } from './capacity.js';
+export { estimatedVoltageDrop } from './voltage-drop.js';
+export { nextInspectionOn, inspectionIntervalMonths } from './inspection.js';
+
+export const bs7671: RuleSet = {
+  id: 'bs7671-2018-a2',
+  name: 'BS 7671:2018+A2:2022 (UK)',
+  check(schedule, context) {
+    const view = viewOf(schedule);
+    return [
+      ...checkCircuitData(view),
+      ...checkDeviceData(view),
+      ...checkCapacity(view),
+      ...checkEarthFaultLoop(view),
+      ...checkAdditionalProtection(view),
+      ...checkVoltageDrop(view),
+      ...checkLightingSpread(view),
+      ...checkInspection(schedule.board, context, nextInspectionOn(schedule.board)),
+    ];
+  },
+  nextInspectionDate: nextInspectionOn,
+  maxZs(schedule, circuit) {
+    const view = viewOf(schedule);
+    const facts = view.circuits.find((f) => f.circuit === circuit) ?? view.circuits.find((f) => f.circuit.id === circuit.id);
+    return facts ? zsLimit(schedule, facts)?.ohms ?? null : null;
+  },
+};

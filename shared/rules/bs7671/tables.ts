@@ -1,0 +1,107 @@
+/**
+ * Published values the BS 7671:2018+A2:2022 rule set checks against. Each value carries its
+ * source and how sure we are of it: "found" values were read in published text quoting the table,
+ * "from memory" values are recalled and must be confirmed against the printed standard.
+ */
+import type { BreakerCurve, InstallationType, ReferenceMethod } from '../../schemas/schedule.js';
+
+/**
+ * Table 41.3: maximum Zs (Ω) for BS EN 60898 circuit-breakers and BS EN 61009 RCBOs at U0 = 230 V.
+ * The one table covers both the 0.4 s (411.3.2.2) and the 5 s (411.3.2.3) disconnection times,
+ * because a breaker meets either by tripping instantly on its magnetic element.
+ */
+export const TABLE_41_3: Record<BreakerCurve, Record<number, number>> = {
+  // BS 7671:2018+A2 Table 41.3 (found) for 6–63 A; 80–125 A from the table's own formula
+  // 0.95 × 230 / Ia with Ia = 5·In (B), 10·In (C), 20·In (D), rounded to two places (from memory that the table lists them)
+  B: { 6: 7.28, 10: 4.37, 16: 2.73, 20: 2.19, 25: 1.75, 32: 1.37, 40: 1.09, 50: 0.87, 63: 0.69, 80: 0.55, 100: 0.44, 125: 0.35 },
+  C: { 6: 3.64, 10: 2.19, 16: 1.37, 20: 1.09, 25: 0.87, 32: 0.68, 40: 0.55, 50: 0.44, 63: 0.35, 80: 0.27, 100: 0.22, 125: 0.17 },
+  D: { 6: 1.82, 10: 1.09, 16: 0.68, 20: 0.55, 25: 0.44, 32: 0.34, 40: 0.27, 50: 0.22, 63: 0.17, 80: 0.14, 100: 0.11, 125: 0.09 },
+};
+
+/** Multiple of In at which each curve trips instantly (BS EN 60898 upper limit), the basis of Table 41.3. */
+export const INSTANT_TRIP_MULTIPLE: Record<BreakerCurve, number> = { B: 5, C: 10, D: 20 }; // BS EN 60898-1 (found via Table 41.3's formula)
+
+/** Cmin, the voltage factor of A2:2022 used to build Table 41.3 (found). */
+export const CMIN = 0.95;
+
+/**
+ * Table 41.5: maximum Zs for an RCD giving fault protection in a TT system, 50 V / IΔn
+ * (411.5.3). Used where a TT circuit relies on its RCD rather than its breaker.
+ */
+export function table41_5MaxZs(residualMa: number): number {
+  return Math.round(50 / (residualMa / 1000)); // BS 7671:2018 Table 41.5, 50 V / IΔn: 30 mA → 1667 Ω (from memory)
+}
+
+/** Rule of thumb for Zs measured at ambient temperature: compare with 80 % of Table 41.3. */
+export const AMBIENT_RULE_OF_THUMB = 0.8; // IET guidance (On-Site Guide / Guidance Note 3) rule of thumb (found in trade press)
+
+/** Reference methods Table 4D5 tabulates for flat twin-and-earth. */
+export type TwinEarthMethod = Extract<ReferenceMethod, '100' | '101' | '102' | '103' | 'C' | 'A'>;
+
+export interface TwinEarthRow {
+  /** Current-carrying capacity Iz (A) per reference method, 30 °C ambient, no grouping. */
+  iz: Record<TwinEarthMethod, number>;
+  /** Voltage drop, single-phase, mV per amp per metre. */
+  mvPerAm: number;
+}
+
+/** Appendix 4 Table 4D5: 70 °C thermoplastic flat twin-and-earth (6242Y), by live csa (mm²). */
+export const TABLE_4D5: Record<number, TwinEarthRow> = {
+  // BS 7671:2018+A2 Appendix 4 Table 4D5 (found): rows 1.0 and 1.5, and 2.5 mm² methods C and A
+  1: { iz: { 100: 13, 101: 10.5, 102: 13, 103: 8, C: 16, A: 11.5 }, mvPerAm: 44 },
+  1.5: { iz: { 100: 16, 101: 13, 102: 16, 103: 10, C: 20, A: 14.5 }, mvPerAm: 29 },
+  // 2.5 mm² methods 100–103 and every row below: BS 7671 Table 4D5 (from memory)
+  2.5: { iz: { 100: 21, 101: 17, 102: 21, 103: 13.5, C: 27, A: 20 }, mvPerAm: 18 },
+  4: { iz: { 100: 27, 101: 22, 102: 27, 103: 17.5, C: 37, A: 26 }, mvPerAm: 11 },
+  6: { iz: { 100: 34, 101: 27, 102: 35, 103: 23.5, C: 47, A: 32 }, mvPerAm: 7.3 },
+  10: { iz: { 100: 45, 101: 36, 102: 47, 103: 32, C: 64, A: 44 }, mvPerAm: 4.4 },
+  16: { iz: { 100: 57, 101: 46, 102: 63, 103: 42.5, C: 85, A: 57 }, mvPerAm: 2.8 },
+};
+
+/**
+ * 433.1.204: a 2.5 mm² thermoplastic ring final on a 30 or 32 A device meets 433.1.1
+ * when the cable's Iz under its installation conditions is at least 20 A (found).
+ */
+export const RING_FINAL = { liveCsa: 2.5, ratings: [30, 32], minIz: 20 } as const;
+
+/** Voltage drop limits, percent of nominal voltage (Appendix 4 Section 6.4, found). */
+export const VOLTAGE_DROP_LIMIT_PERCENT = { lighting: 3, other: 5 } as const;
+
+/**
+ * Ratings breakers are made in. BS EN 60898-1 preferred values 6–125 A (from memory, incl. 8 and 13 A),
+ * plus the 1–4 A sizes makers list for control circuits (common practice).
+ */
+export const BREAKER_RATINGS = [1, 2, 3, 4, 6, 8, 10, 13, 16, 20, 25, 32, 40, 50, 63, 80, 100, 125] as const;
+
+/** Residual operating currents (mA) RCDs and RCBOs are made in (common practice). */
+export const RESIDUAL_RATINGS_MA = [10, 30, 100, 300, 500, 1000] as const;
+
+/** Largest IΔn that counts as additional protection (415.1.1, found). */
+export const ADDITIONAL_PROTECTION_MA = 30;
+
+/** Largest socket-outlet circuit rating 411.3.3 asks 30 mA protection for (found). */
+export const SOCKET_RCD_MAX_RATING = 32;
+
+/**
+ * 411.3.2.2: 0.4 s applies to final circuits up to 63 A with socket-outlets and up to 32 A for fixed
+ * equipment only; other final circuits and distribution circuits may take 5 s (411.3.2.3) (from memory).
+ */
+export const FINAL_CIRCUIT_0_4S = { withSockets: 63, fixedOnly: 32 } as const;
+
+/** IET Guidance Note 3: usual months between periodic inspections by installation type (found in secondary pages). */
+export const INSPECTION_INTERVAL_MONTHS: Record<InstallationType, number> = {
+  domestic: 120,
+  'rented-domestic': 60,
+  hmo: 60,
+  commercial: 60,
+  industrial: 36,
+  caravan: 36,
+  'special-location': 12, // swimming pools, caravan parks, petrol stations, marinas: 1 year
+  'construction-site': 3,
+};
+
+/** Installation types that are dwellings, where 411.3.3 allows no risk-assessment exception and 411.3.4 applies. */
+export const DWELLINGS: ReadonlySet<InstallationType> = new Set<InstallationType>(['domestic', 'rented-domestic', 'hmo']);
+
+/** How far ahead an inspection counts as "due soon" (common practice: plan a quarter ahead). */
+export const INSPECTION_DUE_SOON_DAYS = 90;

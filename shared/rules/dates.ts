@@ -1,0 +1,41 @@
+/**
+ * Calendar arithmetic on YYYY-MM-DD strings, in UTC so a date never shifts with the
+ * machine's time zone. Pure: no clock is read; callers pass the dates in.
+ */
+
+function parts(iso: string): [number, number, number] {
+  const [y, m, d] = iso.split('-').map(Number);
+  return [y, m, d];
+}
+
+function format(date: Date): string {
+  return date.toISOString().slice(0, 10);
+}
+
+/** Adds whole months; a day the target month lacks clamps to its last day (31 Jan + 1 month → 28/29 Feb). */
+export function addMonths(iso: string, months: number): string {
+  const [y, m, d] = parts(iso);
+  const first = new Date(Date.UTC(y, m - 1 + months, 1));
+  const lastDay = new Date(Date.UTC(first.getUTCFullYear(), first.getUTCMonth() + 1, 0)).getUTCDate();
+  return format(new Date(Date.UTC(first.getUTCFullYear(), first.getUTCMonth(), Math.min(d, lastDay))));
+}
+
+/** Adds whole days. */
+export function addDays(iso: string, days: number): string {
+  const [y, m, d] = parts(iso);
+  return format(new Date(Date.UTC(y, m - 1, d + days)));
+}
+
+/** Whole days from `from` to `to` (negative when `to` is earlier). */
+export function daysBetween(from: string, to: string): number {
+  const [y1, m1, d1] = parts(from);
+  const [y2, m2, d2] = parts(to);
+  return Math.round((Date.UTC(y2, m2 - 1, d2) - Date.UTC(y1, m1 - 1, d1)) / 86_400_000);
+}
+
+/** "14 May 2026", the way notices and findings print a date. */
+export function longDate(iso: string): string {
+  const [y, m, d] = parts(iso);
+  const months = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+  return `${d} ${months[m - 1]} ${y}`;
+}
