@@ -1,25 +1,22 @@
 import { Router, type Request } from 'express';
 import rateLimit from 'express-rate-limit';
-import { loginSchema, signupSchema } from '../../shared/schemas/auth.js';
+import { forgotPasswordSchema, loginSchema, resetPasswordSchema, signupSchema } from '../../shared/schemas/auth.js';
 import type { AppContext } from '../context.js';
 import { tooMany, unauthorised } from '../errors.js';
 import { parse } from '../http/parse.js';
 import { csrfToken } from './csrf.js';
+import { requestPasswordReset, resetPassword } from './reset.js';
 import { login, signup } from './service.js';
+import { saveSession, signIn } from './sign-in.js';
 
-/** Starts a fresh session for the user (a new id stops session fixation) and keeps the CSRF token. */
-async function signIn(req: Request, userId: number): Promise<void> {
-  const token = req.session.csrfToken;
-  await new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
-  req.session.userId = userId;
-  if (token) req.session.csrfToken = token;
-  await new Promise<void>((resolve, reject) => req.session.save((err) => (err ? reject(err) : resolve())));
-}
-
-function loginLimiters(ctx: AppContext) {
+/**
+ * Per-IP and per-account limits (each call makes its own counters). Sign-in uses them against
+ * password guessing; password reset requests use a separate pair against mail flooding.
+ */
+function attemptLimiters(ctx: AppContext, what: string) {
   const windowMs = 15 * 60 * 1000;
   const handler = (_req: Request, _res: unknown, next: (e: unknown) => void) =>
-    next(tooMany('Too many sign-in attempts; wait 15 minutes and try again', windowMs / 1000));
+    next(tooMany(`Too many ${what}; wait 15 minutes and try again`, windowMs / 1000));
   const perIp = rateLimit({ windowMs, limit: ctx.config.rateLimits.loginPerIp, standardHeaders: 'draft-7', legacyHeaders: false, handler: handler as any });
   const perAccount = rateLimit({
     windowMs, limit: ctx.config.rateLimits.loginPerAccount, standardHeaders: 'draft-7', legacyHeaders: false,
@@ -32,8 +29,11 @@ function loginLimiters(ctx: AppContext) {
 export function authRoutes(ctx: AppContext): Router {
   const r = Router();
 
-  r.get('/csrf', (req, res) => {
-    res.json({ token: csrfToken(req) });
+  r.get('/csrf', async (req, res) => {
+    const token = csrfToken(req);
+    // Save before answering: a token the store never kept would fail every later write.
+    await saveSession(req);
+    res.json({ token });
   });
 
   r.post('/signup', async (req, res) => {
@@ -43,7 +43,7 @@ export function authRoutes(ctx: AppContext): Router {
     res.status(201).json({ id: userId });
   });
 
-  r.post('/login', ...loginLimiters(ctx), async (req, res) => {
+  r.post('/login', ...attemptLimiters(ctx, 'sign-in attempts'), async (req, res) => {
     const input = parse(loginSchema, req.body);
     const userId = await login(ctx.db, input);
     await signIn(req, userId);
@@ -60,6 +60,19 @@ export function authRoutes(ctx: AppContext): Router {
     if (!req.user) throw unauthorised();
     const { id, email, name, role, organisationId, organisationName } = req.user;
     res.json({ user: { id, email, name, role }, organisation: { id: organisationId, name: organisationName } });
+  });
+
+  // Always 204, known address or not: the answer must not tell who has an account.
+  r.post('/forgot', ...attemptLimiters(ctx, 'password reset requests'), (req, res) => {
+    const { email } = parse(forgotPasswordSchema, req.body);
+    requestPasswordReset(ctx, email);
+    res.status(204).end();
+  });
+
+  r.post('/reset', async (req, res) => {
+    const input = parse(resetPasswordSchema, req.body);
+    await resetPassword(ctx.db, input, req.sessionID);
+    res.status(204).end();
   });
 
   return r;

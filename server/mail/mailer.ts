@@ -1,4 +1,5 @@
 import nodemailer from 'nodemailer';
+import { unavailable } from '../errors.js';
 
 export interface OutgoingMail {
   to: string;
@@ -28,4 +29,14 @@ export function smtpMailer(opts: { host: string; port: number; from: string }): 
     },
     close: () => transport.close(),
   };
+}
+
+/** Sends one message; a relay that refuses or cannot be reached answers 503 (logged here with its cause), not 500. */
+export async function deliver(mailer: Mailer, to: string, message: { subject: string; text: string }): Promise<void> {
+  try {
+    await mailer.send({ to, ...message });
+  } catch (err) {
+    console.error('Mail to %s not sent:', to, err);
+    throw unavailable('The e-mail could not be sent; try again in a moment');
+  }
 }

@@ -44,3 +44,76 @@ export const organisationSettingsSchema = z.strictObject({
   printOffsetYMm: z.number().min(-10, 'At least −10 mm').max(10, 'At most 10 mm').optional(),
 });
 export type OrganisationSettings = z.infer<typeof organisationSettingsSchema>;
+
+/** The refinement on member updates: an empty PATCH is a mistake worth saying so. */
+export const memberChangeSchema = memberUpdateSchema.refine(
+  (v) => v.role !== undefined || v.disabled !== undefined,
+  { message: 'Send a role, a disabled flag, or both', path: ['(body)'] },
+);
+export type MemberUpdate = z.infer<typeof memberUpdateSchema>;
+export type InviteInput = z.infer<typeof inviteSchema>;
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
+
+// Responses. Dates travel as ISO 8601 strings.
+
+export const memberSchema = z.object({
+  id: z.number(),
+  email: z.string(),
+  name: z.string(),
+  role: roleSchema,
+  disabled: z.boolean(),
+  createdAt: z.string(),
+});
+export type Member = z.infer<typeof memberSchema>;
+export const memberListSchema = z.object({ members: z.array(memberSchema) });
+
+/** A pending invitation as its organisation's owner sees it. */
+export const pendingInvitationSchema = z.object({
+  id: z.number(),
+  email: z.string(),
+  role: roleSchema,
+  invitedBy: z.string(),
+  createdAt: z.string(),
+  expiresAt: z.string(),
+});
+export type PendingInvitation = z.infer<typeof pendingInvitationSchema>;
+export const pendingInvitationListSchema = z.object({ invitations: z.array(pendingInvitationSchema) });
+
+/** What the invitation link shows before accepting: no ids, nothing else of the organisation. */
+export const invitationInfoSchema = z.object({
+  email: z.string(),
+  role: roleSchema,
+  organisation: z.object({ name: z.string() }),
+  expiresAt: z.string(),
+});
+export type InvitationInfo = z.infer<typeof invitationInfoSchema>;
+
+export const organisationSchema = z.object({
+  id: z.number(),
+  name: z.string(),
+  contactPhone: z.string(),
+  contactEmail: z.string(),
+  printOffsetXMm: z.number(),
+  printOffsetYMm: z.number(),
+});
+export type Organisation = z.infer<typeof organisationSchema>;
+
+/** Query of the dev-only captured mail list: optionally only messages to one address. */
+export const capturedMailQuerySchema = z.strictObject({
+  to: z.string().trim().max(254, 'At most 254 characters').optional(),
+});
+
+export const capturedMailSummarySchema = z.object({
+  id: z.number(),
+  to: z.string(),
+  subject: z.string(),
+  createdAt: z.string(),
+});
+export const capturedMailListSchema = z.object({ messages: z.array(capturedMailSummarySchema) });
+export const capturedMailMessageSchema = capturedMailSummarySchema.extend({
+  from: z.string(),
+  text: z.string(),
+  attachments: z.array(z.object({ filename: z.string(), contentType: z.string(), size: z.number() })),
+});
+export type CapturedMailMessage = z.infer<typeof capturedMailMessageSchema>;

@@ -1,0 +1,20 @@
+/** Reading the captured mail for the dev-only mail page. */
+import type { Db } from '../db/client.js';
+import type { CapturedMailMessage } from '../../shared/schemas/auth.js';
+import { notFound } from '../errors.js';
+import { readMessage } from '../mail/read.js';
+import { findCapturedMail, listCapturedMail } from './repository.js';
+
+export async function capturedMailList(db: Db, to?: string) {
+  const rows = await listCapturedMail(db, to);
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+}
+
+/** One message with its text decoded from the raw MIME source. */
+export async function capturedMailMessage(db: Db, id: number): Promise<CapturedMailMessage> {
+  const row = await findCapturedMail(db, id);
+  if (!row) throw notFound('No such captured message');
+  const { raw, ...rest } = row;
+  const read = await readMessage(raw);
+  return { ...rest, createdAt: rest.createdAt.toISOString(), from: read.from, subject: read.subject || rest.subject, text: read.text, attachments: read.attachments };
+}

@@ -1,0 +1,73 @@
+/**
+ * The words of the account e-mails. Pure: the caller passes names, the link and the expiry,
+ * so the text is tested without sending anything and without a clock.
+ */
+import type { Role } from '../../shared/schemas/auth.js';
+
+export interface MessageText { subject: string; text: string }
+
+const ROLE_DUTIES: Record<Role, string> = {
+  owner: 'an owner: you can do everything, including inviting members and changing the organisation settings',
+  electrician: 'an electrician: you can create, edit and print board schedules',
+  viewer: 'a viewer: you can read and print board schedules, but not change them',
+};
+
+/** "2025-03-08 14:05 UTC": unambiguous whatever the reader's locale. */
+export function formatUtc(when: Date): string {
+  return `${when.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+export interface InvitationMessageInput {
+  organisationName: string;
+  inviterName: string;
+  role: Role;
+  link: string;
+  expiresAt: Date;
+}
+
+/** The invitation a new member receives: who asked, which role, the one-time link and when it lapses. */
+export function invitationMessage(input: InvitationMessageInput): MessageText {
+  return {
+    subject: `${input.inviterName} has invited you to ${input.organisationName} on Waymark`,
+    text: [
+      'Hello,',
+      '',
+      `${input.inviterName} has invited you to join ${input.organisationName} on Waymark as ${ROLE_DUTIES[input.role]}.`,
+      '',
+      'To join, open this link and choose your name and a password:',
+      input.link,
+      '',
+      `The link can be used once and stops working at ${formatUtc(input.expiresAt)}.`,
+      'If you were not expecting this, you can ignore this e-mail: no account is made unless the link is used.',
+      '',
+      '— Waymark',
+    ].join('\n'),
+  };
+}
+
+export interface PasswordResetMessageInput {
+  name: string;
+  email: string;
+  link: string;
+  expiresAt: Date;
+}
+
+/** The password reset link. Says plainly that ignoring it changes nothing. */
+export function passwordResetMessage(input: PasswordResetMessageInput): MessageText {
+  return {
+    subject: 'Choose a new Waymark password',
+    text: [
+      `Hello ${input.name},`,
+      '',
+      `We were asked to reset the password of the Waymark account ${input.email}.`,
+      'To choose a new password, open this link:',
+      input.link,
+      '',
+      `The link can be used once and stops working at ${formatUtc(input.expiresAt)}.`,
+      'Setting a new password signs the account out on every other device.',
+      'If you did not ask for this, ignore this e-mail: your password stays as it is.',
+      '',
+      '— Waymark',
+    ].join('\n'),
+  };
+}

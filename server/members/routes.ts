@@ -1,0 +1,63 @@
+/**
+ * `/api/members`: every member reads the list; only owners change members and manage invitations.
+ * `/api/invitations`: the link side, used before the invitee has an account.
+ */
+import { Router } from 'express';
+import { z } from 'zod';
+import { acceptInvitationSchema, inviteSchema, memberChangeSchema } from '../../shared/schemas/auth.js';
+import type { AppContext } from '../context.js';
+import { ownerOnly, requireUser } from '../auth/guard.js';
+import { signIn } from '../auth/sign-in.js';
+import { idParam, parse } from '../http/parse.js';
+import { acceptInvitation, invitationByToken, inviteMember, pendingInvitations, revokeInvitation } from './invitation-service.js';
+import { changeMember, membersOf } from './service.js';
+
+export function membersRoutes(ctx: AppContext): Router {
+  const r = Router();
+
+  r.get('/', requireUser, async (req, res) => {
+    res.json({ members: await membersOf(ctx.db, req.user!.organisationId) });
+  });
+
+  r.get('/invitations', ownerOnly, async (req, res) => {
+    res.json({ invitations: await pendingInvitations(ctx.db, req.user!.organisationId) });
+  });
+
+  r.post('/invitations', ownerOnly, async (req, res) => {
+    const input = parse(inviteSchema, req.body);
+    res.status(201).json(await inviteMember(ctx, req.user!, input));
+  });
+
+  r.delete('/invitations/:id', ownerOnly, async (req, res) => {
+    await revokeInvitation(ctx.db, req.user!.organisationId, idParam(req.params));
+    res.status(204).end();
+  });
+
+  r.patch('/:id', ownerOnly, async (req, res) => {
+    const id = idParam(req.params);
+    const change = parse(memberChangeSchema, req.body);
+    res.json(await changeMember(ctx.db, req.user!.organisationId, id, change));
+  });
+
+  return r;
+}
+
+const tokenParamSchema = z.object({ token: z.string().min(10, 'Too short to be a link token').max(200, 'Too long to be a link token') });
+
+export function invitationRoutes(ctx: AppContext): Router {
+  const r = Router();
+
+  r.get('/:token', async (req, res) => {
+    const { token } = parse(tokenParamSchema, req.params);
+    res.json(await invitationByToken(ctx.db, token));
+  });
+
+  r.post('/accept', async (req, res) => {
+    const input = parse(acceptInvitationSchema, req.body);
+    const userId = await acceptInvitation(ctx.db, input);
+    await signIn(req, userId);
+    res.status(201).json({ id: userId });
+  });
+
+  return r;
+}

@@ -1,0 +1,57 @@
+/**
+ * Members of each role for API tests, made through the real invitation flow (owner invites,
+ * the link is read from the captured mail, the invitee accepts), and link reading for the
+ * invitation and reset e-mails. Mail is decoded with mailparser, independently of the app.
+ */
+import type { Express } from 'express';
+import { simpleParser } from 'mailparser';
+import type { Database } from '../../server/db/client.js';
+import type { Role } from '../../shared/schemas/auth.js';
+import { client, mailTo, TEST_PASSWORD, uniqueEmail, type Client, type TestApp } from './app.js';
+
+/** The decoded text of the newest message to an address, once at least `count` have arrived. */
+export async function mailText(database: Database, address: string, count = 1, timeoutMs = 5000) {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const messages = await mailTo(database, address);
+    if (messages.length >= count) {
+      const parsed = await simpleParser(messages[0].raw);
+      return { subject: parsed.subject ?? '', text: parsed.text ?? '', row: messages[0] };
+    }
+    if (Date.now() > deadline) throw new Error(`fewer than ${count} mail(s) to ${address} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+/** The token of the first `${base}/${kind}/<token>` link in a text. */
+export function linkToken(text: string, base: string, kind: 'invite' | 'reset'): string {
+  const escaped = base.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&');
+  const m = text.match(new RegExp(`${escaped}/${kind}/([A-Za-z0-9_-]+)`));
+  if (!m) throw new Error(`no ${kind} link in: ${text}`);
+  return m[1];
+}
+
+/** Invites an address as `owner` and returns the token from the e-mail it received. */
+export async function inviteAndReadToken(t: TestApp, owner: Client, email: string, role: Role, count = 1): Promise<string> {
+  await owner.post('/api/members/invitations', { email, role }).expect(201);
+  const mail = await mailText(t.database, email, count);
+  return linkToken(mail.text, t.ctx.config.publicBaseUrl, 'invite');
+}
+
+/** A signed-in member of the owner's organisation with the given role. */
+export async function addMember(t: TestApp, owner: Client, role: Role, name = `Test ${role}`): Promise<Client & { email: string; id: number }> {
+  const email = uniqueEmail(role);
+  const token = await inviteAndReadToken(t, owner, email, role);
+  const c = await client(t.app);
+  const res = await c.post('/api/invitations/accept', { token, name, password: TEST_PASSWORD }).expect(201);
+  return Object.assign(c, { email, id: res.body.id as number });
+}
+
+/** The cookie header a supertest agent holds, to replay on another app instance. */
+export async function sessionCookie(app: Express, email: string, password = TEST_PASSWORD): Promise<{ cookie: string; csrf: string }> {
+  const c = await client(app);
+  const res = await c.post('/api/auth/login', { email, password }).expect(200);
+  const setCookie = res.headers['set-cookie'] as unknown as string[];
+  const cookie = setCookie.map((s) => s.split(';')[0]).join('; ');
+  return { cookie, csrf: c.csrf };
+}
