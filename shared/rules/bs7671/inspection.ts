@@ -20,7 +20,7 @@ export function nextInspectionOn(board: Pick<BoardDetails, 'lastInspectionOn' | 
 }
 
 function intervalText(months: number): string {
-  return months % 12 === 0 ? `${months / 12} year${months === 12 ? '' : 's'}` : `${months} month${months === 1 ? '' : 's'}`;
+  return months % 12 === 0 ? `${months / 12}-year` : `${months}-month`;
 }
 
 /** Inspection findings: missing last date, overdue, due soon, a last date in the future. */
