@@ -5,5 +5,8 @@ import '@fontsource/dejavu-sans/700.css';
 import './styles/base.css';
 import App from './App.vue';
 import { router } from './router/index.js';
+import { installRouteGuards } from './router/guard.js';
 
-createApp(App).use(createPinia()).use(router).mount('#app');
+const pinia = createPinia();
+installRouteGuards(router, pinia);
+createApp(App).use(pinia).use(router).mount('#app');

@@ -1,0 +1,98 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { loginSchema } from '../../shared/schemas/auth.js';
+import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
+import { uniqueEmail } from '../helpers/app.js';
+
+let app: BrowserApp;
+beforeAll(async () => { app = await startBrowserApp(); });
+afterAll(async () => { await app?.close(); });
+
+/** True on the sign-in page when it will send the member back to `path` afterwards. */
+const signInFor = (path: string) => (url: URL) => url.pathname === '/signin' && url.searchParams.get('redirect') === path;
+
+/** The message the shared schema gives for a field, so the test holds the form to the same contract. */
+function schemaMessage(input: unknown, field: string): string {
+  const result = loginSchema.safeParse(input);
+  const issue = result.error?.issues.find((i) => i.path.join('.') === field);
+  if (!issue) throw new Error(`the schema accepts ${field}`);
+  return issue.message;
+}
+
+describe('signing up and in through the forms', () => {
+  it('when a contractor signs up, signs out and signs in again, then the shell shows them as owner', async () => {
+    const page = await app.newPage();
+    const email = uniqueEmail('e2e-owner');
+    const password = 'lamp-post-cable-99';
+
+    await page.goto('/');
+    await page.waitForURL(signInFor('/boards'));
+    await page.getByRole('link', { name: /create an account/i }).click();
+    await page.getByLabel('Organisation (as printed on your charts)').fill('Larkspur Test Electrical');
+    await page.getByLabel('Your name').fill('Ada Fenwick');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.waitForURL('**/boards');
+
+    const account = page.getByRole('button', { name: 'Account menu for Ada Fenwick' });
+    await account.waitFor();
+    expect(await account.textContent()).toContain('Larkspur Test Electrical');
+    await account.click();
+    await page.getByRole('menuitem', { name: /sign out/i }).click();
+    await page.waitForURL('**/signin');
+    expect((await page.request.get('/api/auth/me')).status()).toBe(401);
+
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill(password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL('**/boards');
+
+    const nav = page.getByRole('navigation', { name: 'Main' });
+    const labels = await nav.getByRole('link').allTextContents();
+    expect(labels.map((l) => l.trim())).toEqual(['Boards', 'Sites', 'Print settings', 'Members', 'Organisation', 'Captured mail']);
+    const me = await (await page.request.get('/api/auth/me')).json();
+    expect(me.user).toMatchObject({ email, name: 'Ada Fenwick', role: 'owner' });
+    expect(app.outsideRequests).toEqual([]);
+    expect(app.pageErrors).toEqual([]);
+  });
+
+  it('when the e-mail is malformed, then the schema message shows beside the field and nothing is sent', async () => {
+    const page = await app.newPage();
+    const logins: string[] = [];
+    page.on('request', (r) => { if (r.url().endsWith('/api/auth/login')) logins.push(r.url()); });
+    await page.goto('/signin');
+    await page.getByLabel('E-mail').fill('not-an-address');
+    await page.getByLabel('Password', { exact: true }).fill('anything-at-all');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+
+    const help = page.locator('.ant-form-item-has-error').filter({ has: page.getByLabel('E-mail') });
+    await help.getByText(schemaMessage({ email: 'not-an-address', password: 'x' }, 'email')).waitFor();
+    expect(logins).toEqual([]);
+    expect(page.url()).toMatch(/\/signin$/);
+  });
+
+  it('when the password is wrong, then the server message shows and the member stays signed out', async () => {
+    const { email } = await signedInOwnerPage(app, 'Wrong Password Test Ltd');
+    const page = await app.newPage();
+    await page.goto('/signin');
+    await page.getByLabel('E-mail').fill(email);
+    await page.getByLabel('Password', { exact: true }).fill('not-the-password-1');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByRole('alert').getByText(/e-mail or password/i).waitFor();
+    expect((await page.request.get('/api/auth/me')).status()).toBe(401);
+  });
+
+  it('when a signed-out member opens a settings page, then after signing in they land on that page', async () => {
+    const owner = await signedInOwnerPage(app, 'Redirect Test Electrical');
+    const page = await app.newPage();
+    await page.goto('/settings/organisation');
+    await page.waitForURL(signInFor('/settings/organisation'));
+    await page.getByLabel('E-mail').fill(owner.email);
+    await page.getByLabel('Password', { exact: true }).fill(owner.password);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL('**/settings/organisation');
+    const name = page.getByLabel('Organisation name');
+    await name.waitFor();
+    expect(await name.inputValue()).toBe('Redirect Test Electrical');
+  });
+});
