@@ -1,4 +1,4 @@
-import { and, eq, isNull, ne, sql } from 'drizzle-orm';
+import { and, eq, inArray, isNull, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { organisations, passwordResets, sessions, users } from '../db/schema.js';
 import type { Role } from '../../shared/schemas/auth.js';
@@ -48,12 +48,14 @@ export async function retirePasswordResets(db: Db, userId: number, now: Date): P
 
 /**
  * Ends the user's sessions except one. express-mysql-session keeps the session as JSON text,
- * so the owner of a session is read from its `userId` member.
+ * so the owner of a session is read from its `userId` member. The matching ids are found with a
+ * plain read and deleted by key, so the scan never locks the other users' session rows.
  */
 export async function deleteSessionsOfUser(db: Db, userId: number, exceptSessionId: string): Promise<number> {
-  const [res] = await db.delete(sessions).where(and(
-    sql`CAST(JSON_VALUE(${sessions.data}, '$.userId') AS UNSIGNED) = ${userId}`,
-    ne(sessions.sessionId, exceptSessionId),
-  ));
+  const rows = await db.select({ id: sessions.sessionId }).from(sessions)
+    .where(sql`CAST(JSON_VALUE(${sessions.data}, '$.userId') AS UNSIGNED) = ${userId}`);
+  const ids = rows.map((r) => r.id).filter((id) => id !== exceptSessionId);
+  if (ids.length === 0) return 0;
+  const [res] = await db.delete(sessions).where(inArray(sessions.sessionId, ids));
   return res.affectedRows;
 }

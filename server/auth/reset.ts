@@ -43,12 +43,14 @@ const linkNotValid = () => invalid('This reset link is not valid any more: ask f
 /** Sets the new password from a link; the session making the request (if any) stays signed in. */
 export async function resetPassword(db: Db, input: ResetPasswordInput, currentSessionId: string, now = new Date()): Promise<void> {
   const passwordHash = await hashPassword(input.password);
-  await db.transaction(async (txn) => {
+  const userId = await db.transaction(async (txn) => {
     const tx = txn as unknown as Db;
     const reset = await lockPasswordReset(tx, hashToken(input.token));
     if (!reset || reset.usedAt || reset.expiresAt.getTime() <= now.getTime() || reset.userDisabled) throw linkNotValid();
     await setPasswordHash(tx, reset.userId, passwordHash);
     await retirePasswordResets(tx, reset.userId, now);
-    await deleteSessionsOfUser(tx, reset.userId, currentSessionId);
+    return reset.userId;
   });
+  // After the commit: any session made from now on was made with the new password.
+  await deleteSessionsOfUser(db, userId, currentSessionId);
 }

@@ -28,10 +28,11 @@ export async function inviteMember(ctx: AppContext, owner: CurrentUser, input: I
   if (await findUserByEmail(ctx.db, input.email)) throw alreadyMember();
   const token = newLinkToken();
   const expiresAt = new Date(now.getTime() + INVITATION_LIFETIME_MS);
-  const created = await ctx.db.transaction(async (txn) => {
-    const tx = txn as unknown as Db;
-    await deleteUnusedInvitationsFor(tx, owner.organisationId, input.email);
-    return insertInvitation(tx, { ...input, organisationId: owner.organisationId, tokenHash: token.hash, invitedBy: owner.id, expiresAt });
+  // Not one transaction: its gap locks deadlock with other organisations' invitations, and two
+  // links left by a simultaneous double invite are harmless (both are listed and revocable).
+  await deleteUnusedInvitationsFor(ctx.db, owner.organisationId, input.email);
+  const created = await insertInvitation(ctx.db, {
+    ...input, organisationId: owner.organisationId, tokenHash: token.hash, invitedBy: owner.id, expiresAt,
   });
   const link = `${ctx.config.publicBaseUrl}/invite/${token.raw}`;
   try {
