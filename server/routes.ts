@@ -6,6 +6,8 @@ import { invitationRoutes, membersRoutes } from './members/routes.js';
 import { organisationRoutes } from './organisation/routes.js';
 import { devRoutes } from './dev/routes.js';
 import { sheetLayoutRoutes } from './sheet-layouts/routes.js';
+import { siteRoutes } from './sites/routes.js';
+import { boardRoutes } from './boards/routes.js';
 
 export function apiRoutes(ctx: AppContext): Router {
   const api = Router();
@@ -19,5 +21,7 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use('/organisation', organisationRoutes(ctx));
   api.use('/dev', devRoutes(ctx));
   api.use('/sheet-layouts', sheetLayoutRoutes(ctx));
+  api.use('/sites', siteRoutes(ctx));
+  api.use('/boards', boardRoutes(ctx));
   return api;
 }

@@ -1,0 +1,146 @@
+/**
+ * The circuit CSV (documented in DEVELOPERS.md, "Circuit CSV"): one row per circuit, one column
+ * per circuit field. Pure: schedule → CSV text, and CSV text + current circuits → new circuits or
+ * the list of `rows.<n>.<column>` at fault.
+ */
+import { circuitSchema, type Circuit } from '../../shared/schemas/schedule.js';
+import { CsvSyntaxError, formatCsv, guardFormula, parseCsv, unguardFormula } from './csv.js';
+
+type CellKind = 'text' | 'number' | 'boolean' | 'list' | 'choice';
+interface Column { name: string; path: string[]; kind: CellKind }
+
+const col = (name: string, path: string, kind: CellKind): Column => ({ name, path: path.split('.'), kind });
+
+/** The columns, in the order the export writes them. Only `way` and `label` are required in a file. */
+export const CIRCUIT_CSV_COLUMNS: Column[] = [
+  col('id', 'id', 'choice'), col('way', 'way', 'number'), col('phase', 'phase', 'choice'), col('device_id', 'deviceId', 'choice'),
+  col('label', 'label', 'text'), col('description', 'description', 'text'), col('kind', 'kind', 'choice'),
+  col('socket_outlets', 'socketOutlets', 'boolean'), col('concealed_in_wall', 'concealedInWall', 'boolean'),
+  col('cable_type', 'cable.type', 'choice'), col('live_csa', 'cable.liveCsa', 'number'), col('cpc_csa', 'cable.cpcCsa', 'number'),
+  col('reference_method', 'cable.referenceMethod', 'choice'), col('length_m', 'cable.lengthM', 'number'),
+  col('diameter_mm', 'cable.diameterMm', 'number'), col('points', 'points', 'number'), col('locations', 'locations', 'list'),
+  col('previous_reference', 'previousReference', 'text'), col('measured_zs', 'measuredZs', 'number'),
+  col('zs_at_ambient', 'zsAtAmbient', 'boolean'), col('legs', 'legs', 'number'), col('notes', 'notes', 'text'),
+  col('notes_public', 'notesPublic', 'boolean'), col('feeds_board_id', 'feedsBoardId', 'number'),
+];
+const REQUIRED = ['way', 'label'];
+const BY_NAME = new Map(CIRCUIT_CSV_COLUMNS.map((c) => [c.name, c]));
+/** Separates the locations inside one cell: "Kitchen; Utility". */
+export const LOCATION_SEPARATOR = ';';
+
+function getPath(obj: any, path: string[]): unknown {
+  return path.reduce((o, k) => (o == null ? undefined : o[k]), obj);
+}
+function setPath(obj: any, path: string[], value: unknown): void {
+  let o = obj;
+  for (const k of path.slice(0, -1)) o = o[k] ??= {};
+  o[path[path.length - 1]] = value;
+}
+
+function cellOf(c: Column, value: unknown): string {
+  if (value == null) return '';
+  if (c.kind === 'boolean') return value ? 'yes' : 'no';
+  if (c.kind === 'list') return (value as string[]).map(guardFormula).join(`${LOCATION_SEPARATOR} `);
+  if (c.kind === 'text') return guardFormula(String(value));
+  return String(value);
+}
+
+/** `GET /api/boards/:id/circuits.csv`: every circuit, in the schedule's order, every column. */
+export function circuitsToCsv(circuits: Circuit[]): string {
+  const rows = circuits.map((circuit) => CIRCUIT_CSV_COLUMNS.map((c) => cellOf(c, getPath(circuit, c.path))));
+  return formatCsv([CIRCUIT_CSV_COLUMNS.map((c) => c.name), ...rows]);
+}
+
+const TRUE = new Set(['yes', 'y', 'true', '1']);
+const FALSE = new Set(['no', 'n', 'false', '0']);
+
+/** A cell as the schema's input; an empty cell means "the default"; a cell that cannot convert goes through as text for the schema to refuse. */
+function valueOf(c: Column, raw: string): unknown {
+  const cell = raw.trim();
+  if (cell === '') return c.kind === 'list' ? [] : undefined;
+  switch (c.kind) {
+    case 'number': {
+      const n = cell.replace(/^(\d+),(\d+)$/, '$1.$2');
+      return /^-?\d+(\.\d+)?$/.test(n) ? Number(n) : cell;
+    }
+    case 'boolean': return TRUE.has(cell.toLowerCase()) ? true : FALSE.has(cell.toLowerCase()) ? false : cell;
+    case 'list': return cell.split(LOCATION_SEPARATOR).map((s) => unguardFormula(s.trim())).filter(Boolean);
+    case 'text': return unguardFormula(cell);
+    default: return cell;
+  }
+}
+
+export type CsvResult = { ok: true; circuits: Circuit[]; rowOf: number[] } | { ok: false; fields: Record<string, string> };
+
+function readHeader(header: string[]): { columns: Column[]; fields: Record<string, string> } {
+  const fields: Record<string, string> = {};
+  const seen = new Set<string>();
+  const columns = header.map((h) => {
+    const name = h.trim().toLowerCase();
+    const c = BY_NAME.get(name);
+    if (!c) fields[`header.${name || '(blank)'}`] = `Unknown column; the columns are ${CIRCUIT_CSV_COLUMNS.map((x) => x.name).join(', ')}`;
+    else if (seen.has(name)) fields[`header.${name}`] = 'Column given twice';
+    seen.add(name);
+    return c!;
+  });
+  for (const r of REQUIRED) if (!seen.has(r)) fields[`header.${r}`] = 'Missing column';
+  return { columns, fields };
+}
+
+/** An id for a new circuit: "w7", "w7-L2", with a suffix if that is taken. */
+function newCircuitId(way: unknown, phase: unknown, taken: Set<string>): string {
+  const base = `w${typeof way === 'number' ? way : 'x'}${typeof phase === 'string' && phase ? `-${phase}` : ''}`;
+  let id = base;
+  for (let n = 2; taken.has(id); n++) id = `${base}-${n}`;
+  return id;
+}
+
+/**
+ * Reads a circuit CSV against the board's current circuits. The file is the board's whole circuit
+ * list: a row matches an existing circuit by `id`, else by way and phase, and keeps that circuit's
+ * values for columns the file leaves out; circuits not in the file are removed. Any bad cell fails
+ * the whole file, every fault listed as `rows.<n>.<column>` (n = the spreadsheet row, header = 1).
+ */
+export function circuitsFromCsv(text: string, current: Circuit[]): CsvResult {
+  let records: string[][];
+  try { records = parseCsv(text); } catch (err) {
+    if (err instanceof CsvSyntaxError) return { ok: false, fields: { [`rows.${err.row}`]: err.message } };
+    throw err;
+  }
+  if (!records.length) return { ok: false, fields: { header: 'The file is empty' } };
+  const { columns, fields } = readHeader(records[0]);
+  if (Object.keys(fields).length) return { ok: false, fields };
+  const byId = new Map(current.map((c) => [c.id, c]));
+  const byWay = new Map(current.map((c) => [`${c.way}/${c.phase ?? ''}`, c]));
+  const taken = new Set<string>();
+  const firstRowOfId = new Map<string, number>();
+  const circuits: Circuit[] = [];
+  const rowOf: number[] = [];
+  records.forEach((cells, index) => {
+    const row = index + 1;
+    if (index === 0 || cells.every((c) => c.trim() === '')) return;
+    if (cells.length !== columns.length) { fields[`rows.${row}`] = `Has ${cells.length} cells; the header has ${columns.length}`; return; }
+    const input: Record<string, any> = {};
+    columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
+    const match = (input.id ? byId.get(input.id) : undefined) ?? byWay.get(`${input.way}/${input.phase ?? ''}`);
+    const merged: Record<string, any> = match ? structuredClone(match) : {};
+    for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
+    if (merged.id === undefined || (!input.id && taken.has(merged.id))) merged.id = newCircuitId(merged.way, merged.phase, new Set([...taken, ...byId.keys()]));
+    const parsed = circuitSchema.safeParse(merged);
+    if (!parsed.success) {
+      for (const issue of parsed.error.issues) {
+        const column = CIRCUIT_CSV_COLUMNS.find((c) => c.path.every((k, i) => issue.path[i] === k))?.name ?? String(issue.path[0] ?? 'row');
+        fields[`rows.${row}.${column}`] ??= issue.message;
+      }
+      return;
+    }
+    const seenAt = firstRowOfId.get(parsed.data.id);
+    if (seenAt) { fields[`rows.${row}.id`] = `The same circuit as row ${seenAt}`; return; }
+    firstRowOfId.set(parsed.data.id, row);
+    taken.add(parsed.data.id);
+    circuits.push(parsed.data);
+    rowOf.push(row);
+  });
+  if (circuits.length + Object.keys(fields).length > 2000) fields.rows = 'At most 2000 circuits';
+  return Object.keys(fields).length ? { ok: false, fields } : { ok: true, circuits, rowOf };
+}

@@ -1,0 +1,69 @@
+/**
+ * Moving boards in and out as files: the board file (our own versioned JSON, validated whole by
+ * `boardFileSchema`) and the circuit CSV. A bad file is refused whole and nothing is written.
+ */
+import { z } from 'zod';
+import type { Db } from '../db/client.js';
+import { BOARD_FILE_FORMAT, boardFileSchema, type BoardFile } from '../../shared/schemas/schedule.js';
+import { invalid, notFound } from '../errors.js';
+import { findBoardSchedule } from './repository.js';
+import { circuitsFromCsv, circuitsToCsv } from './circuit-csv.js';
+import { checkFeedsBoardIds, checkSiteField, createBoardRecord, saveScheduleAt, type Actor, type SaveOutcome } from './writes.js';
+
+/** `POST /api/boards/import` takes a board file, or `{file, siteId}` to place the new board on a site. */
+export const boardImportSchema = z.union([
+  z.strictObject({ file: boardFileSchema, siteId: z.number().int().positive().nullable().optional() }),
+  boardFileSchema,
+]);
+export type BoardImport = z.infer<typeof boardImportSchema>;
+
+/**
+ * Parses an import body, reporting field paths from the form it resembles: a body with a `file`
+ * key is the wrapped form (paths `file.…`), anything else a bare board file.
+ */
+export function parseBoardImport(body: unknown): BoardImport {
+  const wrapped = typeof body === 'object' && body !== null && 'file' in body;
+  return wrapped ? boardImportSchema.options[0].parse(body) : boardImportSchema.options[1].parse(body);
+}
+
+/** A safe file name from the board code and name: "WM-7K3QX2-main-consumer-unit". */
+export function fileBaseName(code: string, name: string): string {
+  const slug = name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60);
+  return slug ? `${code}-${slug}` : code;
+}
+
+export async function exportBoardFile(db: Db, organisationId: number, id: number, now = new Date()): Promise<{ file: BoardFile; baseName: string }> {
+  const row = await findBoardSchedule(db, organisationId, id);
+  if (!row) throw notFound('No such board');
+  const file: BoardFile = { format: BOARD_FILE_FORMAT, kind: 'waymark-board', exportedAt: now.toISOString(), ...row.schedule };
+  return { file, baseName: fileBaseName(row.code, row.schedule.board.name) };
+}
+
+/** A new board from a board file, at revision 1 with its own code and token. */
+export async function importBoardFile(db: Db, actor: Actor, input: BoardImport): Promise<number> {
+  const wrapped = 'file' in input;
+  const file = wrapped ? input.file : input;
+  const siteId = wrapped ? input.siteId ?? null : null;
+  await checkSiteField(db, actor.organisationId, siteId);
+  const schedule = { board: file.board, devices: file.devices, circuits: file.circuits };
+  await checkFeedsBoardIds(db, actor.organisationId, schedule, null, (i) => `${wrapped ? 'file.' : ''}circuits.${i}.feedsBoardId`);
+  return createBoardRecord(db, actor, schedule, siteId, 'Imported from a board file');
+}
+
+export async function exportCircuitsCsv(db: Db, organisationId: number, id: number): Promise<{ csv: string; baseName: string }> {
+  const row = await findBoardSchedule(db, organisationId, id);
+  if (!row) throw notFound('No such board');
+  return { csv: circuitsToCsv(row.schedule.circuits), baseName: fileBaseName(row.code, row.schedule.board.name) };
+}
+
+/** Replaces the board's circuits with the file's, as one save against `baseRevision` (so stale is 409 as ever). */
+export async function importCircuitsCsv(db: Db, actor: Actor, id: number, csv: string, baseRevision: number): Promise<SaveOutcome> {
+  const row = await findBoardSchedule(db, actor.organisationId, id);
+  if (!row) throw notFound('No such board');
+  if (row.revision !== baseRevision) return { status: 'stale', revision: row.revision };
+  const result = circuitsFromCsv(csv, row.schedule.circuits);
+  if (!result.ok) throw invalid('The file has errors; nothing was imported', result.fields);
+  const schedule = { ...row.schedule, circuits: result.circuits };
+  await checkFeedsBoardIds(db, actor.organisationId, schedule, id, (i) => `rows.${result.rowOf[i]}.feeds_board_id`);
+  return saveScheduleAt(db, actor, id, baseRevision, schedule);
+}

@@ -1,0 +1,116 @@
+/**
+ * `/api/boards`: each handler parses, calls one use-case and answers. Viewers read (and export);
+ * every write needs the owner or electrician role; restoring a deleted board needs the owner.
+ */
+import express, { Router, type Request, type Response } from 'express';
+import type { AppContext } from '../context.js';
+import { scheduleSaveSchema } from '../../shared/schemas/schedule.js';
+import {
+  baseRevisionQuerySchema, boardCreateSchema, boardListQuerySchema, boardPatchSchema, boardPublicSchema, circuitCsvImportSchema, diffQuerySchema,
+} from '../../shared/schemas/boards.js';
+import { canEdit, ownerOnly, requireUser } from '../auth/guard.js';
+import { idParam, parse } from '../http/parse.js';
+import { checkBoard, createBoard, getBoardSummary, getSchedule, listOrganisationBoards, saveSchedule } from './service.js';
+import { deleteBoard, duplicateBoard, patchBoard, restoreBoard, rotatePublicToken, setPublicEnabled } from './lifecycle.js';
+import { boardRevision, boardRevisions, diffRevisions } from './history.js';
+import { exportBoardFile, exportCircuitsCsv, importBoardFile, importCircuitsCsv, parseBoardImport } from './files.js';
+import type { SaveOutcome } from './writes.js';
+
+const actor = (req: Request) => ({ id: req.user!.id, name: req.user!.name, organisationId: req.user!.organisationId });
+const org = (req: Request) => req.user!.organisationId;
+
+/** 200 with the new revision, or 409 `stale` carrying the board's current revision so the editor can reload. */
+function sendSave(res: Response, outcome: SaveOutcome): void {
+  if (outcome.status === 'stale') {
+    res.status(409).json({
+      error: {
+        code: 'stale',
+        message: `Someone saved this board since you opened it; it is now at revision ${outcome.revision}. Reload it and apply your changes again.`,
+        fields: { baseRevision: `The board is at revision ${outcome.revision}` },
+      },
+      revision: outcome.revision,
+    });
+    return;
+  }
+  res.json({ revision: outcome.revision, summary: outcome.summary, changed: outcome.changed });
+}
+
+const attachment = (res: Response, name: string) => res.set('Content-Disposition', `attachment; filename="${name}"`);
+const csvBody = express.text({ type: ['text/csv', 'application/csv'], limit: '5mb' });
+
+export function boardRoutes(ctx: AppContext): Router {
+  const r = Router();
+  const { db } = ctx;
+  r.use(requireUser);
+
+  r.get('/', async (req, res) => {
+    res.json(await listOrganisationBoards(db, org(req), parse(boardListQuerySchema, req.query)));
+  });
+  r.post('/', canEdit, async (req, res) => {
+    res.status(201).json({ id: await createBoard(db, actor(req), parse(boardCreateSchema, req.body)) });
+  });
+  r.post('/import', canEdit, async (req, res) => {
+    res.status(201).json({ id: await importBoardFile(db, actor(req), parseBoardImport(req.body)) });
+  });
+  r.get('/:id', async (req, res) => {
+    res.json(await getBoardSummary(db, org(req), idParam(req.params)));
+  });
+  r.patch('/:id', canEdit, async (req, res) => {
+    await patchBoard(db, org(req), idParam(req.params), parse(boardPatchSchema, req.body));
+    res.status(204).end();
+  });
+  r.delete('/:id', canEdit, async (req, res) => {
+    await deleteBoard(db, org(req), idParam(req.params));
+    res.status(204).end();
+  });
+  r.post('/:id/restore', ownerOnly, async (req, res) => {
+    await restoreBoard(db, org(req), idParam(req.params));
+    res.status(204).end();
+  });
+  r.post('/:id/duplicate', canEdit, async (req, res) => {
+    res.status(201).json({ id: await duplicateBoard(db, actor(req), idParam(req.params)) });
+  });
+  r.get('/:id/schedule', async (req, res) => {
+    res.json(await getSchedule(db, org(req), idParam(req.params)));
+  });
+  r.put('/:id/schedule', canEdit, async (req, res) => {
+    const id = idParam(req.params);
+    sendSave(res, await saveSchedule(db, actor(req), id, parse(scheduleSaveSchema, req.body)));
+  });
+  r.get('/:id/check', async (req, res) => {
+    res.json(await checkBoard(db, org(req), idParam(req.params)));
+  });
+  r.get('/:id/revisions', async (req, res) => {
+    res.json(await boardRevisions(db, org(req), idParam(req.params)));
+  });
+  r.get('/:id/revisions/:number', async (req, res) => {
+    res.json(await boardRevision(db, org(req), idParam(req.params), idParam(req.params, 'number')));
+  });
+  r.get('/:id/diff', async (req, res) => {
+    const id = idParam(req.params);
+    const { from, to } = parse(diffQuerySchema, req.query);
+    res.json(await diffRevisions(db, org(req), id, from, to));
+  });
+  r.get('/:id/export', async (req, res) => {
+    const { file, baseName } = await exportBoardFile(db, org(req), idParam(req.params));
+    attachment(res, `${baseName}.waymark.json`).json(file);
+  });
+  r.get('/:id/circuits.csv', async (req, res) => {
+    const { csv, baseName } = await exportCircuitsCsv(db, org(req), idParam(req.params));
+    attachment(res, `${baseName}-circuits.csv`).type('text/csv; charset=utf-8').send(csv);
+  });
+  r.post('/:id/circuits/import-csv', canEdit, csvBody, async (req, res) => {
+    const id = idParam(req.params);
+    const { csv, baseRevision } = typeof req.body === 'string'
+      ? { csv: req.body, ...parse(baseRevisionQuerySchema, req.query) }
+      : parse(circuitCsvImportSchema, req.body);
+    sendSave(res, await importCircuitsCsv(db, actor(req), id, csv, baseRevision));
+  });
+  r.post('/:id/token/rotate', canEdit, async (req, res) => {
+    res.json(await rotatePublicToken(db, org(req), idParam(req.params)));
+  });
+  r.patch('/:id/public', canEdit, async (req, res) => {
+    res.json(await setPublicEnabled(db, org(req), idParam(req.params), parse(boardPublicSchema, req.body).enabled));
+  });
+  return r;
+}

@@ -1,0 +1,94 @@
+/**
+ * The two writes every way of making or changing a schedule goes through: a new board at
+ * revision 1, and a save against a base revision. Create, duplicate, import, the CSV import and
+ * the demo seed all use these, so the revision rules hold everywhere.
+ */
+import type { Db } from '../db/client.js';
+import type { Schedule } from '../../shared/schemas/schedule.js';
+import { diffSchedules } from '../../shared/schedule/diff.js';
+import { invalid, notFound } from '../errors.js';
+import { newBoardCode, newPublicToken } from './codes.js';
+import { existingBoardIds, findBoardSchedule, findBoardState, insertBoard, siteExists, updateScheduleIfAt } from './repository.js';
+import { insertRevision } from './revision-repository.js';
+import { sameSchedule, searchTextOf } from './stored.js';
+
+/** Who is writing: the signed-in member (or the demo owner when seeding). */
+export interface Actor { id: number; name: string; organisationId: number }
+
+/** Runs a use-case in one transaction; the callback gets the transaction as a `Db`. */
+export function inTransaction<T>(db: Db, work: (tx: Db) => Promise<T>): Promise<T> {
+  return db.transaction((tx) => work(tx as unknown as Db));
+}
+
+const isDuplicate = (err: any) => err?.code === 'ER_DUP_ENTRY' || err?.cause?.code === 'ER_DUP_ENTRY';
+
+/** A site id given in a request body must be one of the organisation's sites: else 400 on that field. */
+export async function checkSiteField(db: Db, organisationId: number, siteId: number | null | undefined, field = 'siteId'): Promise<void> {
+  if (siteId != null && !(await siteExists(db, organisationId, siteId))) throw invalid('No such site', { [field]: 'No such site in your organisation' });
+}
+
+/**
+ * A sub-main's `feedsBoardId` must name a board of the same organisation, and not the board
+ * itself: else 400 on `circuits.<i>.feedsBoardId`. Other cross-references are findings, not errors.
+ */
+export async function checkFeedsBoardIds(
+  db: Db, organisationId: number, schedule: Schedule, selfId: number | null,
+  fieldFor: (index: number) => string = (i) => `circuits.${i}.feedsBoardId`,
+): Promise<void> {
+  const wanted = [...new Set(schedule.circuits.map((c) => c.feedsBoardId).filter((v): v is number => v != null))];
+  if (!wanted.length) return;
+  const known = await existingBoardIds(db, organisationId, wanted);
+  const fields: Record<string, string> = {};
+  schedule.circuits.forEach((c, i) => {
+    if (c.feedsBoardId == null) return;
+    if (c.feedsBoardId === selfId) fields[fieldFor(i)] = 'A board cannot feed itself';
+    else if (!known.has(c.feedsBoardId)) fields[fieldFor(i)] = 'No such board in your organisation';
+  });
+  if (Object.keys(fields).length) throw invalid('A sub-main names a board that is not one of yours', fields);
+}
+
+/** Inserts a board and its revision 1, in one transaction; retries on the rare clash of a random code. */
+export async function createBoardRecord(db: Db, actor: Actor, schedule: Schedule, siteId: number | null, summary: string): Promise<number> {
+  for (let attempt = 1; ; attempt++) {
+    const code = newBoardCode();
+    try {
+      return await inTransaction(db, async (tx) => {
+        const id = await insertBoard(tx, {
+          organisationId: actor.organisationId, siteId, code, publicToken: newPublicToken(), schedule, searchText: searchTextOf(schedule, code),
+        });
+        await insertRevision(tx, { boardId: id, number: 1, authorId: actor.id, authorName: actor.name, summary, snapshot: schedule });
+        return id;
+      });
+    } catch (err) {
+      if (!isDuplicate(err) || attempt >= 5) throw err;
+    }
+  }
+}
+
+export type SaveOutcome =
+  | { status: 'saved'; revision: number; summary: string; changed: true }
+  | { status: 'unchanged'; revision: number; summary: string; changed: false }
+  | { status: 'stale'; revision: number };
+
+/**
+ * Saves a whole schedule made from `baseRevision`. A save that changes nothing makes no revision;
+ * a save from an older revision is refused as stale (the caller answers 409), so nobody's work is
+ * overwritten silently. The revision row and the board row change in one transaction.
+ */
+export async function saveScheduleAt(db: Db, actor: Actor, boardId: number, baseRevision: number, schedule: Schedule): Promise<SaveOutcome> {
+  const current = await findBoardSchedule(db, actor.organisationId, boardId);
+  if (!current) throw notFound('No such board');
+  if (current.revision !== baseRevision) return { status: 'stale', revision: current.revision };
+  await checkFeedsBoardIds(db, actor.organisationId, schedule, boardId);
+  if (sameSchedule(current.schedule, schedule)) return { status: 'unchanged', revision: current.revision, summary: 'No changes', changed: false };
+  const summary = diffSchedules(current.schedule, schedule).summary || 'Changed';
+  const won = await inTransaction(db, async (tx) => {
+    if (!(await updateScheduleIfAt(tx, actor.organisationId, boardId, baseRevision, schedule, searchTextOf(schedule, current.code)))) return false;
+    await insertRevision(tx, { boardId, number: baseRevision + 1, authorId: actor.id, authorName: actor.name, summary, snapshot: schedule });
+    return true;
+  });
+  if (won) return { status: 'saved', revision: baseRevision + 1, summary, changed: true };
+  const now = await findBoardState(db, actor.organisationId, boardId);
+  if (!now || now.deletedAt) throw notFound('No such board');
+  return { status: 'stale', revision: now.revision };
+}

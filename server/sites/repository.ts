@@ -1,0 +1,65 @@
+/**
+ * Data access for sites. Every query filters by organisation, so another organisation's site id
+ * finds nothing (and the use-case answers 404).
+ */
+import { and, asc, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
+import type { Db } from '../db/client.js';
+import { boards, sites } from '../db/schema.js';
+import type { Site, SiteInput } from '../../shared/schemas/site.js';
+import type { BoardListItem } from '../../shared/schemas/boards.js';
+import { likeContains } from '../boards/stored.js';
+
+// Written out in SQL: in a one-table select Drizzle leaves column names unqualified, which inside a subquery would bind to the wrong table.
+const boardCount = sql<number>`(SELECT COUNT(*) FROM \`boards\` AS b WHERE b.site_id = \`sites\`.\`id\` AND b.deleted_at IS NULL)`;
+const columns = {
+  id: sites.id, reference: sites.reference, clientName: sites.clientName, address: sites.address, clientEmail: sites.clientEmail,
+  clientPhone: sites.clientPhone, notes: sites.notes, createdAt: sites.createdAt, boardCount,
+};
+type Row = { createdAt: Date; boardCount: number } & Omit<Site, 'createdAt' | 'boardCount'>;
+const toSite = (r: Row): Site => ({ ...r, createdAt: r.createdAt.toISOString(), boardCount: Number(r.boardCount) });
+
+/** The organisation's sites by reference; `q` matches reference, client name or address. */
+export async function listSites(db: Db, organisationId: number, q?: string): Promise<Site[]> {
+  const conditions: SQL[] = [eq(sites.organisationId, organisationId)];
+  for (const word of (q ?? '').split(/\s+/).filter(Boolean).slice(0, 10)) {
+    const p = likeContains(word);
+    conditions.push(or(like(sites.reference, p), like(sites.clientName, p), like(sites.address, p))!);
+  }
+  const rows = await db.select(columns).from(sites).where(and(...conditions)).orderBy(asc(sites.reference), asc(sites.id));
+  return rows.map(toSite);
+}
+
+export async function findSite(db: Db, organisationId: number, id: number): Promise<Site | null> {
+  const [row] = await db.select(columns).from(sites).where(and(eq(sites.id, id), eq(sites.organisationId, organisationId))).limit(1);
+  return row ? toSite(row) : null;
+}
+
+/** The site's boards that are not deleted, most recently changed first. */
+export async function siteBoards(db: Db, organisationId: number, siteId: number): Promise<BoardListItem[]> {
+  const rows = await db.select({
+    id: boards.id, name: boards.name, location: boards.location, code: boards.code, siteId: boards.siteId, siteReference: sites.reference,
+    revision: boards.revision, updatedAt: boards.updatedAt, circuitCount: sql<number>`JSON_LENGTH(${boards.schedule}, '$.circuits')`,
+  }).from(boards).innerJoin(sites, eq(sites.id, boards.siteId))
+    .where(and(eq(boards.siteId, siteId), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
+    .orderBy(desc(boards.updatedAt), desc(boards.id));
+  return rows.map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString(), circuitCount: Number(r.circuitCount), deletedAt: null }));
+}
+
+export async function insertSite(db: Db, organisationId: number, input: SiteInput): Promise<number> {
+  const [res] = await db.insert(sites).values({ ...input, organisationId }).$returningId();
+  return res.id;
+}
+
+export async function updateSite(db: Db, organisationId: number, id: number, input: SiteInput): Promise<void> {
+  await db.update(sites).set(input).where(and(eq(sites.id, id), eq(sites.organisationId, organisationId)));
+}
+
+/** Deleted boards keep their schedule but let go of the site, so the site row can go. */
+export async function detachDeletedBoards(db: Db, organisationId: number, siteId: number): Promise<void> {
+  await db.update(boards).set({ siteId: null })
+    .where(and(eq(boards.siteId, siteId), eq(boards.organisationId, organisationId), isNotNull(boards.deletedAt)));
+}
+
+export async function deleteSiteRow(db: Db, organisationId: number, id: number): Promise<void> {
+  await db.delete(sites).where(and(eq(sites.id, id), eq(sites.organisationId, organisationId)));
+}

@@ -1,0 +1,43 @@
+/** Use-cases on sites: the organisation's private record of where its boards are and whose they are. */
+import type { Db } from '../db/client.js';
+import type { Site, SiteDetail, SiteInput } from '../../shared/schemas/site.js';
+import { conflict, notFound } from '../errors.js';
+import { inTransaction } from '../boards/writes.js';
+import { deleteSiteRow, detachDeletedBoards, findSite, insertSite, listSites, siteBoards, updateSite } from './repository.js';
+
+export async function listOrganisationSites(db: Db, organisationId: number, q?: string): Promise<{ items: Site[] }> {
+  return { items: await listSites(db, organisationId, q) };
+}
+
+export async function getSite(db: Db, organisationId: number, id: number): Promise<SiteDetail> {
+  const site = await findSite(db, organisationId, id);
+  if (!site) throw notFound('No such site');
+  return { ...site, boards: await siteBoards(db, organisationId, id) };
+}
+
+export function createSite(db: Db, organisationId: number, input: SiteInput): Promise<number> {
+  return insertSite(db, organisationId, input);
+}
+
+export async function replaceSite(db: Db, organisationId: number, id: number, input: SiteInput): Promise<Site> {
+  if (!(await findSite(db, organisationId, id))) throw notFound('No such site');
+  await updateSite(db, organisationId, id, input);
+  return (await findSite(db, organisationId, id))!;
+}
+
+/** A site with boards in use is kept (move or delete the boards first), so no board loses its site silently. */
+export async function deleteSite(db: Db, organisationId: number, id: number): Promise<void> {
+  const site = await findSite(db, organisationId, id);
+  if (!site) throw notFound('No such site');
+  if (site.boardCount > 0) throw conflict(`This site still has ${site.boardCount} board(s): move or delete them first`);
+  try {
+    await inTransaction(db, async (tx) => {
+      await detachDeletedBoards(tx, organisationId, id);
+      await deleteSiteRow(tx, organisationId, id);
+    });
+  } catch (err: any) {
+    // A board put on the site since the count above: the foreign key keeps the site, and so do we.
+    if (err?.cause?.code === 'ER_ROW_IS_REFERENCED_2' || err?.code === 'ER_ROW_IS_REFERENCED_2') throw conflict('This site has boards: move or delete them first');
+    throw err;
+  }
+}

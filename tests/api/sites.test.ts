@@ -1,0 +1,88 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { client, signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
+import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
+import { siteDetailSchema, siteListResponseSchema, siteSchema } from '../../shared/schemas/site.js';
+
+let t: TestApp;
+let owner: Client;
+let viewer: Client;
+let stranger: Client;
+beforeAll(async () => {
+  t = await startTestApp();
+  owner = await signupOwner(t.app, 'Sites Test Ltd');
+  viewer = await addMember(t, owner, 'viewer');
+  stranger = await signupOwner(t.app, 'Neighbouring Sparks');
+});
+afterAll(async () => { await t.close(); });
+
+const fullSite = {
+  reference: 'JOB-2291', clientName: 'Perpetua Oakhanger', address: '14 Larkspur Row\nWendlebury Parva',
+  clientEmail: 'Perpetua@Client.Example', clientPhone: '01632 960 771', notes: 'Key with the neighbour at number 12',
+};
+
+describe('sites', () => {
+  it('when a site is created, then it reads back with every field, its boards and a board count', async () => {
+    const created = await owner.post('/api/sites', fullSite).expect(201);
+    const { id: boardId } = await createBoardWith(owner, makeSchedule(2, 'Kitchen board'), created.body.id);
+    const site = siteDetailSchema.parse((await viewer.get(`/api/sites/${created.body.id}`).expect(200)).body);
+    expect(site).toMatchObject({ ...fullSite, clientEmail: 'perpetua@client.example', boardCount: 1 });
+    expect(site.boards.map((b) => [b.id, b.name, b.circuitCount])).toEqual([[boardId, 'Kitchen board', 2]]);
+    const list = siteListResponseSchema.parse((await viewer.get('/api/sites').expect(200)).body);
+    expect(list.items.find((s) => s.id === created.body.id)?.boardCount).toBe(1);
+  });
+
+  it('when only a reference is given, then the other fields are empty', async () => {
+    const created = await owner.post('/api/sites', { reference: 'MINIMAL-1' }).expect(201);
+    const site = siteSchema.parse((await owner.get(`/api/sites/${created.body.id}`).expect(200)).body);
+    expect(site).toMatchObject({ reference: 'MINIMAL-1', clientName: '', address: '', clientEmail: '', clientPhone: '', notes: '' });
+  });
+
+  it('when a site is replaced with PUT, then every field takes the new value', async () => {
+    const created = await owner.post('/api/sites', fullSite).expect(201);
+    const res = await owner.put(`/api/sites/${created.body.id}`, { reference: 'JOB-2291A', address: 'Unit 3, Teasel Yard' }).expect(200);
+    expect(res.body).toMatchObject({ reference: 'JOB-2291A', address: 'Unit 3, Teasel Yard', clientName: '', notes: '' });
+  });
+
+  it('when the list is searched, then the query matches reference, client or address', async () => {
+    const created = await owner.post('/api/sites', { reference: 'SRCH-77', clientName: 'Hepzibah Tallow', address: 'Quillet Lane' }).expect(201);
+    for (const q of ['srch-77', 'tallow', 'quillet']) {
+      expect((await owner.get(`/api/sites?q=${q}`).expect(200)).body.items.map((s: any) => s.id), q).toEqual([created.body.id]);
+    }
+    expect((await stranger.get('/api/sites?q=tallow').expect(200)).body.items).toEqual([]);
+  });
+
+  it('when the input is bad, then 400 names each field', async () => {
+    const res = await owner.post('/api/sites', { reference: '', clientEmail: 'not-an-email', clientPhone: 'x'.repeat(41), extra: 1 }).expect(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['(body)', 'clientEmail', 'clientPhone', 'reference']);
+    await owner.put('/api/sites/abc', fullSite).expect(400);
+  });
+
+  it('when another organisation uses a site id, then 404 on read, replace and delete', async () => {
+    const created = await owner.post('/api/sites', fullSite).expect(201);
+    await stranger.get(`/api/sites/${created.body.id}`).expect(404);
+    await stranger.put(`/api/sites/${created.body.id}`, fullSite).expect(404);
+    await stranger.delete(`/api/sites/${created.body.id}`).expect(404);
+    expect((await owner.get(`/api/sites/${created.body.id}`).expect(200)).body.reference).toBe('JOB-2291');
+  });
+
+  it('when a viewer writes or a visitor is signed out, then 403 and 401', async () => {
+    const created = await owner.post('/api/sites', fullSite).expect(201);
+    await viewer.post('/api/sites', fullSite).expect(403);
+    await viewer.put(`/api/sites/${created.body.id}`, fullSite).expect(403);
+    await viewer.delete(`/api/sites/${created.body.id}`).expect(403);
+    const anonymous = await client(t.app);
+    await anonymous.get('/api/sites').expect(401);
+    await anonymous.get(`/api/sites/${created.body.id}`).expect(401);
+  });
+
+  it('when a site still has boards, then it is kept (409); once they are deleted, it can go', async () => {
+    const created = await owner.post('/api/sites', { reference: 'DEL-1' }).expect(201);
+    const { id: boardId } = await createBoardWith(owner, makeSchedule(1), created.body.id);
+    await owner.delete(`/api/sites/${created.body.id}`).expect(409);
+    await owner.delete(`/api/boards/${boardId}`).expect(204);
+    await owner.delete(`/api/sites/${created.body.id}`).expect(204);
+    await owner.get(`/api/sites/${created.body.id}`).expect(404);
+    await owner.post(`/api/boards/${boardId}/restore`).expect(204);
+    expect((await owner.get(`/api/boards/${boardId}`).expect(200)).body.site).toBeNull();
+  });
+});
