@@ -8,6 +8,9 @@ import { devRoutes } from './dev/routes.js';
 import { sheetLayoutRoutes } from './sheet-layouts/routes.js';
 import { siteRoutes } from './sites/routes.js';
 import { boardRoutes } from './boards/routes.js';
+import { publicRoutes, sharingRoutes } from './public/routes.js';
+import { reportRoutes } from './reports/routes.js';
+import { logoRoutes, photoRoutes } from './uploads/routes.js';
 
 export function apiRoutes(ctx: AppContext): Router {
   const api = Router();
@@ -23,5 +26,10 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use('/sheet-layouts', sheetLayoutRoutes(ctx));
   api.use('/sites', siteRoutes(ctx));
   api.use('/boards', boardRoutes(ctx));
+  api.use('/public', publicRoutes(ctx));
+  api.use('/boards/:id/sharing', sharingRoutes(ctx));
+  api.use('/boards/:id/reports', reportRoutes(ctx));
+  api.use('/boards/:id/photos', photoRoutes(ctx));
+  api.use('/organisation/logo', logoRoutes(ctx));
   return api;
 }

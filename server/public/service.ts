@@ -1,0 +1,70 @@
+/**
+ * Use-cases of the board page: the public projection by token, the organisation's logo by
+ * token, and the sharing state members see. A token that is unknown, rotated away or whose
+ * page is switched off gives the same plain 404 as one that never existed.
+ */
+import type { Db } from '../db/client.js';
+import type { ServerConfig } from '../config.js';
+import { notFound } from '../errors.js';
+import { readStoredSchedule } from '../boards/stored.js';
+import { toPublicBoard } from '../../shared/public/board-page.js';
+import type { PublicBoard } from '../../shared/schemas/public-board.js';
+import type { Sharing } from '../../shared/schemas/reports.js';
+import { nextInspectionDate } from '../../shared/rules/index.js';
+import { findLogo, type StoredImage } from '../uploads/repository.js';
+import { countOpenReports } from '../reports/repository.js';
+import { findMemberBoard, findPublicBoard } from './repository.js';
+
+/** Tokens are base64url; anything else cannot be one, so it is not looked up. */
+const TOKEN_SHAPE = /^[A-Za-z0-9_-]{16,64}$/;
+
+/** The same answer for every token that does not open a page: it reveals nothing. */
+export const pageNotFound = () => notFound('Not found');
+
+/** The live board behind a token, or a plain 404. */
+export async function boardForToken(db: Db, token: string) {
+  const row = TOKEN_SHAPE.test(token) ? await findPublicBoard(db, token) : null;
+  if (!row) throw pageNotFound();
+  return row;
+}
+
+/** `GET /api/public/boards/:token`. */
+export async function publicBoardPage(db: Db, token: string): Promise<PublicBoard> {
+  const row = await boardForToken(db, token);
+  const schedule = readStoredSchedule(row.schedule);
+  return toPublicBoard(schedule, {
+    organisation: row.organisation,
+    hasLogo: row.hasLogo,
+    revision: row.revision,
+    revisionDate: (row.revisionDate ?? row.updatedAt).toISOString().slice(0, 10),
+    nextInspectionOn: nextInspectionDate(schedule.board),
+  });
+}
+
+/** `GET /api/public/boards/:token/logo`: the contractor's logo, only while the page is on. */
+export async function publicLogo(db: Db, token: string): Promise<StoredImage> {
+  const row = await boardForToken(db, token);
+  const logo = await findLogo(db, row.organisationId);
+  if (!logo) throw pageNotFound();
+  return logo;
+}
+
+/** The board page's link as printed in the QR code. */
+export function publicUrlFor(config: Pick<ServerConfig, 'publicBaseUrl'>, token: string): string {
+  return `${config.publicBaseUrl}/b/${token}`;
+}
+
+/** `GET /api/boards/:id/sharing`. */
+export async function sharingState(db: Db, config: ServerConfig, organisationId: number, boardId: number): Promise<Sharing> {
+  const board = await findMemberBoard(db, organisationId, boardId);
+  if (!board) throw notFound('No such board');
+  return {
+    boardId: board.id,
+    name: board.name,
+    code: board.code,
+    publicEnabled: board.publicEnabled,
+    publicUrl: publicUrlFor(config, board.publicToken),
+    revision: board.revision,
+    openReports: await countOpenReports(db, board.id),
+  };
+}

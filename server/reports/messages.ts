@@ -1,0 +1,36 @@
+/**
+ * The e-mail a contractor gets when a visitor reports a discrepancy. Plain text only: the
+ * visitor's words are untrusted and are quoted, never rendered as HTML.
+ */
+
+export interface ReportMailInput {
+  boardName: string;
+  boardCode: string;
+  way: number | null;
+  message: string;
+  reporterName: string;
+  reporterContact: string;
+  /** The board's sharing screen in the app, where the report is accepted or dismissed. */
+  reviewUrl: string;
+}
+
+const quote = (text: string) => text.split(/\r?\n/).map((line) => `> ${line}`).join('\n');
+
+export function reportMail(input: ReportMailInput): { subject: string; text: string } {
+  const who = [input.reporterName, input.reporterContact].filter(Boolean).join(', ');
+  const lines = [
+    `Someone using the board page of "${input.boardName}" (${input.boardCode}) says the schedule does not match the board.`,
+    '',
+    input.way != null ? `Way: ${input.way}` : 'Way: not given',
+    'Their words:',
+    quote(input.message),
+    '',
+    who ? `From: ${who}` : 'They left no name or contact details.',
+    '',
+    `Review it in Waymark: ${input.reviewUrl}`,
+    'Check the board, correct the schedule if needed, then mark the report accepted or dismissed.',
+    '',
+    'This report came from the public board page and has not been verified.',
+  ];
+  return { subject: `Board page report: ${input.boardName} (${input.boardCode})`.slice(0, 200), text: lines.join('\n') };
+}

@@ -1,0 +1,71 @@
+/**
+ * Use-cases for discrepancy reports: a visitor sends one from the board page (stored, then
+ * e-mailed to the organisation), members list them and accept or dismiss each.
+ */
+import type { AppContext } from '../context.js';
+import type { Db } from '../db/client.js';
+import { invalid, notFound } from '../errors.js';
+import { readStoredSchedule } from '../boards/stored.js';
+import type { Report, ReportResolve, ReportSubmit } from '../../shared/schemas/reports.js';
+import { findMemberBoard } from '../public/repository.js';
+import { boardForToken } from '../public/service.js';
+import { reportMail } from './messages.js';
+import * as repo from './repository.js';
+
+/** The report's text as stored: the way it names, if any, leads the message. */
+function storedMessage(input: ReportSubmit): string {
+  return input.way != null ? `Way ${input.way}: ${input.message}` : input.message;
+}
+
+async function notifyOrganisation(ctx: AppContext, to: string[], mail: { subject: string; text: string }): Promise<void> {
+  if (!to.length) return;
+  try {
+    await ctx.mailer.send({ to: to.join(', '), ...mail });
+  } catch (err) {
+    // The report is stored and listed in the app; a mail relay hiccup must not lose it or fail the visitor.
+    console.error('Report e-mail not sent:', err);
+  }
+}
+
+/**
+ * `POST /api/public/boards/:token/reports`. A filled honeypot is accepted silently and
+ * nothing is stored, so a bot learns nothing from the answer.
+ */
+export async function submitReport(ctx: AppContext, token: string, input: ReportSubmit): Promise<void> {
+  if (input.website) return;
+  const board = await boardForToken(ctx.db, token);
+  const schedule = readStoredSchedule(board.schedule);
+  if (input.way != null && !schedule.circuits.some((c) => c.way === input.way)) {
+    throw invalid('There is no such way on this board', { way: `No way ${input.way} on this board` });
+  }
+  await repo.insertReport(ctx.db, {
+    boardId: board.id, message: storedMessage(input), reporterName: input.name ?? '', reporterContact: input.contact ?? '',
+  });
+  const to = board.organisation.contactEmail ? [board.organisation.contactEmail] : await repo.ownerEmails(ctx.db, board.organisationId);
+  await notifyOrganisation(ctx, to, reportMail({
+    boardName: board.name, boardCode: board.code, way: input.way ?? null, message: input.message,
+    reporterName: input.name ?? '', reporterContact: input.contact ?? '',
+    reviewUrl: `${ctx.config.publicBaseUrl}/boards/${board.id}/page`,
+  }));
+}
+
+const toReport = (row: repo.ReportRow): Report => ({
+  ...row, resolvedAt: row.resolvedAt ? row.resolvedAt.toISOString() : null, createdAt: row.createdAt.toISOString(),
+});
+
+async function requireBoard(db: Db, organisationId: number, boardId: number): Promise<void> {
+  if (!(await findMemberBoard(db, organisationId, boardId))) throw notFound('No such board');
+}
+
+export async function boardReports(db: Db, organisationId: number, boardId: number): Promise<Report[]> {
+  await requireBoard(db, organisationId, boardId);
+  return (await repo.listReports(db, boardId)).map(toReport);
+}
+
+export async function resolveBoardReport(db: Db, user: { id: number; organisationId: number }, boardId: number, reportId: number, input: ReportResolve): Promise<Report> {
+  await requireBoard(db, user.organisationId, boardId);
+  if (!(await repo.resolveReport(db, boardId, reportId, input.status, user.id))) throw notFound('No such report');
+  const row = await repo.findReport(db, boardId, reportId);
+  if (!row) throw notFound('No such report');
+  return toReport(row);
+}

@@ -1,0 +1,65 @@
+/**
+ * Upload routes: the organisation logo (`/api/organisation/logo`) and board photos
+ * (`/api/boards/:id/photos`). Uploads are multipart with one file in the field `file`.
+ */
+import { Router, type Response } from 'express';
+import type { AppContext } from '../context.js';
+import { canEdit, ownerOnly, requireUser } from '../auth/guard.js';
+import { idParam, parse } from '../http/parse.js';
+import { photoCaptionSchema } from '../../shared/schemas/reports.js';
+import { LOGO_MAX_BYTES, PHOTO_MAX_BYTES, receiveOneFile, uploadedImage } from './receive.js';
+import type { StoredImage } from './repository.js';
+import * as uploads from './service.js';
+
+/** Sends stored image bytes with the sniffed type; `cache` says who may keep a copy. */
+export function sendImage(res: Response, image: StoredImage, cache: string): void {
+  res.set({ 'Content-Type': image.mime, 'Content-Length': String(image.data.length), 'Cache-Control': cache, 'Content-Disposition': 'inline' });
+  res.end(image.data);
+}
+
+/** Mounted at `/organisation/logo`. */
+export function logoRoutes(ctx: AppContext): Router {
+  const r = Router();
+  r.get('/', requireUser, async (req, res) => {
+    sendImage(res, await uploads.organisationLogo(ctx.db, req.user!.organisationId), 'private, no-cache');
+  });
+  r.put('/', ownerOnly, receiveOneFile(LOGO_MAX_BYTES, 'logo'), async (req, res) => {
+    const image = uploadedImage(req, 'logo');
+    await uploads.saveLogo(ctx.db, req.user!.organisationId, image);
+    res.status(201).json({ mime: image.mime, size: image.data.length });
+  });
+  r.delete('/', ownerOnly, async (req, res) => {
+    await uploads.removeLogo(ctx.db, req.user!.organisationId);
+    res.status(204).end();
+  });
+  return r;
+}
+
+/** Mounted at `/boards/:id/photos`: members only, never public. */
+export function photoRoutes(ctx: AppContext): Router {
+  const r = Router({ mergeParams: true });
+  r.use(requireUser);
+  r.get('/', async (req, res) => {
+    res.json({ items: await uploads.boardPhotos(ctx.db, req.user!.organisationId, idParam(req.params)) });
+  });
+  r.post('/', canEdit, receiveOneFile(PHOTO_MAX_BYTES, 'photo'), async (req, res) => {
+    const boardId = idParam(req.params);
+    const { caption } = parse(photoCaptionSchema, { ...req.body });
+    const image = uploadedImage(req, 'photo');
+    res.status(201).json(await uploads.addPhoto(ctx.db, req.user!.organisationId, boardId, { ...image, caption }));
+  });
+  r.get('/:photoId', async (req, res) => {
+    const photo = await uploads.boardPhoto(ctx.db, req.user!.organisationId, idParam(req.params), idParam(req.params, 'photoId'));
+    sendImage(res, photo, 'private, no-store');
+  });
+  r.patch('/:photoId', canEdit, async (req, res) => {
+    const { caption } = parse(photoCaptionSchema, req.body);
+    await uploads.captionPhoto(ctx.db, req.user!.organisationId, idParam(req.params), idParam(req.params, 'photoId'), caption);
+    res.status(204).end();
+  });
+  r.delete('/:photoId', canEdit, async (req, res) => {
+    await uploads.removePhoto(ctx.db, req.user!.organisationId, idParam(req.params), idParam(req.params, 'photoId'));
+    res.status(204).end();
+  });
+  return r;
+}

@@ -1,0 +1,94 @@
+/**
+ * Builds the public board page's data from a schedule. It copies named fields only, so the
+ * client's details, private notes, device ids and anything added to the schedule later stay
+ * out unless someone adds them here on purpose (and the privacy test sees them).
+ * Pure: the organisation's contact, the revision date and the next inspection come in as `meta`.
+ */
+import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
+import type { PublicBoard, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
+import { circuitsInWayOrder, deviceKindName, deviceShortText, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
+import { boardCautions } from './cautions.js';
+
+/** What the server adds around the schedule; all of it is public by the organisation's choice. */
+export interface PublicBoardMeta {
+  organisation: { name: string; contactPhone: string; contactEmail: string };
+  hasLogo: boolean;
+  revision: number;
+  /** YYYY-MM-DD the current revision was saved. */
+  revisionDate: string;
+  /** YYYY-MM-DD from the rule set (last inspection + interval), or null when unknown. */
+  nextInspectionOn: string | null;
+}
+
+/** Device text for a visitor: the kind spelled out ("MCB B32", "RCBO B16 30 mA"), as on the chart. */
+export function publicDeviceText(d: Device): string {
+  const short = deviceShortText(d);
+  const kind = deviceKindName(d);
+  if (d.kind === 'blank') return '';
+  return short.startsWith(kind) ? short : `${kind} ${short}`.trim();
+}
+
+function wayRcd(rcd: Device | null | undefined, names: Map<string, string>): PublicWayRcd | null {
+  if (!rcd) return null;
+  if (rcd.kind === 'rcbo') return { kind: 'rcbo', residualMa: rcd.residualMa };
+  return { kind: 'rcd', name: names.get(rcd.id) ?? 'RCD', residualMa: rcd.residualMa };
+}
+
+function publicWay(c: Circuit, devices: Map<string, Device>, rcds: Map<string, Device | null>, names: Map<string, string>): PublicWay {
+  const device = c.deviceId ? devices.get(c.deviceId) : undefined;
+  return {
+    way: c.way,
+    phase: c.phase,
+    wayText: wayText(c),
+    label: c.label,
+    description: c.description,
+    locations: [...c.locations],
+    device: device ? publicDeviceText(device) : '',
+    rcd: c.deviceId ? wayRcd(rcds.get(c.deviceId), names) : null,
+    notes: c.notesPublic ? c.notes : '',
+  };
+}
+
+function publicRcdGroups(schedule: Schedule): PublicRcdGroup[] {
+  return rcdGroups(schedule).map((g) => ({
+    name: g.name,
+    device: publicDeviceText(g.rcd),
+    rcdType: g.rcd.rcdType,
+    ways: g.circuits.map((c) => ({ wayText: wayText(c), label: c.label })),
+  }));
+}
+
+/** The public projection of one board: the only shape `GET /api/public/boards/:token` answers. */
+export function toPublicBoard(schedule: Schedule, meta: PublicBoardMeta): PublicBoard {
+  const { board } = schedule;
+  const devices = new Map(schedule.devices.map((d) => [d.id, d]));
+  const rcds = rcdFor(schedule);
+  const names = rcdNames(schedule);
+  return {
+    board: { name: board.name, location: board.location, phases: board.phases },
+    contractor: {
+      name: meta.organisation.name,
+      phone: meta.organisation.contactPhone,
+      email: meta.organisation.contactEmail,
+      hasLogo: meta.hasLogo,
+    },
+    supply: {
+      earthing: board.supply.earthing,
+      nominalVoltage: board.supply.nominalVoltage,
+      ze: board.supply.ze,
+      pfcKa: board.supply.pfcKa,
+      mainSwitchRating: board.supply.mainSwitchRating,
+      alternativeSupply: {
+        present: board.alternativeSupply.present,
+        kinds: [...board.alternativeSupply.kinds],
+        description: board.alternativeSupply.description,
+      },
+    },
+    ways: circuitsInWayOrder(schedule).map((c) => publicWay(c, devices, rcds, names)),
+    rcdGroups: publicRcdGroups(schedule),
+    inspection: { lastOn: board.lastInspectionOn, nextOn: meta.nextInspectionOn },
+    revision: { number: meta.revision, date: meta.revisionDate },
+    publicNotes: board.publicNotes,
+    cautions: boardCautions(board),
+  };
+}

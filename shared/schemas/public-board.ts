@@ -1,0 +1,63 @@
+/**
+ * The board page's data: what anyone holding the QR code may read. Built only by
+ * `toPublicBoard` (shared/public/board-page.ts), which copies named fields one by one,
+ * so a field added to the schedule never reaches the public by accident.
+ */
+import { z } from 'zod';
+import { alternativeSupplyKinds, earthingArrangements, phases, rcdTypes } from './schedule.js';
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
+
+/** Which residual-current device turns a way off: a shared RCD (by name) or the way's own RCBO. */
+export const publicWayRcdSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('rcd'), name: z.string(), residualMa: z.number().nullable() }),
+  z.object({ kind: z.literal('rcbo'), residualMa: z.number().nullable() }),
+]);
+
+export const publicWaySchema = z.object({
+  way: z.number().int(),
+  phase: z.enum(phases).nullable(),
+  /** As printed on the labels: "7", or "3 L2" on a three-phase board. */
+  wayText: z.string(),
+  label: z.string(),
+  description: z.string(),
+  locations: z.array(z.string()),
+  /** Device as the trade writes it, e.g. "MCB B32", "RCBO B16 30 mA"; empty when none is recorded. */
+  device: z.string(),
+  rcd: publicWayRcdSchema.nullable(),
+  /** The circuit's notes only when the organisation marked them public, else empty. */
+  notes: z.string(),
+});
+
+/** "If RCD 1 trips, these go off." */
+export const publicRcdGroupSchema = z.object({
+  name: z.string(),
+  device: z.string(),
+  rcdType: z.enum(rcdTypes).nullable(),
+  ways: z.array(z.object({ wayText: z.string(), label: z.string() })),
+});
+
+export const publicBoardSchema = z.object({
+  board: z.object({ name: z.string(), location: z.string(), phases: z.union([z.literal(1), z.literal(3)]) }),
+  contractor: z.object({ name: z.string(), phone: z.string(), email: z.string(), hasLogo: z.boolean() }),
+  supply: z.object({
+    earthing: z.enum(earthingArrangements),
+    nominalVoltage: z.number(),
+    ze: z.number().nullable(),
+    pfcKa: z.number().nullable(),
+    mainSwitchRating: z.number().nullable(),
+    alternativeSupply: z.object({ present: z.boolean(), kinds: z.array(z.enum(alternativeSupplyKinds)), description: z.string() }),
+  }),
+  ways: z.array(publicWaySchema),
+  rcdGroups: z.array(publicRcdGroupSchema),
+  inspection: z.object({ lastOn: isoDate.nullable(), nextOn: isoDate.nullable() }),
+  revision: z.object({ number: z.number().int(), date: isoDate }),
+  publicNotes: z.string(),
+  /** Safety cautions shown on the page, in the order they are shown. */
+  cautions: z.array(z.string()),
+});
+
+export type PublicWayRcd = z.infer<typeof publicWayRcdSchema>;
+export type PublicWay = z.infer<typeof publicWaySchema>;
+export type PublicRcdGroup = z.infer<typeof publicRcdGroupSchema>;
+export type PublicBoard = z.infer<typeof publicBoardSchema>;
