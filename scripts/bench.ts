@@ -1,0 +1,64 @@
+/**
+ * `npm run bench`: its own MariaDB and production build, then in one run:
+ * PDF timings against a bare pdf-lib baseline, the board page under load against a bare Express
+ * endpoint, SQL queries per board read at 10 and 1000 circuits, and server memory after the load.
+ * Prints a table and writes bench-results.json at the repository root.
+ */
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir, cpus, totalmem } from 'node:os';
+import { join } from 'node:path';
+import { startPrivateMariadb, removeDir, type PrivateMariadb } from './mariadb.js';
+import { openDatabase } from '../server/db/client.js';
+import { migrateDatabase } from '../server/db/migrate.js';
+import { seedDemo } from '../server/seed/index.js';
+import { seedDemoBoards } from '../server/seed/boards.js';
+import { benchPdf } from '../bench/pdf.js';
+import { benchQueries } from '../bench/queries.js';
+import { benchLoad } from '../bench/load-suite.js';
+
+const root = join(import.meta.dirname, '..');
+const quick = process.argv.includes('--quick');
+let mariadb: PrivateMariadb | null = null;
+const dataDir = mkdtempSync(join(tmpdir(), 'waymark-bench-db-'));
+
+try {
+  if (!existsSync(join(root, 'dist', 'index.html')) || !process.argv.includes('--no-build')) {
+    const r = spawnSync(join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { stdio: 'inherit', cwd: root });
+    if (r.status !== 0) throw new Error('client build failed');
+  }
+  mariadb = await startPrivateMariadb({ dataDir, dbName: 'waymark_bench' });
+  const database = openDatabase(mariadb.url);
+  await migrateDatabase(database);
+  await seedDemo(database.db, seedDemoBoards);
+
+  console.log('== PDF generation (median of repeated runs, baseline = bare pdf-lib with the same text runs and rectangles)');
+  const pdf = await benchPdf(database, { runs: quick ? 3 : 9 });
+  console.table(pdf);
+
+  console.log('== SQL queries per board read');
+  const queries = await benchQueries(database);
+  console.table([queries]);
+
+  console.log('== Board page under load (autocannon on loopback)');
+  const { load, rssMb } = await benchLoad(database, mariadb.url, { seconds: quick ? 3 : 10, connections: 50 });
+  console.table(load);
+  console.log(`Server RSS after the load: ${rssMb} MB`);
+  await database.close();
+
+  const machine = `${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${Math.round(totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
+  writeFileSync(join(root, 'bench-results.json'), JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb }, null, 2) + '\n');
+  console.log(`\nWrote bench-results.json (${machine})`);
+  const failures = [
+    ...pdf.filter((p) => p.ratio > 2).map((p) => `${p.name}: ${p.ratio}× its baseline (target ≤ 2×)`),
+    ...load.filter((l) => l.ratio < 0.4 || l.errors > 0).map((l) => `${l.route}: ${Math.round(l.ratio * 100)} % of bare, ${l.errors} errors (target ≥ 40 %, 0 errors)`),
+    ...(queries.at10 !== queries.at1000 ? [`queries differ: ${queries.at10} at 10 circuits, ${queries.at1000} at 1000`] : []),
+  ];
+  const chart100 = pdf.find((p) => p.name === 'chart-100')?.medianMs ?? 0;
+  const chart1000 = pdf.find((p) => p.name === 'chart-1000')?.medianMs ?? 0;
+  if (chart100 && chart1000 > 12 * chart100) failures.push(`chart-1000 is ${(chart1000 / chart100).toFixed(1)}× chart-100 (target ≤ 12×)`);
+  console.log(failures.length ? `\nTargets missed:\n  ${failures.join('\n  ')}` : '\nAll targets met.');
+} finally {
+  await mariadb?.stop();
+  removeDir(dataDir);
+}

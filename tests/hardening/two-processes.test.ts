@@ -1,0 +1,64 @@
+/**
+ * Two app processes on different ports sharing one database: a session made on one works on
+ * the other, a save on one is seen by the other, and a stale save is refused with 409.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { ChildProcess } from 'node:child_process';
+import { spawnServer } from '../../bench/load.js';
+import { TEST_PASSWORD, uniqueEmail } from '../helpers/app.js';
+
+let a: { child: ChildProcess; port: number };
+let b: { child: ChildProcess; port: number };
+
+beforeAll(async () => {
+  const env = { ...process.env, SESSION_SECRET: 'shared-secret-two-processes', PORT: '0', SMTP_PORT: '1' };
+  [a, b] = await Promise.all([spawnServer(['server/index.ts'], env), spawnServer(['server/index.ts'], env)]);
+});
+afterAll(() => { a?.child.kill('SIGTERM'); b?.child.kill('SIGTERM'); });
+
+/** A minimal cookie-keeping client over fetch, aimed at one process or the other. */
+function cookieJar() {
+  let cookie = '';
+  let csrf = '';
+  const call = async (port: number, method: string, path: string, body?: unknown) => {
+    const headers: Record<string, string> = { 'Content-Type': 'application/json' };
+    if (cookie) headers.Cookie = cookie;
+    if (csrf && method !== 'GET') headers['X-CSRF-Token'] = csrf;
+    const res = await fetch(`http://127.0.0.1:${port}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
+    const set = res.headers.get('set-cookie');
+    if (set) cookie = set.split(';')[0];
+    const text = await res.text();
+    return { status: res.status, body: text ? JSON.parse(text) : null };
+  };
+  return {
+    call,
+    async csrfFrom(port: number) { csrf = (await call(port, 'GET', '/api/auth/csrf')).body.token; },
+  };
+}
+
+describe('when two app processes share one database', () => {
+  it('then a session made on one works on the other, saves are seen by both, and a stale save is refused', async () => {
+    expect(a.port).not.toBe(b.port);
+    const jar = cookieJar();
+    await jar.csrfFrom(a.port);
+    const signup = await jar.call(a.port, 'POST', '/api/auth/signup', { organisation: 'Two Process Ltd', name: 'Tegwen', email: uniqueEmail('twoproc'), password: TEST_PASSWORD });
+    expect(signup.status).toBe(201);
+    expect((await jar.call(b.port, 'GET', '/api/auth/me')).status).toBe(200);
+
+    const created = await jar.call(a.port, 'POST', '/api/boards', { name: 'Shared board', location: 'Hall cupboard' });
+    expect(created.status).toBe(201);
+    const id = created.body.id as number;
+    const onA = await jar.call(a.port, 'GET', `/api/boards/${id}/schedule`);
+    const { id: _i, revision, updatedAt: _u, code: _c, siteId: _s, ...schedule } = onA.body;
+    const saved = await jar.call(a.port, 'PUT', `/api/boards/${id}/schedule`, { ...schedule, board: { ...schedule.board, location: 'Under the stairs' }, baseRevision: revision });
+    expect(saved.status).toBe(200);
+
+    const onB = await jar.call(b.port, 'GET', `/api/boards/${id}/schedule`);
+    expect(onB.body.board.location).toBe('Under the stairs');
+    expect(onB.body.revision).toBe(saved.body.revision);
+
+    const stale = await jar.call(b.port, 'PUT', `/api/boards/${id}/schedule`, { ...schedule, board: { ...schedule.board, location: 'Loft' }, baseRevision: revision });
+    expect(stale.status).toBe(409);
+    expect((await jar.call(a.port, 'GET', `/api/boards/${id}/schedule`)).body.board.location).toBe('Under the stairs');
+  });
+});
