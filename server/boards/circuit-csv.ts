@@ -88,11 +88,33 @@ function readHeader(header: string[]): { columns: Column[]; fields: Record<strin
 }
 
 /** An id for a new circuit: "w7", "w7-L2", with a suffix if that is taken. */
-function newCircuitId(way: unknown, phase: unknown, taken: Set<string>): string {
+function newCircuitId(way: unknown, phase: unknown, isTaken: (id: string) => boolean): string {
   const base = `w${typeof way === 'number' ? way : 'x'}${typeof phase === 'string' && phase ? `-${phase}` : ''}`;
   let id = base;
-  for (let n = 2; taken.has(id); n++) id = `${base}-${n}`;
+  for (let n = 2; isTaken(id); n++) id = `${base}-${n}`;
   return id;
+}
+
+/** The current circuits, looked up by id and by way and phase, and the ids already given out. */
+interface Matching { byId: Map<string, Circuit>; byWay: Map<string, Circuit>; taken: Set<string> }
+
+/** One data row as a checked circuit, or its faults keyed by column name. */
+function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Circuit } | { faults: Record<string, string> } {
+  const input: Record<string, any> = {};
+  columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
+  const match = (input.id ? m.byId.get(input.id) : undefined) ?? m.byWay.get(`${input.way}/${input.phase ?? ''}`);
+  const merged: Record<string, any> = match ? structuredClone(match) : {};
+  for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
+  // A second row on a matched way (without an id of its own) is a new circuit, not the same one twice.
+  if (merged.id === undefined || (!input.id && m.taken.has(merged.id))) merged.id = newCircuitId(merged.way, merged.phase, (id) => m.taken.has(id) || m.byId.has(id));
+  const parsed = circuitSchema.safeParse(merged);
+  if (parsed.success) return { circuit: parsed.data };
+  const faults: Record<string, string> = {};
+  for (const issue of parsed.error.issues) {
+    const column = CIRCUIT_CSV_COLUMNS.find((c) => c.path.every((k, i) => issue.path[i] === k))?.name ?? String(issue.path[0] ?? 'row');
+    faults[column] ??= issue.message;
+  }
+  return { faults };
 }
 
 /**
@@ -110,9 +132,7 @@ export function circuitsFromCsv(text: string, current: Circuit[]): CsvResult {
   if (!records.length) return { ok: false, fields: { header: 'The file is empty' } };
   const { columns, fields } = readHeader(records[0]);
   if (Object.keys(fields).length) return { ok: false, fields };
-  const byId = new Map(current.map((c) => [c.id, c]));
-  const byWay = new Map(current.map((c) => [`${c.way}/${c.phase ?? ''}`, c]));
-  const taken = new Set<string>();
+  const m: Matching = { byId: new Map(current.map((c) => [c.id, c])), byWay: new Map(current.map((c) => [`${c.way}/${c.phase ?? ''}`, c])), taken: new Set() };
   const firstRowOfId = new Map<string, number>();
   const circuits: Circuit[] = [];
   const rowOf: number[] = [];
@@ -120,27 +140,15 @@ export function circuitsFromCsv(text: string, current: Circuit[]): CsvResult {
     const row = index + 1;
     if (index === 0 || cells.every((c) => c.trim() === '')) return;
     if (cells.length !== columns.length) { fields[`rows.${row}`] = `Has ${cells.length} cells; the header has ${columns.length}`; return; }
-    const input: Record<string, any> = {};
-    columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
-    const match = (input.id ? byId.get(input.id) : undefined) ?? byWay.get(`${input.way}/${input.phase ?? ''}`);
-    const merged: Record<string, any> = match ? structuredClone(match) : {};
-    for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
-    if (merged.id === undefined || (!input.id && taken.has(merged.id))) merged.id = newCircuitId(merged.way, merged.phase, new Set([...taken, ...byId.keys()]));
-    const parsed = circuitSchema.safeParse(merged);
-    if (!parsed.success) {
-      for (const issue of parsed.error.issues) {
-        const column = CIRCUIT_CSV_COLUMNS.find((c) => c.path.every((k, i) => issue.path[i] === k))?.name ?? String(issue.path[0] ?? 'row');
-        fields[`rows.${row}.${column}`] ??= issue.message;
-      }
-      return;
-    }
-    const seenAt = firstRowOfId.get(parsed.data.id);
+    const result = readRow(columns, cells, m);
+    if ('faults' in result) { for (const [column, message] of Object.entries(result.faults)) fields[`rows.${row}.${column}`] = message; return; }
+    const seenAt = firstRowOfId.get(result.circuit.id);
     if (seenAt) { fields[`rows.${row}.id`] = `The same circuit as row ${seenAt}`; return; }
-    firstRowOfId.set(parsed.data.id, row);
-    taken.add(parsed.data.id);
-    circuits.push(parsed.data);
+    firstRowOfId.set(result.circuit.id, row);
+    m.taken.add(result.circuit.id);
+    circuits.push(result.circuit);
     rowOf.push(row);
   });
-  if (circuits.length + Object.keys(fields).length > 2000) fields.rows = 'At most 2000 circuits';
+  if (circuits.length > 2000) fields.rows = 'At most 2000 circuits';
   return Object.keys(fields).length ? { ok: false, fields } : { ok: true, circuits, rowOf };
 }

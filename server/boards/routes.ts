@@ -4,6 +4,7 @@
  */
 import express, { Router, type Request, type Response } from 'express';
 import type { AppContext } from '../context.js';
+import type { Db } from '../db/client.js';
 import { scheduleSaveSchema } from '../../shared/schemas/schedule.js';
 import {
   baseRevisionQuerySchema, boardCreateSchema, boardListQuerySchema, boardPatchSchema, boardPublicSchema, circuitCsvImportSchema, diffQuerySchema,
@@ -38,19 +39,13 @@ function sendSave(res: Response, outcome: SaveOutcome): void {
 const attachment = (res: Response, name: string) => res.set('Content-Disposition', `attachment; filename="${name}"`);
 const csvBody = express.text({ type: ['text/csv', 'application/csv'], limit: '5mb' });
 
-export function boardRoutes(ctx: AppContext): Router {
-  const r = Router();
-  const { db } = ctx;
-  r.use(requireUser);
-
+/** The board itself: list, create, read, move, delete and restore, duplicate, public page. */
+function mountBoards(r: Router, db: Db): void {
   r.get('/', async (req, res) => {
     res.json(await listOrganisationBoards(db, org(req), parse(boardListQuerySchema, req.query)));
   });
   r.post('/', canEdit, async (req, res) => {
     res.status(201).json({ id: await createBoard(db, actor(req), parse(boardCreateSchema, req.body)) });
-  });
-  r.post('/import', canEdit, async (req, res) => {
-    res.status(201).json({ id: await importBoardFile(db, actor(req), parseBoardImport(req.body)) });
   });
   r.get('/:id', async (req, res) => {
     res.json(await getBoardSummary(db, org(req), idParam(req.params)));
@@ -70,6 +65,16 @@ export function boardRoutes(ctx: AppContext): Router {
   r.post('/:id/duplicate', canEdit, async (req, res) => {
     res.status(201).json({ id: await duplicateBoard(db, actor(req), idParam(req.params)) });
   });
+  r.post('/:id/token/rotate', canEdit, async (req, res) => {
+    res.json(await rotatePublicToken(db, org(req), idParam(req.params)));
+  });
+  r.patch('/:id/public', canEdit, async (req, res) => {
+    res.json(await setPublicEnabled(db, org(req), idParam(req.params), parse(boardPublicSchema, req.body).enabled));
+  });
+}
+
+/** The schedule, its checks and its history. */
+function mountSchedule(r: Router, db: Db): void {
   r.get('/:id/schedule', async (req, res) => {
     res.json(await getSchedule(db, org(req), idParam(req.params)));
   });
@@ -91,6 +96,13 @@ export function boardRoutes(ctx: AppContext): Router {
     const { from, to } = parse(diffQuerySchema, req.query);
     res.json(await diffRevisions(db, org(req), id, from, to));
   });
+}
+
+/** Files in and out: the board file and the circuit CSV. */
+function mountFiles(r: Router, db: Db): void {
+  r.post('/import', canEdit, async (req, res) => {
+    res.status(201).json({ id: await importBoardFile(db, actor(req), parseBoardImport(req.body)) });
+  });
   r.get('/:id/export', async (req, res) => {
     const { file, baseName } = await exportBoardFile(db, org(req), idParam(req.params));
     attachment(res, `${baseName}.waymark.json`).json(file);
@@ -106,11 +118,13 @@ export function boardRoutes(ctx: AppContext): Router {
       : parse(circuitCsvImportSchema, req.body);
     sendSave(res, await importCircuitsCsv(db, actor(req), id, csv, baseRevision));
   });
-  r.post('/:id/token/rotate', canEdit, async (req, res) => {
-    res.json(await rotatePublicToken(db, org(req), idParam(req.params)));
-  });
-  r.patch('/:id/public', canEdit, async (req, res) => {
-    res.json(await setPublicEnabled(db, org(req), idParam(req.params), parse(boardPublicSchema, req.body).enabled));
-  });
+}
+
+export function boardRoutes(ctx: AppContext): Router {
+  const r = Router();
+  r.use(requireUser);
+  mountFiles(r, ctx.db);
+  mountBoards(r, ctx.db);
+  mountSchedule(r, ctx.db);
   return r;
 }
