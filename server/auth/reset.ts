@@ -6,7 +6,7 @@
 import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import type { ResetPasswordInput } from '../../shared/schemas/auth.js';
-import { invalid } from '../errors.js';
+import { AppError, invalid } from '../errors.js';
 import { deliver } from '../mail/mailer.js';
 import { passwordResetMessage } from '../mail/messages.js';
 import { hashPassword, hashToken, newLinkToken } from './passwords.js';
@@ -33,7 +33,10 @@ async function sendResetLink(ctx: AppContext, email: string, now: Date): Promise
  * response time says nothing about whether the account exists. Failures are logged.
  */
 export function requestPasswordReset(ctx: AppContext, email: string, now = new Date()): void {
-  sendResetLink(ctx, email, now).catch((err) => console.error('Password reset for a requested address failed:', err));
+  sendResetLink(ctx, email, now).catch((err) => {
+    // A mail failure is logged where it happens; log only what else went wrong.
+    if (!(err instanceof AppError)) console.error('Password reset for a requested address failed:', err);
+  });
 }
 
 const linkNotValid = () => invalid('This reset link is not valid any more: ask for a new one', {

@@ -32,6 +32,7 @@ describe('inviting a member', () => {
     const lifetime = row.expiresAt.getTime() - before;
     expect(lifetime).toBeGreaterThan(7 * DAY_MS - 60_000); // issue 2: link valid 7 days
     expect(lifetime).toBeLessThanOrEqual(7 * DAY_MS + 60_000);
+    expect(mail.text).toContain(row.expiresAt.toISOString().slice(0, 10)); // the mail says when the link lapses
   });
 
   it('when the invitee opens the link, then it shows the address, role and organisation and nothing more', async () => {
@@ -199,5 +200,24 @@ describe('who may manage invitations', () => {
     const token = await inviteAndReadToken(t, owner, uniqueEmail(), 'viewer');
     const c = await client(t.app);
     await c.agent.post('/api/invitations/accept').send({ token, name: 'X', password: TEST_PASSWORD }).expect(403);
+  });
+});
+
+describe('when the mail relay is down', () => {
+  let down: TestApp;
+  // Port 1 on loopback: nothing listens there, so every connection is refused.
+  beforeAll(async () => { down = await startTestApp({ smtp: { host: '127.0.0.1', port: 1, from: 'Waymark <no-reply@waymark.test>' } }); });
+  afterAll(async () => { await down.close(); });
+
+  it('when an invitation cannot be mailed, then 503 with a plain message and no invitation is left behind', async () => {
+    const owner = await signupOwner(down.app);
+    const res = await owner.post('/api/members/invitations', { email: uniqueEmail('unreachable'), role: 'viewer' }).expect(503);
+    expect(res.body.error.message).toMatch(/could not be sent/);
+    expect((await owner.get('/api/members/invitations').expect(200)).body.invitations).toEqual([]);
+  });
+
+  it('when a reset mail cannot be sent, then the answer is still 204', async () => {
+    const owner = await signupOwner(down.app);
+    await (await client(down.app)).post('/api/auth/forgot', { email: owner.email }).expect(204);
   });
 });
