@@ -1,0 +1,31 @@
+/**
+ * Moving files between the browser and the user's disk without a library: save text the
+ * server produced as a download, and read a chosen file as text for an import.
+ */
+
+/** Offers text as a file download under the given name. */
+export function downloadText(text: string, fileName: string, mime = 'application/json'): void {
+  const url = URL.createObjectURL(new Blob([text], { type: mime }));
+  const link = document.createElement('a');
+  link.href = url;
+  link.download = fileName;
+  document.body.appendChild(link);
+  link.click();
+  link.remove();
+  // Revoke after the click has been handled, or some browsers cancel the download.
+  setTimeout(() => URL.revokeObjectURL(url), 1000);
+}
+
+/** Reads a chosen file as UTF-8 text. */
+export function readFileText(file: File): Promise<string> {
+  return file.text();
+}
+
+/** A JSON file's content, or a plain message saying why it is not JSON (so nothing is sent). */
+export function parseJsonFile(text: string): { ok: true; value: unknown } | { ok: false; message: string } {
+  try {
+    return { ok: true, value: JSON.parse(text) };
+  } catch (err) {
+    return { ok: false, message: `This file is not valid JSON: ${(err as Error).message}` };
+  }
+}

@@ -1,0 +1,228 @@
+/**
+ * The board being edited: the copy as last loaded or saved (`loaded`), the electrician's
+ * working copy, the revision it was based on, and what the rules and the schema say about
+ * the working copy, recomputed on every edit so findings appear while typing.
+ */
+import { defineStore } from 'pinia';
+import { computed, ref } from 'vue';
+import { scheduleSchema, circuitSchema, deviceSchema, type Circuit, type Device, type DeviceKind, type Schedule } from '../../shared/schemas/schedule.js';
+import { fieldErrors } from '../../shared/schemas/errors.js';
+import { checkSchedule } from '../../shared/rules/index.js';
+import type { Finding } from '../../shared/rules/types.js';
+import { ApiError } from '../api/http.js';
+import { getSchedule, saveSchedule } from '../api/boards.js';
+import { rebaseSchedule, type RebaseResult } from './boardRebase.js';
+
+export type BoardStatus = 'idle' | 'loading' | 'ready' | 'saving' | 'error';
+export type SaveOutcome = 'saved' | 'unchanged' | 'invalid' | 'conflict' | 'failed';
+
+const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
+const isoToday = () => new Date().toISOString().slice(0, 10);
+/** Ids only need to be unique within one board; a short random tail keeps two editors' new items apart. */
+export const newItemId = (prefix: string) => `${prefix}-${Math.random().toString(36).slice(2, 10)}`;
+
+export const useBoardStore = defineStore('board', () => {
+  const boardId = ref<number | null>(null);
+  const status = ref<BoardStatus>('idle');
+  const error = ref<string | null>(null);
+  const code = ref('');
+  const siteId = ref<number | null>(null);
+  const updatedAt = ref('');
+  const loaded = ref<Schedule | null>(null);
+  const working = ref<Schedule | null>(null);
+  const baseRevision = ref(0);
+  /** Field messages from the server's last 400, by path ("circuits.3.label"). */
+  const serverFields = ref<Record<string, string>>({});
+  /** Set when a save was refused as stale: the revision someone else saved. */
+  const conflict = ref<{ message: string } | null>(null);
+  const lastSummary = ref('');
+  const today = ref(isoToday());
+
+  const dirty = computed(() => working.value !== null && JSON.stringify(working.value) !== JSON.stringify(loaded.value));
+
+  const findings = computed<Finding[]>(() => {
+    if (!working.value) return [];
+    try {
+      return checkSchedule(working.value, { today: today.value });
+    } catch {
+      // A half-typed copy (e.g. a cleared number) must never break the editor; the schema messages say what is wrong.
+      return [];
+    }
+  });
+
+  /** Findings by the schedule path they concern, to show each beside its field. */
+  const findingsByField = computed(() => {
+    const byField = new Map<string, Finding[]>();
+    for (const f of findings.value) if (f.field) byField.set(f.field, [...(byField.get(f.field) ?? []), f]);
+    return byField;
+  });
+
+  /** Schema messages for the working copy, merged with the server's: shown beside fields, and they block saving. */
+  const fieldMessages = computed<Record<string, string>>(() => {
+    if (!working.value) return {};
+    const parsed = scheduleSchema.safeParse(working.value);
+    return { ...serverFields.value, ...(parsed.success ? {} : fieldErrors(parsed.error)) };
+  });
+
+  function adopt(fresh: Awaited<ReturnType<typeof getSchedule>>): void {
+    const schedule: Schedule = { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits };
+    loaded.value = clone(schedule);
+    working.value = clone(schedule);
+    baseRevision.value = fresh.revision;
+    code.value = fresh.code;
+    siteId.value = fresh.siteId;
+    updatedAt.value = fresh.updatedAt;
+  }
+
+  async function load(id: number): Promise<void> {
+    boardId.value = id;
+    status.value = 'loading';
+    error.value = null;
+    conflict.value = null;
+    serverFields.value = {};
+    today.value = isoToday();
+    try {
+      adopt(await getSchedule(id));
+      status.value = 'ready';
+    } catch (err) {
+      status.value = 'error';
+      error.value = err instanceof ApiError && err.status === 404 ? 'This board does not exist or was deleted.' : (err as Error).message;
+    }
+  }
+
+  /** Saves the working copy against `baseRevision`; never throws, the outcome says what happened. */
+  async function save(): Promise<SaveOutcome> {
+    if (!working.value || boardId.value === null) return 'failed';
+    if (!dirty.value) return 'unchanged';
+    const parsed = scheduleSchema.safeParse(working.value);
+    if (!parsed.success) return 'invalid';
+    status.value = 'saving';
+    serverFields.value = {};
+    try {
+      const saved = await saveSchedule(boardId.value, parsed.data, baseRevision.value);
+      working.value = clone(parsed.data);
+      loaded.value = clone(parsed.data);
+      baseRevision.value = saved.revision;
+      lastSummary.value = saved.summary;
+      status.value = 'ready';
+      return 'saved';
+    } catch (err) {
+      status.value = 'ready';
+      if (err instanceof ApiError && err.status === 409) { conflict.value = { message: err.message }; return 'conflict'; }
+      if (err instanceof ApiError && err.status === 400) { serverFields.value = err.fields; error.value = err.message; return 'invalid'; }
+      error.value = (err as Error).message;
+      return 'failed';
+    }
+  }
+
+  /** After a 409: fetch the saved copy and lay my edits over it where they touch other items. */
+  async function reloadAndReapply(): Promise<RebaseResult | null> {
+    if (!working.value || !loaded.value || boardId.value === null) return null;
+    const fresh = await getSchedule(boardId.value);
+    const result = rebaseSchedule(loaded.value, working.value, { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits });
+    adopt(fresh);
+    working.value = result.schedule;
+    conflict.value = null;
+    return result;
+  }
+
+  /** Throws my edits away and shows the saved copy. */
+  async function discardAndReload(): Promise<void> {
+    if (boardId.value !== null) await load(boardId.value);
+  }
+
+  function reset(): void {
+    boardId.value = null;
+    status.value = 'idle';
+    loaded.value = null;
+    working.value = null;
+    conflict.value = null;
+    serverFields.value = {};
+    error.value = null;
+  }
+
+  return {
+    boardId, status, error, code, siteId, updatedAt, loaded, working, baseRevision, serverFields, conflict, lastSummary, today,
+    dirty, findings, findingsByField, fieldMessages, load, save, reloadAndReapply, discardAndReload, reset, ...editing(working),
+  };
+});
+
+/** Editing helpers on the working copy: one place that knows how to add and move items sensibly. */
+function editing(working: { value: Schedule | null }) {
+  const schedule = (): Schedule => {
+    if (!working.value) throw new Error('No board is loaded');
+    return working.value;
+  };
+
+  /** A new circuit on the next free way, on the first breaker that feeds nothing yet. */
+  function addCircuit(afterIndex?: number): Circuit {
+    const s = schedule();
+    const used = new Set(s.circuits.map((c) => c.deviceId));
+    const freeBreaker = s.devices.find((d) => (d.kind === 'mcb' || d.kind === 'rcbo') && !used.has(d.id));
+    const way = afterIndex !== undefined && s.circuits[afterIndex] ? nextFreeWay(s, s.circuits[afterIndex].way) : nextFreeWay(s, 0);
+    const circuit = circuitSchema.parse({ id: newItemId('c'), way, label: 'New circuit', deviceId: freeBreaker?.id ?? null });
+    const at = afterIndex === undefined ? s.circuits.length : afterIndex + 1;
+    s.circuits.splice(at, 0, circuit);
+    return s.circuits[at];
+  }
+
+  function removeCircuit(id: string): void {
+    const s = schedule();
+    s.circuits = s.circuits.filter((c) => c.id !== id);
+  }
+
+  /** Adds a device at the end of a row; breakers come as B-curve 6 kA, RCDs as 30 mA type A (common practice). */
+  function addDevice(row: number, kind: DeviceKind): Device {
+    const s = schedule();
+    const defaults: Partial<Record<DeviceKind, Partial<Device>>> = {
+      mcb: { rating: 16, curve: 'B', breakingCapacityKa: 6 },
+      rcbo: { rating: 16, curve: 'B', breakingCapacityKa: 6, residualMa: 30, rcdType: 'A' },
+      rcd: { modules: 2, poles: 2, rating: 63, residualMa: 30, rcdType: 'A' },
+      'main-switch': { modules: 2, poles: 2, rating: 100 },
+      isolator: { modules: 2, poles: 2, rating: 63 },
+      afdd: { rating: 16, curve: 'B' },
+      spd: { modules: 2 },
+    };
+    const device = deviceSchema.parse({ id: newItemId('d'), row, kind, ...defaults[kind] });
+    const lastOnRow = s.devices.map((d) => d.row).lastIndexOf(row);
+    const at = lastOnRow === -1 ? insertionForRow(s, row) : lastOnRow + 1;
+    s.devices.splice(at, 0, device);
+    return s.devices[at];
+  }
+
+  /** Removes a device; circuits it fed keep their way but lose the device (a finding says so). */
+  function removeDevice(id: string): void {
+    const s = schedule();
+    s.devices = s.devices.filter((d) => d.id !== id);
+    for (const c of s.circuits) if (c.deviceId === id) c.deviceId = null;
+    for (const d of s.devices) if (d.protectedBy === id) d.protectedBy = null;
+  }
+
+  /** Moves a device to a place on its row (`toPosition` counts devices on that row from 0). */
+  function moveDevice(id: string, toPosition: number, toRow?: number): void {
+    const s = schedule();
+    const from = s.devices.findIndex((d) => d.id === id);
+    if (from === -1) return;
+    const [device] = s.devices.splice(from, 1);
+    device.row = toRow ?? device.row;
+    const rowIndexes = s.devices.map((d, i) => (d.row === device.row ? i : -1)).filter((i) => i !== -1);
+    const clamped = Math.max(0, Math.min(toPosition, rowIndexes.length));
+    const at = clamped < rowIndexes.length ? rowIndexes[clamped] : rowIndexes.length ? rowIndexes[rowIndexes.length - 1] + 1 : insertionForRow(s, device.row);
+    s.devices.splice(at, 0, device);
+  }
+
+  return { addCircuit, removeCircuit, addDevice, removeDevice, moveDevice };
+}
+
+/** Where a row's first device goes so the list stays in row order. */
+function insertionForRow(s: Schedule, row: number): number {
+  const after = s.devices.findIndex((d) => d.row > row);
+  return after === -1 ? s.devices.length : after;
+}
+
+function nextFreeWay(s: Schedule, from: number): number {
+  const used = new Set(s.circuits.map((c) => c.way));
+  let way = from + 1;
+  while (used.has(way)) way++;
+  return Math.min(way, 999);
+}
