@@ -44,12 +44,17 @@ export function nextInspectionDate(board: BoardDetails, ruleSetId: string = DEFA
 
 /** Maximum Zs (Ω) for one circuit, shown on the chart even when nothing was measured; null when unknown. */
 export function maxZsFor(schedule: Schedule, circuit: Circuit, ruleSetId: string = DEFAULT_RULE_SET_ID): number | null {
-  return getRuleSet(ruleSetId).maxZs?.(schedule, circuit) ?? null;
+  const limits = getRuleSet(ruleSetId).maxZs?.(schedule);
+  if (!limits) return null;
+  // The circuit as found in the schedule; a copy (e.g. from a form) is matched by its id.
+  const own = limits.has(circuit) ? circuit : schedule.circuits.find((c) => c.id === circuit.id);
+  return own ? limits.get(own) ?? null : null;
 }
 
 /** Maximum Zs for every circuit by circuit id, the map the print engine's chart takes. */
 export function maxZsByCircuit(schedule: Schedule, ruleSetId: string = DEFAULT_RULE_SET_ID): Record<string, number | null> {
+  const limits = getRuleSet(ruleSetId).maxZs?.(schedule);
   const out: Record<string, number | null> = {};
-  for (const c of schedule.circuits) out[c.id] = maxZsFor(schedule, c, ruleSetId);
+  for (const c of schedule.circuits) if (!(c.id in out)) out[c.id] = limits?.get(c) ?? null;
   return out;
 }

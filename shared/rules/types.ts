@@ -32,6 +32,6 @@ export interface RuleSet {
   check(schedule: Schedule, context: CheckContext): Finding[];
   /** Next periodic inspection (YYYY-MM-DD) by this region's usual intervals; omitted where the region sets none. */
   nextInspectionDate?(board: BoardDetails): string | null;
-  /** Maximum earth fault loop impedance (Ω) for a circuit of the schedule; omitted where the region tabulates none. */
-  maxZs?(schedule: Schedule, circuit: Circuit): number | null;
+  /** Maximum earth fault loop impedance (Ω) of every circuit, keyed by the circuit object; omitted where the region tabulates none. */
+  maxZs?(schedule: Schedule): Map<Circuit, number | null>;
 }

@@ -61,6 +61,20 @@ const CABLE_FIELDS: Record<keyof Circuit['cable'], FieldText> = {
 
 const SUMMARY_MAX_PHRASES = 8;
 
+/**
+ * Pairs items of `b` with items of `a` by id. Ids should be unique, but a schedule the schema
+ * accepts may repeat one, so the n-th item with an id pairs with the n-th of the other side.
+ */
+function pairById<T extends { id: string }>(a: T[], b: T[]): { matched: Array<T | undefined>; removed: number[] } {
+  const queues = new Map<string, number[]>();
+  a.forEach((item, i) => queues.set(item.id, [...(queues.get(item.id) ?? []), i]));
+  const matched = b.map((item) => {
+    const i = queues.get(item.id)?.shift();
+    return i === undefined ? undefined : a[i];
+  });
+  return { matched, removed: [...queues.values()].flat().sort((x, y) => x - y) };
+}
+
 function same(a: unknown, b: unknown): boolean {
   return JSON.stringify(a) === JSON.stringify(b);
 }
@@ -107,19 +121,17 @@ function deviceTitle(d: Device, rcds: Map<string, string>): string {
 function deviceChanges(a: Schedule, b: Schedule): ScheduleChange[] {
   const namesA = rcdNames(a);
   const namesB = rcdNames(b);
-  const before = new Map(a.devices.map((d, i) => [d.id, { d, i }]));
-  const after = new Map(b.devices.map((d, i) => [d.id, { d, i }]));
+  const { matched, removed } = pairById(a.devices, b.devices);
   const out: ScheduleChange[] = [];
   b.devices.forEach((d, i) => {
-    const old = before.get(d.id);
+    const old = matched[i];
     const title = deviceTitle(d, namesB);
     if (!old) { out.push({ path: `devices.${i}`, kind: 'added', after: d, text: `${title} added` }); return; }
-    if (old.d.label !== d.label) out.push({ path: `devices.${i}.label`, kind: 'changed', before: old.d.label, after: d.label, text: d.label ? `${deviceTitle(old.d, namesA)} renamed ${d.label}` : `${deviceTitle(old.d, namesA)} label cleared` });
-    out.push(...compareFields(`devices.${i}`, title, DEVICE_FIELDS, old.d, d));
+    if (old.label !== d.label) out.push({ path: `devices.${i}.label`, kind: 'changed', before: old.label, after: d.label, text: d.label ? `${deviceTitle(old, namesA)} renamed ${d.label}` : `${deviceTitle(old, namesA)} label cleared` });
+    // Named as it was, so "MCB B40 rating 40 → 32 A" says which device changed.
+    out.push(...compareFields(`devices.${i}`, deviceTitle(old, namesA), DEVICE_FIELDS, old, d));
   });
-  a.devices.forEach((d, i) => {
-    if (!after.has(d.id)) out.push({ path: `devices.${i}`, kind: 'removed', before: d, text: `${deviceTitle(d, namesA)} removed` });
-  });
+  for (const i of removed) out.push({ path: `devices.${i}`, kind: 'removed', before: a.devices[i], text: `${deviceTitle(a.devices[i], namesA)} removed` });
   return [...out, ...reorderings(a, b)];
 }
 
@@ -142,11 +154,10 @@ function deviceTextOf(s: Schedule, id: string | null): string {
 }
 
 function circuitChanges(a: Schedule, b: Schedule): ScheduleChange[] {
-  const before = new Map(a.circuits.map((c, i) => [c.id, c]));
-  const afterIds = new Set(b.circuits.map((c) => c.id));
+  const { matched, removed } = pairById(a.circuits, b.circuits);
   const out: ScheduleChange[] = [];
   b.circuits.forEach((c, i) => {
-    const old = before.get(c.id);
+    const old = matched[i];
     const way = `way ${wayText(c)}`;
     if (!old) { out.push({ path: `circuits.${i}`, kind: 'added', after: c, text: `${way} added (${c.label})` }); return; }
     if (old.way !== c.way) out.push({ path: `circuits.${i}.way`, kind: 'changed', before: old.way, after: c.way, text: `way ${wayText(old)} moved to way ${c.way}` });
@@ -157,9 +168,7 @@ function circuitChanges(a: Schedule, b: Schedule): ScheduleChange[] {
     out.push(...compareFields(`circuits.${i}`, way, CIRCUIT_FIELDS, old, c));
     out.push(...compareFields(`circuits.${i}.cable`, way, CABLE_FIELDS, old.cable, c.cable));
   });
-  a.circuits.forEach((c, i) => {
-    if (!afterIds.has(c.id)) out.push({ path: `circuits.${i}`, kind: 'removed', before: c, text: `way ${wayText(c)} removed (${c.label})` });
-  });
+  for (const i of removed) out.push({ path: `circuits.${i}`, kind: 'removed', before: a.circuits[i], text: `way ${wayText(a.circuits[i])} removed (${a.circuits[i].label})` });
   return out;
 }
 
@@ -188,11 +197,11 @@ function labelContent(s: Schedule, c: Circuit): string {
  * so "changed since last print" reprints only those. Removed ways are not listed: nothing is left to print.
  */
 export function waysChangedBetween(a: Schedule, b: Schedule): number[] {
-  const before = new Map(a.circuits.map((c) => [c.id, c]));
+  const { matched } = pairById(a.circuits, b.circuits);
   const ways = new Set<number>();
-  for (const c of b.circuits) {
-    const old = before.get(c.id);
+  b.circuits.forEach((c, i) => {
+    const old = matched[i];
     if (!old || labelContent(a, old) !== labelContent(b, c)) ways.add(c.way);
-  }
+  });
   return [...ways].sort((x, y) => x - y);
 }

@@ -37,7 +37,8 @@ export function disconnectionSeconds(circuit: Circuit, device: Device): 0.4 | 5 
 export function maxZs(device: Device, circuit: Circuit): ZsLimit | null {
   if (!isOvercurrentDevice(device) || device.curve == null || device.rating == null) return null;
   const printed = TABLE_41_3[device.curve][device.rating];
-  const value = printed ?? Math.round((CMIN * 230 * 100) / (INSTANT_TRIP_MULTIPLE[device.curve] * device.rating)) / 100;
+  // Ratings the table does not print: its own formula, to three significant figures (the table's precision at common sizes).
+  const value = printed ?? Number(((CMIN * 230) / (INSTANT_TRIP_MULTIPLE[device.curve] * device.rating)).toPrecision(3));
   return { ohms: value, table: 'Table 41.3', seconds: disconnectionSeconds(circuit, device), basis: `${device.curve}${device.rating}`, derived: printed == null };
 }
 

@@ -35,9 +35,8 @@ export const bs7671: RuleSet = {
     ];
   },
   nextInspectionDate: nextInspectionOn,
-  maxZs(schedule, circuit) {
+  maxZs(schedule) {
     const view = viewOf(schedule);
-    const facts = view.circuits.find((f) => f.circuit === circuit) ?? view.circuits.find((f) => f.circuit.id === circuit.id);
-    return facts ? zsLimit(schedule, facts)?.ohms ?? null : null;
+    return new Map(view.circuits.map((f) => [f.circuit, zsLimit(schedule, f)?.ohms ?? null]));
   },
 };

@@ -33,7 +33,7 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   if (percent <= limitPercent) return [];
   const use = isLighting ? 'lighting' : 'this use';
   return [circuitFinding(f, 'warning', 'voltage-drop-over-limit', 'BS 7671 Appendix 4 Section 6', 'cable.lengthM',
-    `${circuitName(f.circuit)}: estimated voltage drop ${num(volts)} V (${percent.toFixed(1)} %) over ${num(f.circuit.cable.lengthM ?? 0)} m of ${num(f.circuit.cable.liveCsa ?? 0)} mm² at ${num(f.device?.rating ?? 0)} A exceeds the ${limitPercent} % limit for ${use} (${num((nominal * limitPercent) / 100)} V)`)];
+    `${circuitName(f.circuit)}: estimated voltage drop ${num(volts)} V (${num(percent)} %) over ${num(f.circuit.cable.lengthM ?? 0)} m of ${num(f.circuit.cable.liveCsa ?? 0)} mm² at ${num(f.device?.rating ?? 0)} A exceeds the ${limitPercent} % limit for ${use} (${num((nominal * limitPercent) / 100)} V)`)];
 }
 
 /** Voltage drop of every circuit with a tabulated cable and a route length. */

@@ -6,7 +6,8 @@ import { scheduleSchema, type Schedule } from '../../../shared/schemas/schedule.
 import type { z } from 'zod';
 import { checkSchedule, type Finding } from '../../../shared/rules/index.js';
 
-type BoardInput = Partial<z.input<typeof scheduleSchema>['board']>;
+type BoardSchemaInput = z.input<typeof scheduleSchema>['board'];
+type BoardInput = Partial<Omit<BoardSchemaInput, 'supply'>> & { supply?: Partial<BoardSchemaInput['supply']> };
 type DeviceInput = z.input<typeof scheduleSchema>['devices'][number];
 type CircuitInput = Partial<z.input<typeof scheduleSchema>['circuits'][number]>;
 

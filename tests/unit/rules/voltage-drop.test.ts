@@ -1,0 +1,44 @@
+import { describe, expect, it } from 'vitest';
+import { estimatedVoltageDrop } from '../../../shared/rules/bs7671/index.js';
+import { oneCircuit, withCode } from './fixtures.js';
+
+const te = (liveCsa: number, lengthM: number) => ({ type: 'twin-earth' as const, liveCsa, cpcCsa: 1, referenceMethod: 'C' as const, lengthM });
+const mcb = (rating: number) => ({ kind: 'mcb' as const, rating, curve: 'B' as const, residualMa: null });
+
+describe('voltage drop estimate (Appendix 4 Section 6)', () => {
+  it('when 1.5 mm² carries 6 A over 20 m, then the drop is 29 mV/A/m × 6 A × 20 m = 3.48 V', () => {
+    const s = oneCircuit(mcb(6), { kind: 'lighting', cable: te(1.5, 20) });
+    expect(estimatedVoltageDrop({ circuit: s.circuits[0], device: s.devices[0] })).toBeCloseTo(3.48, 6); // Table 4D5 1.5 mm²: 29 mV/A/m (found)
+  });
+
+  it('when a B6 lighting circuit in 1.5 mm² is 39 m, then it is within 3 % of 230 V (6.9 V); at 40 m it is over', () => {
+    // 29 mV/A/m (Table 4D5, found) × 6 A: 39 m → 6.79 V, 40 m → 6.96 V; limit 3 % lighting (Appendix 4 6.4, found)
+    expect(withCode(oneCircuit(mcb(6), { kind: 'lighting', cable: te(1.5, 39) }), 'voltage-drop-over-limit')).toEqual([]);
+    const [f] = withCode(oneCircuit(mcb(6), { way: 5, label: 'Loft lights', kind: 'lighting', cable: te(1.5, 40) }), 'voltage-drop-over-limit');
+    expect(f).toMatchObject({ severity: 'warning', rule: 'BS 7671 Appendix 4 Section 6', field: 'circuits.0.cable.lengthM' });
+    expect(f.message).toBe('Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) over 40 m of 1.5 mm² at 6 A exceeds the 3 % limit for lighting (6.9 V)');
+  });
+
+  it('when a B20 radial in 2.5 mm² is 31 m, then within 5 % (11.5 V); at 32 m it is over', () => {
+    // 18 mV/A/m (Table 4D5, from memory) × 20 A: 31 m → 11.16 V, 32 m → 11.52 V; limit 5 % other uses (found)
+    expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: te(2.5, 31) }), 'voltage-drop-over-limit')).toEqual([]);
+    expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: te(2.5, 32) }), 'voltage-drop-over-limit')).toHaveLength(1);
+  });
+
+  it('when a 2.5 mm² ring on 32 A is 79 m round, then its load at the midpoint keeps it within 5 %; at 80 m it is over', () => {
+    // ring: a quarter of a radial's drop (common practice): 18 × 32 × 79 / 4000 = 11.38 V, × 80 m = 11.52 V
+    expect(withCode(oneCircuit(mcb(32), { kind: 'ring', cable: te(2.5, 79) }), 'voltage-drop-over-limit')).toEqual([]);
+    expect(withCode(oneCircuit(mcb(32), { kind: 'ring', cable: te(2.5, 80) }), 'voltage-drop-over-limit')).toHaveLength(1);
+  });
+
+  it('when the nominal voltage is 240 V, then the limit follows it (5 % = 12 V)', () => {
+    expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: te(2.5, 32) }, { supply: { nominalVoltage: 240 } }), 'voltage-drop-over-limit')).toEqual([]); // 11.52 V < 12 V
+  });
+
+  it('when the length or a tabulated cable is missing, then no estimate is made', () => {
+    const noLength = oneCircuit(mcb(20), { kind: 'radial', cable: { type: 'twin-earth', liveCsa: 2.5 } });
+    expect(estimatedVoltageDrop({ circuit: noLength.circuits[0], device: noLength.devices[0] })).toBeNull();
+    const swa = oneCircuit(mcb(32), { kind: 'sub-main', cable: { type: 'swa', liveCsa: 6, lengthM: 300 } });
+    expect(withCode(swa, 'voltage-drop-over-limit')).toEqual([]);
+  });
+});

@@ -1,0 +1,53 @@
+import { describe, expect, it } from 'vitest';
+import { scheduleSchema } from '../../../shared/schemas/schedule.js';
+import { siteInputSchema } from '../../../shared/schemas/site.js';
+import { demoSites } from '../../../server/seed/demo-data.js';
+import { checkSchedule } from '../../../shared/rules/index.js';
+
+const TODAY = '2026-06-15';
+const boards = demoSites.flatMap((s) => s.boards);
+const byKey = new Map(boards.map((b) => [b.key, b]));
+
+describe('demo data', () => {
+  it('when every demo board is parsed, then the schema accepts it unchanged; every site passes the site schema', () => {
+    for (const b of boards) expect(scheduleSchema.parse(JSON.parse(JSON.stringify(b.schedule)))).toEqual(b.schedule);
+    for (const s of demoSites) expect(siteInputSchema.parse(s.site)).toEqual(s.site);
+  });
+
+  it('when the boards are checked, then the only error is the deliberate old radial on flat way 5', () => {
+    const errors = boards.flatMap((b) => checkSchedule(b.schedule, { today: TODAY }).filter((f) => f.severity === 'error').map((f) => `${b.key} ${f.code} ${f.ways}`));
+    expect(errors).toEqual(['flat-main rating-over-iz 5']); // 32 A on 2.5 mm² at method 103, Iz 13.5 A (BS 7671 Table 4D5, from memory)
+    const warnings = checkSchedule(byKey.get('flat-main')!.schedule, { today: TODAY }).filter((f) => f.severity === 'warning');
+    expect(warnings.map((f) => f.code)).toEqual(['zs-over-rule-of-thumb']); // 1.21 Ω > 0.8 × 1.37 Ω (Table 41.3, IET rule of thumb)
+  });
+
+  it('when the studio board names its feed, then it points at a sub-main circuit on the flat board', () => {
+    const studio = byKey.get('flat-studio')!;
+    const feeder = byKey.get(studio.feedsFromKey!)!.schedule.circuits.find((c) => c.id === studio.feedsFromCircuitId);
+    expect(feeder?.kind).toBe('sub-main');
+    for (const c of studio.schedule.circuits) expect(c.locations).toEqual(['Studio']);
+  });
+
+  it('when the scenario is read, then the flat has the EV point on 6 mm² SWA and the workshop is three-phase with its machines', () => {
+    const ev = byKey.get('flat-main')!.schedule.circuits.find((c) => c.label === 'EV charge point');
+    expect(ev?.cable).toMatchObject({ type: 'swa', liveCsa: 6 });
+    const workshop = byKey.get('workshop')!.schedule;
+    expect(workshop.board.phases).toBe(3);
+    for (const label of ['Dust extractor', 'Table saw', 'Compressor', 'Office sockets', 'Workshop lights']) expect(workshop.circuits.some((c) => c.label === label)).toBe(true);
+  });
+
+  it('when privacy tests need private data, then every private field is filled on every site and board', () => {
+    for (const { site, boards: siteBoards } of demoSites) {
+      for (const field of ['clientName', 'address', 'clientEmail', 'clientPhone', 'notes'] as const) expect(site[field]).not.toBe('');
+      expect(siteBoards.some((b) => b.schedule.circuits.some((c) => c.notes && !c.notesPublic))).toBe(true);
+      for (const b of siteBoards) expect(b.schedule.board.privateNotes).not.toBe('');
+    }
+  });
+
+  it('when contact details are read, then they use reserved example domains and drama-range numbers only', () => {
+    for (const { site } of demoSites) {
+      expect(site.clientEmail).toMatch(/\.example$/); // RFC 2606 reserved domain
+      expect(site.clientPhone.replace(/\s/g, '')).toMatch(/^01632960\d{3}$/); // Ofcom drama range 01632 960000–960999
+    }
+  });
+});
