@@ -4,7 +4,21 @@
  * with these, so a drift between server and client fails loudly.
  */
 import { z } from 'zod';
-import { printOutputs } from './print.js';
+import { printOutputs, type MediaId, type PrintOutput } from './print.js';
+
+/**
+ * The medium each output goes on when a request names none, and in the print pack: the sizes
+ * a contractor most often has to hand (common practice). The tag's QR needs the wider tape;
+ * a chart and notices go on A4.
+ */
+export const defaultMedia: Record<PrintOutput, MediaId> = {
+  flags: 'tape-12',
+  'way-labels': 'tape-12',
+  chart: 'a4',
+  notices: 'a4',
+  tag: 'tape-24',
+  calibration: 'a4',
+};
 
 /** One recorded print: who printed which output on which medium, from which revision. */
 export const printRecordSchema = z.object({

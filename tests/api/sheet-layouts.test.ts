@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.js';
-import { addMember } from './print-fixture.js';
+import { addMember } from '../helpers/boards.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });

@@ -1,0 +1,90 @@
+/**
+ * The print API, under `/api/boards/:id/…` and `/api/print-settings`. Every signed-in member
+ * may print (viewers read and print); the printer offset is set by owners and electricians.
+ *
+ * Recording: a PDF is recorded in the print history only when asked with `record=1` (the print
+ * page's download and print buttons), so the live preview, which renders on every change, does
+ * not flood the history. A pack is always recorded, one row per file in it.
+ */
+import { Router, type Response } from 'express';
+import type { AppContext } from '../context.js';
+import { canEdit, requireUser } from '../auth/guard.js';
+import { idParam, parse } from '../http/parse.js';
+import { z } from 'zod';
+import { printOffsetSchema } from '../../shared/schemas/print-records.js';
+import { mediaIdSchema, type PrintWarning } from '../../shared/schemas/print.js';
+import { parsePrintQuery } from './query.js';
+import { checkPrint, printCalibration, printHistory, printOffset, printPdf, setPrintOffset } from './service.js';
+import { printPack } from './pack.js';
+
+/** Browsers and proxies refuse very long headers; past this the header says how many more the JSON call lists. */
+const WARNINGS_HEADER_MAX = 6000;
+
+/** Warnings as URI-encoded JSON, cut to a safe length with a last entry saying how many were left out. */
+export function warningsHeader(warnings: PrintWarning[]): string {
+  let kept = warnings;
+  let encoded = encodeURIComponent(JSON.stringify(kept));
+  while (encoded.length > WARNINGS_HEADER_MAX && kept.length > 1) {
+    kept = kept.slice(0, Math.floor(kept.length / 2));
+    const more: PrintWarning = { code: 'more-warnings', message: `${warnings.length - kept.length} more warnings: see the warnings list` };
+    encoded = encodeURIComponent(JSON.stringify([...kept, more]));
+  }
+  return encoded;
+}
+
+function sendPdf(res: Response, pdf: Uint8Array, filename: string) {
+  res.set({
+    'Content-Type': 'application/pdf',
+    'Content-Disposition': `inline; filename="${filename}"`,
+    'Cache-Control': 'private, no-store',
+  });
+  res.send(Buffer.from(pdf.buffer, pdf.byteOffset, pdf.byteLength));
+}
+
+/** Mounted at `/api/boards`, beside the boards router. */
+export function boardPrintRoutes(ctx: AppContext): Router {
+  const r = Router();
+
+  r.get('/:id/pdf/:output', requireUser, async (req, res) => {
+    const boardId = idParam(req.params);
+    const printed = await printPdf(ctx, req.user!, boardId, parsePrintQuery(req.params, req.query));
+    res.set({ 'X-Waymark-Warnings': warningsHeader(printed.warnings), 'X-Waymark-Page-Count': String(printed.pageCount) });
+    sendPdf(res, printed.pdf, printed.filename);
+  });
+
+  r.get('/:id/pdf/:output/warnings', requireUser, async (req, res) => {
+    const boardId = idParam(req.params);
+    res.json(await checkPrint(ctx, req.user!, boardId, parsePrintQuery(req.params, req.query)));
+  });
+
+  r.get('/:id/pack', requireUser, async (req, res) => {
+    const { zip, filename } = await printPack(ctx, req.user!, idParam(req.params));
+    res.set({ 'Content-Type': 'application/zip', 'Content-Disposition': `attachment; filename="${filename}"`, 'Cache-Control': 'private, no-store' });
+    res.send(zip);
+  });
+
+  r.get('/:id/prints', requireUser, async (req, res) => {
+    res.json({ items: await printHistory(ctx, req.user!, idParam(req.params)) });
+  });
+  return r;
+}
+
+const calibrationQuerySchema = z.strictObject({ media: mediaIdSchema.default('a4') });
+
+/** Mounted at `/api/print-settings`: the offset and the calibration page that checks it. */
+export function printSettingsRoutes(ctx: AppContext): Router {
+  const r = Router();
+  r.use(requireUser);
+  r.get('/offset', async (req, res) => {
+    res.json(await printOffset(ctx, req.user!));
+  });
+  r.get('/calibration', async (req, res) => {
+    const { media } = parse(calibrationQuerySchema, req.query);
+    const printed = await printCalibration(ctx, req.user!, media);
+    sendPdf(res, printed.pdf, printed.filename);
+  });
+  r.put('/offset', canEdit, async (req, res) => {
+    res.json(await setPrintOffset(ctx, req.user!, parse(printOffsetSchema, req.body)));
+  });
+  return r;
+}

@@ -1,0 +1,119 @@
+/**
+ * Print use-cases: one output as a PDF, its warnings alone, the whole pack as a ZIP, the print
+ * history and the printer offset. The engine (`server/pdf`) lays out and draws; this layer
+ * finds the board, resolves the medium, works out "changed since" and records prints.
+ */
+import type { AppContext } from '../context.js';
+import type { CurrentUser } from '../http/context.js';
+import type { Medium, RenderResult } from '../pdf/types.js';
+import { LayoutError } from '../pdf/types.js';
+import { renderOutput, resolveMedium } from '../pdf/index.js';
+import { printOptionSchemas, type MediaId, type PrintWarning } from '../../shared/schemas/print.js';
+import type { PrintOffset, PrintRecord } from '../../shared/schemas/print-records.js';
+import { waysChangedBetween } from '../../shared/schedule/diff.js';
+import { AppError, notFound } from '../errors.js';
+import { getLayout } from '../sheet-layouts/service.js';
+import { loadCalibrationSource, loadPrintSource, scheduleAtRevision, type PrintSource } from './source.js';
+import { sheetLayoutId, type PrintQuery } from './query.js';
+import * as repo from './repository.js';
+
+export interface PrintedPdf extends RenderResult { filename: string }
+
+export const today = () => new Date().toISOString().slice(0, 10);
+
+/** A layout the engine cannot make (e.g. a QR too small on this tape): the message says what would work. */
+function cannotLayOut(err: LayoutError): AppError {
+  return new AppError(422, 'cannot_lay_out', err.message, { [err.field ?? 'media']: err.message });
+}
+
+async function engine<T>(work: () => Promise<T> | T): Promise<T> {
+  try {
+    return await work();
+  } catch (err) {
+    if (err instanceof LayoutError) throw cannotLayOut(err);
+    throw err;
+  }
+}
+
+/** `sheet-<id>` must be one of the caller's organisation's layouts (another's id is a 404). */
+async function mediumFor(ctx: AppContext, organisationId: number, media: MediaId): Promise<Medium> {
+  const layoutId = sheetLayoutId(media);
+  if (layoutId === null) return engine(() => resolveMedium(media));
+  const layout = await getLayout(ctx.db, organisationId, layoutId);
+  const { id: _id, ...sheet } = layout;
+  return engine(() => resolveMedium(media, { [String(layoutId)]: sheet }));
+}
+
+/** Way numbers to print for "changed since", or undefined for all of them. */
+async function onlyWaysFor(ctx: AppContext, source: PrintSource, query: PrintQuery): Promise<number[] | undefined> {
+  const since = (query.options as { changedSince?: number }).changedSince;
+  if (since === undefined || (query.output !== 'flags' && query.output !== 'way-labels')) return undefined;
+  const before = await scheduleAtRevision(ctx.db, source, since);
+  const ways = waysChangedBetween(before, source.schedule);
+  if (!ways.length) {
+    throw new AppError(422, 'nothing_changed', `No way's label changed since revision ${since}: nothing to print`, { changedSince: `Nothing changed since revision ${since}` });
+  }
+  return ways;
+}
+
+/** Renders one output of a loaded board (the pack renders several from one source). */
+export async function renderWith(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderResult> {
+  const medium = await mediumFor(ctx, user.organisationId, query.media);
+  const onlyWays = await onlyWaysFor(ctx, source, query);
+  return engine(() => renderOutput({
+    output: query.output,
+    medium,
+    options: query.options,
+    schedule: source.schedule,
+    board: source.board,
+    contractor: source.contractor,
+    findings: source.findings,
+    offset: source.offset,
+    maxZsByCircuit: source.maxZsByCircuit,
+    onlyWays,
+  }));
+}
+
+/** The history row for one printed file. */
+export const printRecordFor = (user: CurrentUser, source: PrintSource, output: string, media: string): repo.NewPrintRecord =>
+  ({ boardId: source.board.id, userId: user.id, userName: user.name, output, media, revision: source.board.revision });
+
+/** One output as a PDF; recorded in the history when the query asks (`record=1`). */
+export async function printPdf(ctx: AppContext, user: CurrentUser, boardId: number, query: PrintQuery): Promise<PrintedPdf> {
+  const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
+  const result = await renderWith(ctx, user, source, query);
+  if (query.record) await repo.insertPrints(ctx.db, [printRecordFor(user, source, query.output, query.media)]);
+  return { ...result, filename: `${source.board.code}-${query.output}-${query.media}.pdf` };
+}
+
+/** The calibration page with the organisation's offset, from the print settings (no board, so not recorded). */
+export async function printCalibration(ctx: AppContext, user: CurrentUser, media: MediaId): Promise<PrintedPdf> {
+  const source = await loadCalibrationSource(ctx.db, ctx.config, user.organisationId, today());
+  const options = printOptionSchemas.calibration.parse({});
+  const result = await renderWith(ctx, user, source, { output: 'calibration', media, options, record: false });
+  return { ...result, filename: `calibration-${media}.pdf` };
+}
+
+/** What a print would warn about, for the print page's list (never recorded). */
+export async function checkPrint(ctx: AppContext, user: CurrentUser, boardId: number, query: PrintQuery): Promise<{ warnings: PrintWarning[]; pageCount: number }> {
+  const { warnings, pageCount } = await printPdf(ctx, user, boardId, { ...query, record: false });
+  return { warnings, pageCount };
+}
+
+export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: number): Promise<PrintRecord[]> {
+  if (!(await repo.boardBelongsTo(ctx.db, user.organisationId, boardId))) throw notFound('No such board');
+  const rows = await repo.listPrints(ctx.db, boardId);
+  return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
+}
+
+export async function printOffset(ctx: AppContext, user: CurrentUser): Promise<PrintOffset> {
+  const org = await repo.findOrganisation(ctx.db, user.organisationId);
+  if (!org) throw notFound('No such organisation');
+  return { xMm: org.printOffsetXMm, yMm: org.printOffsetYMm };
+}
+
+export async function setPrintOffset(ctx: AppContext, user: CurrentUser, offset: PrintOffset): Promise<PrintOffset> {
+  await repo.updateOffset(ctx.db, user.organisationId, offset.xMm, offset.yMm);
+  return printOffset(ctx, user);
+}
+

@@ -1,0 +1,87 @@
+/**
+ * Gathers what every print of a board needs, once per request: the stored schedule, the board
+ * facts the QR and footer show, the contractor, the rule findings and the printer offset.
+ * Renders of several outputs (the pack) share one source.
+ */
+import type { Db } from '../db/client.js';
+import type { ServerConfig } from '../config.js';
+import type { BoardMeta, Contractor } from '../pdf/types.js';
+import type { Finding } from '../../shared/rules/types.js';
+import { scheduleSchema, type Schedule } from '../../shared/schemas/schedule.js';
+import { checkSchedule, maxZsByCircuit, nextInspectionDate } from '../../shared/rules/index.js';
+import { invalid, notFound } from '../errors.js';
+import * as repo from './repository.js';
+
+export interface PrintSource {
+  schedule: Schedule;
+  board: BoardMeta;
+  contractor: Contractor;
+  findings: Finding[];
+  offset: { xMm: number; yMm: number };
+  maxZsByCircuit: Record<string, number | null>;
+}
+
+/** MariaDB keeps JSON as text, so the driver may hand back a string. */
+export function jsonValue(value: unknown): unknown {
+  return typeof value === 'string' ? JSON.parse(value) : value;
+}
+
+const isoDay = (d: Date) => d.toISOString().slice(0, 10);
+
+async function contractorOf(db: Db, organisationId: number): Promise<{ contractor: Contractor; offset: PrintSource['offset'] }> {
+  const [org, logo] = await Promise.all([repo.findOrganisation(db, organisationId), repo.findLogo(db, organisationId)]);
+  if (!org) throw notFound('No such organisation');
+  const contractor: Contractor = { name: org.name, phone: org.contactPhone, email: org.contactEmail };
+  if (logo && (logo.mime === 'image/png' || logo.mime === 'image/jpeg')) contractor.logo = { bytes: new Uint8Array(logo.data), mime: logo.mime };
+  return { contractor, offset: { xMm: org.printOffsetXMm, yMm: org.printOffsetYMm } };
+}
+
+/**
+ * Loads a board of the caller's organisation for printing; another organisation's board,
+ * a deleted board or an unknown id is a 404.
+ */
+export async function loadPrintSource(db: Db, config: ServerConfig, organisationId: number, boardId: number, today: string): Promise<PrintSource> {
+  const row = await repo.findBoard(db, organisationId, boardId);
+  if (!row) throw notFound('No such board');
+  const [{ contractor, offset }, current] = await Promise.all([
+    contractorOf(db, organisationId),
+    repo.findRevision(db, row.id, row.revision),
+  ]);
+  const schedule = scheduleSchema.parse(jsonValue(row.schedule));
+  const board: BoardMeta = {
+    id: row.id,
+    code: row.code,
+    publicUrl: `${config.publicBaseUrl}/b/${row.publicToken}`,
+    publicEnabled: row.publicEnabled,
+    revision: row.revision,
+    revisionDate: isoDay(current?.createdAt ?? row.updatedAt),
+    nextInspectionOn: nextInspectionDate(schedule.board),
+  };
+  return { schedule, board, contractor, findings: checkSchedule(schedule, { today }), offset, maxZsByCircuit: maxZsByCircuit(schedule) };
+}
+
+/**
+ * The schedule as it was at an earlier revision, for "changed since". A revision the board
+ * never had is the caller's mistake: 400 on the `changedSince` field.
+ */
+export async function scheduleAtRevision(db: Db, source: PrintSource, revision: number): Promise<Schedule> {
+  if (revision > source.board.revision) {
+    throw invalid(`The board is at revision ${source.board.revision}`, { changedSince: `No revision ${revision} yet: the board is at revision ${source.board.revision}` });
+  }
+  const found = await repo.findRevision(db, source.board.id, revision);
+  if (!found) throw invalid(`Revision ${revision} is not stored`, { changedSince: `Revision ${revision} is not stored for this board` });
+  return scheduleSchema.parse(jsonValue(found.snapshot));
+}
+
+/**
+ * The calibration page checks a printer, not a board: it is printed from the print settings with
+ * the organisation's offset, on a stand-in board that carries no one's data.
+ */
+export async function loadCalibrationSource(db: Db, config: ServerConfig, organisationId: number, today: string): Promise<PrintSource> {
+  const { contractor, offset } = await contractorOf(db, organisationId);
+  const schedule = scheduleSchema.parse({ board: { name: 'Printer calibration', supply: { earthing: 'TN-C-S' } }, devices: [], circuits: [] });
+  const board: BoardMeta = {
+    id: 0, code: 'CALIBRATION', publicUrl: config.publicBaseUrl, publicEnabled: false, revision: 0, revisionDate: today, nextInspectionOn: null,
+  };
+  return { schedule, board, contractor, findings: [], offset, maxZsByCircuit: {} };
+}
