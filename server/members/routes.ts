@@ -3,8 +3,7 @@
  * `/api/invitations`: the link side, used before the invitee has an account.
  */
 import { Router } from 'express';
-import { z } from 'zod';
-import { acceptInvitationSchema, inviteSchema, memberChangeSchema } from '../../shared/schemas/auth.js';
+import { acceptInvitationSchema, invitationTokenParamSchema, inviteSchema, memberChangeSchema } from '../../shared/schemas/auth.js';
 import type { AppContext } from '../context.js';
 import { ownerOnly, requireUser } from '../auth/guard.js';
 import { signIn } from '../auth/sign-in.js';
@@ -42,13 +41,11 @@ export function membersRoutes(ctx: AppContext): Router {
   return r;
 }
 
-const tokenParamSchema = z.object({ token: z.string().min(10, 'Too short to be a link token').max(200, 'Too long to be a link token') });
-
 export function invitationRoutes(ctx: AppContext): Router {
   const r = Router();
 
   r.get('/:token', async (req, res) => {
-    const { token } = parse(tokenParamSchema, req.params);
+    const { token } = parse(invitationTokenParamSchema, req.params);
     res.json(await invitationByToken(ctx.db, token));
   });
 

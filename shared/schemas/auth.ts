@@ -30,6 +30,10 @@ export type Me = z.infer<typeof meSchema>;
 
 export const csrfSchema = z.object({ token: z.string() });
 
+/** The token in an invitation link's path (`/invite/<token>`); the server issues 43 characters. */
+export const invitationTokenParamSchema = z.object({
+  token: z.string().min(10, 'Too short to be a link token').max(200, 'Too long to be a link token'),
+});
 export const inviteSchema = z.strictObject({ email, role: roleSchema });
 export const acceptInvitationSchema = z.strictObject({ token: z.string().min(10).max(200), name: personName, password: passwordSchema });
 export const forgotPasswordSchema = z.strictObject({ email });
