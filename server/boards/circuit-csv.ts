@@ -103,7 +103,8 @@ function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Ci
   const input: Record<string, any> = {};
   columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
   const match = (input.id ? m.byId.get(input.id) : undefined) ?? m.byWay.get(`${input.way}/${input.phase ?? ''}`);
-  const merged: Record<string, any> = match ? structuredClone(match) : {};
+  // Only `cable` is nested (locations are replaced whole), so copying it is a deep enough copy.
+  const merged: Record<string, any> = match ? { ...match, cable: { ...match.cable } } : {};
   for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
   // A second row on a matched way (without an id of its own) is a new circuit, not the same one twice.
   if (merged.id === undefined || (!input.id && m.taken.has(merged.id))) merged.id = newCircuitId(merged.way, merged.phase, (id) => m.taken.has(id) || m.byId.has(id));

@@ -15,30 +15,47 @@ export function parseCsv(text: string): string[][] {
   const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const records: string[][] = [];
   let record: string[] = [];
-  let cell = '';
-  let quoted = false;
+  const special = /[",\r\n]/g;
   let i = 0;
-  const endCell = () => { record.push(cell); cell = ''; };
-  const endRecord = () => { endCell(); records.push(record); record = []; };
-  while (i < src.length) {
-    const ch = src[i];
-    if (quoted) {
-      if (ch === '"' && src[i + 1] === '"') { cell += '"'; i += 2; continue; }
-      if (ch === '"') { quoted = false; i++; continue; }
-      cell += ch; i++; continue;
-    }
+  let cell = '';
+  while (i <= src.length) {
+    special.lastIndex = i;
+    const m = special.exec(src);
+    const end = m ? m.index : src.length;
+    cell += src.slice(i, end);
+    if (!m) { if (cell !== '' || record.length) { record.push(cell); records.push(record); } break; }
+    const ch = m[0];
     if (ch === '"') {
       if (cell !== '') throw new CsvSyntaxError(records.length + 1, 'A quote inside an unquoted cell: put the whole cell in quotes and double the quote');
-      quoted = true; i++; continue;
+      const closed = readQuoted(src, end + 1);
+      if (!closed) throw new CsvSyntaxError(records.length + 1, 'A quoted cell is never closed');
+      cell = closed.value;
+      i = closed.next;
+      if (i < src.length && !/[,\r\n]/.test(src[i])) throw new CsvSyntaxError(records.length + 1, 'Text after a closing quote: put the whole cell in quotes');
+      continue;
     }
-    if (ch === ',') { endCell(); i++; continue; }
-    if (ch === '\r' && src[i + 1] === '\n') { endRecord(); i += 2; continue; }
-    if (ch === '\n' || ch === '\r') { endRecord(); i++; continue; }
-    cell += ch; i++;
+    record.push(cell);
+    cell = '';
+    if (ch === ',') { i = end + 1; continue; }
+    records.push(record);
+    record = [];
+    i = ch === '\r' && src[end + 1] === '\n' ? end + 2 : end + 1;
+    if (i >= src.length) break;
   }
-  if (quoted) throw new CsvSyntaxError(records.length + 1, 'A quoted cell is never closed');
-  if (cell !== '' || record.length) endRecord();
   return records;
+}
+
+/** A quoted cell's text from just after its opening quote; null when it never closes. */
+function readQuoted(src: string, from: number): { value: string; next: number } | null {
+  let value = '';
+  let i = from;
+  for (;;) {
+    const q = src.indexOf('"', i);
+    if (q < 0) return null;
+    value += src.slice(i, q);
+    if (src[q + 1] === '"') { value += '"'; i = q + 2; continue; }
+    return { value, next: q + 1 };
+  }
 }
 
 /** Writes records as CSV with CRLF line ends, quoting only the cells that need it. */
