@@ -126,9 +126,27 @@ describe('reading, moving and the public page switch', () => {
     await stranger.patch(`/api/boards/${id}/public`, { enabled: false }).expect(404);
   });
 
-  it('when the id is not a number, then 400 on id', async () => {
+  it('when the id or revision number is not a number, then 400 names the parameter', async () => {
     const res = await owner.get('/api/boards/abc').expect(400);
     expect(res.body.error.fields.id).toBeTruthy();
+    expect((await owner.delete('/api/boards/-4').expect(400)).body.error.fields.id).toBeTruthy();
+    const { id } = await createBoardWith(owner, makeSchedule(1));
+    expect((await owner.get(`/api/boards/${id}/revisions/first`).expect(400)).body.error.fields.number).toBeTruthy();
+  });
+
+  it('when signed out, then every board route answers 401', async () => {
+    const { id } = await createBoardWith(owner, makeSchedule(1));
+    const anonymous = await client(t.app);
+    const routes: Array<[method: 'get' | 'post' | 'put' | 'patch' | 'delete', path: string]> = [
+      ['get', ''], ['get', '/schedule'], ['put', '/schedule'], ['patch', ''], ['delete', ''], ['post', '/restore'], ['post', '/duplicate'],
+      ['get', '/check'], ['get', '/revisions'], ['get', '/revisions/1'], ['get', '/diff?from=1&to=2'], ['get', '/export'],
+      ['get', '/circuits.csv'], ['post', '/circuits/import-csv'], ['post', '/token/rotate'], ['patch', '/public'],
+    ];
+    for (const [method, path] of routes) {
+      const res = await anonymous[method](`/api/boards/${id}${path}`);
+      expect(res.status, `${method} ${path}`).toBe(401);
+    }
+    await anonymous.post('/api/boards/import', {}).expect(401);
   });
 
   it('when a board is moved to a site and back, then the summary and the site page follow', async () => {
@@ -173,6 +191,17 @@ describe('soft delete, restore and duplicate', () => {
     const schedule = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
     expect(schedule.circuits).toHaveLength(10);
     await owner.post(`/api/boards/${id}/restore`).expect(409);
+  });
+
+  it('when a board is deleted, then saving, moving, duplicating or exporting it answers 404', async () => {
+    const { id } = await createBoardWith(owner, makeSchedule(2));
+    await owner.delete(`/api/boards/${id}`).expect(204);
+    await owner.put(`/api/boards/${id}/schedule`, { ...makeSchedule(2), baseRevision: 2 }).expect(404);
+    await owner.patch(`/api/boards/${id}`, { siteId: null }).expect(404);
+    await owner.post(`/api/boards/${id}/duplicate`).expect(404);
+    await owner.get(`/api/boards/${id}/export`).expect(404);
+    await owner.get(`/api/boards/${id}/revisions`).expect(404);
+    await owner.delete(`/api/boards/${id}`).expect(404);
   });
 
   it('when a board was deleted more than 30 days ago, then it can no longer be restored', async () => {
