@@ -45,6 +45,8 @@ export interface RenderRequest<O extends PrintOutput = PrintOutput> {
   offset: { xMm: number; yMm: number };
   /** Way numbers to print for flags and way labels ("changed since"); undefined = all. */
   onlyWays?: number[];
+  /** Maximum Zs (Ω) per circuit id from the rule set, for the chart; missing or null prints "—". */
+  maxZsByCircuit?: Record<string, number | null>;
 }
 
 export interface RenderResult {

@@ -39,6 +39,8 @@ const wayLabelOptions = z.strictObject({
   changedSince: z.coerce.number().int().min(1).optional(),
   /** Longest strip the medium takes before it is split with alignment marks (mm). */
   maxLengthMm: z.coerce.number().min(50).max(2000).optional(),
+  /** Strip height when tiled on a plain sheet (mm); on tape the printable band, on labels the label. */
+  heightMm: z.coerce.number().min(5).max(40).optional(),
 });
 
 const chartOptions = z.strictObject({

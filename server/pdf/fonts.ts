@@ -1,0 +1,107 @@
+/**
+ * The DejaVu Sans faces, read from `fonts/` once per process. Layout measures with fontkit
+ * metrics parsed once (cached advance widths per code point); drawing embeds the same bytes
+ * as a subset per document. Measuring exactly as pdf-lib encodes keeps fitted text in its cell.
+ */
+import { readFileSync } from 'node:fs';
+import fontkit from '@pdf-lib/fontkit';
+import { MM_PER_PT, type FontFace, type TypeMetrics } from './model.js';
+
+type FontkitFont = ReturnType<typeof fontkit.create>;
+
+const FILES: Record<FontFace, string> = {
+  regular: 'DejaVuSans.ttf',
+  bold: 'DejaVuSans-Bold.ttf',
+  condensed: 'DejaVuSansCondensed.ttf',
+  'condensed-bold': 'DejaVuSansCondensed-Bold.ttf',
+};
+const FONT_DIR = new URL('../../fonts/', import.meta.url);
+
+const bytesByFace = new Map<FontFace, Uint8Array>();
+const parsedByBytes = new Map<Uint8Array, FontkitFont>();
+
+/** The face's file bytes, read on first use and kept (the same array every time). */
+export function fontBytes(face: FontFace): Uint8Array {
+  let bytes = bytesByFace.get(face);
+  if (!bytes) {
+    bytes = new Uint8Array(readFileSync(new URL(FILES[face], FONT_DIR)));
+    bytesByFace.set(face, bytes);
+  }
+  return bytes;
+}
+
+/**
+ * A fontkit that parses each font file once per process. pdf-lib calls `create` for every
+ * embedding; parsing DejaVu costs tens of milliseconds, so labels share one parsed font and
+ * only the per-document subset is new.
+ */
+export const cachingFontkit = {
+  create(bytes: Uint8Array, postscriptName?: string): FontkitFont {
+    let font = parsedByBytes.get(bytes);
+    if (!font) {
+      font = fontkit.create(bytes, postscriptName);
+      parsedByBytes.set(bytes, font);
+    }
+    return font;
+  },
+};
+
+function parsed(face: FontFace): FontkitFont {
+  return cachingFontkit.create(fontBytes(face));
+}
+
+/** Code points drawn glyph by glyph with no shaping: Latin, Greek, punctuation, super/subscripts, currency, symbols, maths. */
+function isSimple(cp: number): boolean {
+  return cp < 0x0300 || (cp >= 0x0370 && cp < 0x0400) || (cp >= 0x2000 && cp < 0x2300 && (cp < 0x20d0 || cp > 0x20ff));
+}
+
+const advanceCache = new Map<FontFace, Map<number, number>>();
+const shapedCache = new Map<string, number>();
+const SHAPED_CACHE_MAX = 5000;
+
+function advance(face: FontFace, font: FontkitFont, cp: number, cache: Map<number, number>): number {
+  let a = cache.get(cp);
+  if (a === undefined) {
+    a = font.glyphForCodePoint(cp).advanceWidth / font.unitsPerEm;
+    cache.set(cp, a);
+  }
+  return a;
+}
+
+/** Width in em: cached per-code-point advances, or fontkit's own layout for scripts that shape. */
+function emWidth(text: string, face: FontFace): number {
+  const font = parsed(face);
+  let cache = advanceCache.get(face);
+  if (!cache) { cache = new Map(); advanceCache.set(face, cache); }
+  let sum = 0;
+  for (let i = 0; i < text.length; i++) {
+    const cp = text.codePointAt(i)!;
+    if (cp > 0xffff) i++;
+    if (!isSimple(cp)) return shapedWidth(text, face, font);
+    sum += advance(face, font, cp, cache);
+  }
+  return sum;
+}
+
+function shapedWidth(text: string, face: FontFace, font: FontkitFont): number {
+  const key = `${face}\u0000${text}`;
+  let w = shapedCache.get(key);
+  if (w === undefined) {
+    w = font.layout(text).glyphs.reduce((s, g) => s + g.advanceWidth, 0) / font.unitsPerEm;
+    if (shapedCache.size >= SHAPED_CACHE_MAX) shapedCache.clear();
+    shapedCache.set(key, w);
+  }
+  return w;
+}
+
+let metrics: TypeMetrics | null = null;
+
+/** The metrics every layout measures with (DejaVu faces share one ascender and descender). */
+export function typeMetrics(): TypeMetrics {
+  if (metrics) return metrics;
+  const faces: FontFace[] = ['regular', 'bold', 'condensed', 'condensed-bold'];
+  const ascent = Math.max(...faces.map((f) => parsed(f).ascent / parsed(f).unitsPerEm));
+  const descent = Math.max(...faces.map((f) => -parsed(f).descent / parsed(f).unitsPerEm));
+  metrics = { ascent, descent, measure: (text, face, sizePt) => emWidth(text, face) * sizePt * MM_PER_PT };
+  return metrics;
+}

@@ -1,0 +1,97 @@
+/**
+ * The circuit chart (BS 7671 514.9.1) on A4, A5, landscape or a custom board-door size: header,
+ * the way table running over as many pages as it needs with its header row repeated, the
+ * findings, and on every page the caution, the revision and the page number.
+ */
+import { circuitsInWayOrder, wayText } from '../../../../shared/schedule/derive.js';
+import { BLACK, GREY, RED, type Box, type Item, type LayoutDoc, type LayoutPage } from '../../model.js';
+import { LayoutError } from '../../types.js';
+import type { LayoutContext } from '../context.js';
+import { printedDate } from '../dates.js';
+import { chartColumns, chartFacts, type Paragraph } from './columns.js';
+import { continuationHeader, firstPageHeader, stack, type Line } from './header.js';
+import { columnRules, columnWidths, measureRow, rowItems, type MeasuredRow, type TableStyle } from './table.js';
+
+/** Smallest page a legible chart fits (mm). */
+const MIN_PAGE_MM = 120;
+export const CHART_CAUTION = 'Caution: isolate the supply and prove dead before working on this board. Electrical work is for competent persons only, following BS 7671 and local regulations.';
+
+interface Page { items: Item[]; tableTop: number | null }
+
+function pageSize(ctx: LayoutContext<'chart'>): { w: number; h: number } {
+  const m = ctx.req.medium;
+  if (m.kind !== 'page') throw new LayoutError('The circuit chart goes on a page: choose A4, A5, a landscape size or custom-<w>x<h>', 'media');
+  if (m.widthMm < MIN_PAGE_MM || m.heightMm < MIN_PAGE_MM) throw new LayoutError(`The circuit chart needs a page at least ${MIN_PAGE_MM} × ${MIN_PAGE_MM} mm`, 'media');
+  return { w: m.widthMm, h: m.heightMm };
+}
+
+function footerLines(ctx: LayoutContext<'chart'>, k: number, page: number, pages: number): Line[] {
+  const b = ctx.req.board;
+  const meta = `${ctx.req.schedule.board.name} · board ${b.code} · revision ${b.revision} of ${printedDate(b.revisionDate)} · ${ctx.req.contractor.name} · page ${page} of ${pages}`;
+  return [{ text: CHART_CAUTION, face: 'bold', sizePt: 6.5 * k, maxLines: 2 }, { text: meta, face: 'regular', sizePt: 6 * k, color: GREY, maxLines: 1 }];
+}
+
+function findingParagraphs(ctx: LayoutContext<'chart'>): Paragraph[] {
+  if (!ctx.options.showFindings) return [];
+  if (ctx.req.findings.length === 0) return [{ text: 'None from the wiring-rule checks.', face: 'regular' }];
+  const word = { error: 'Must fix', warning: 'Check', info: 'Note' } as const;
+  return ctx.req.findings.map((f) => ({
+    text: `${word[f.severity]} · ${f.ways.length ? `way ${f.ways.join(', ')} · ` : ''}${f.rule}: ${f.message}`,
+    face: f.severity === 'info' ? 'regular' : 'bold', color: f.severity === 'error' ? RED : BLACK,
+  }));
+}
+
+export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
+  const { w, h } = pageSize(ctx);
+  const k = Math.min(1.15, Math.max(0.82, Math.sqrt(w / 210)));
+  const margin = Math.min(12, Math.max(7, w * 0.05));
+  const content: Box = { x: margin, y: margin, w: w - 2 * margin, h: h - 2 * margin };
+  const style: TableStyle = { sizePt: 7.5 * k, padMm: 1.1 * k, wayWidthMm: 9 * k, tm: ctx.tm };
+  const widths = columnWidths(content.w, chartColumns.map((c) => c.weight), style.wayWidthMm);
+  const maxLines = chartColumns.map((c) => c.maxLines);
+  const footerH = stack(footerLines(ctx, k, 99, 99), 0, 0, content.w, ctx).bottom;
+  const bottom = content.y + content.h - footerH - 1.5;
+  const headerRow = measureRow(chartColumns.map((c) => [{ text: c.header, face: 'bold' }]), widths, chartColumns.map(() => 3), style);
+  const facts = chartFacts(ctx.req.schedule, ctx.req.maxZsByCircuit);
+  const pages: Page[] = [];
+  let y = 0;
+  const closeRules = () => {
+    const p = pages[pages.length - 1];
+    if (p?.tableTop != null) { p.items.push(...columnRules(content.x, p.tableTop, y, widths)); p.tableTop = null; }
+  };
+  const newPage = (withTable: boolean) => {
+    closeRules();
+    const header = pages.length === 0 ? firstPageHeader(ctx, content, k) : continuationHeader(ctx, content, k);
+    const page: Page = { items: [...header.items], tableTop: null };
+    pages.push(page);
+    y = header.bottom;
+    if (withTable) { page.tableTop = y; page.items.push(...rowItems(headerRow, content.x, y, widths, style, false, true)); y += headerRow.heightMm; }
+  };
+  newPage(true);
+  circuitsInWayOrder(ctx.req.schedule).forEach((c, i) => {
+    const row: MeasuredRow = measureRow(chartColumns.map((col) => col.cell(c, facts)), widths, maxLines, style);
+    if (row.cut) ctx.warnings.cut(`Way ${wayText(c)} on the chart`, c.description || c.label);
+    if (y + row.heightMm > bottom && y > headerRow.heightMm + content.y + 1) newPage(true);
+    pages[pages.length - 1].items.push(...rowItems(row, content.x, y, widths, style, i % 2 === 1));
+    y += row.heightMm;
+  });
+  closeRules();
+  y += 1.5 * k;
+  const notes: Line[] = [
+    { text: 'Max Zs: the highest earth fault loop impedance at which the circuit’s device still disconnects in time (BS 7671 Chapter 41). Zs: as measured; “over” marks a reading above the maximum.', face: 'regular', sizePt: 6 * k, color: GREY },
+    ...(ctx.options.showFindings ? [{ text: `Findings at revision ${ctx.req.board.revision}`, face: 'bold' as const, sizePt: 8.5 * k, maxLines: 1 }] : []),
+    ...findingParagraphs(ctx).map((p): Line => ({ text: p.text, face: p.face, sizePt: 7 * k, color: p.color, maxLines: 6 })),
+  ];
+  for (const line of notes) {
+    let placed = stack([line], content.x, y, content.w, ctx);
+    if (placed.bottom > bottom) { newPage(false); placed = stack([line], content.x, y, content.w, ctx); }
+    pages[pages.length - 1].items.push(...placed.items);
+    y = placed.bottom;
+  }
+  const laid: LayoutPage[] = pages.map((p, i) => ({
+    widthMm: w, heightMm: h,
+    items: [...p.items, { kind: 'line', from: { x: content.x, y: bottom + 0.8 }, to: { x: content.x + content.w, y: bottom + 0.8 }, lineMm: 0.2, color: GREY },
+      ...stack(footerLines(ctx, k, i + 1, pages.length), content.x, bottom + 1.5, content.w, ctx).items],
+  }));
+  return { title: `${ctx.req.board.code} circuit chart`, pages: laid, warnings: ctx.warnings.list };
+}

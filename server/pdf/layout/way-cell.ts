@@ -1,0 +1,56 @@
+/**
+ * The text inside one way-label cell: the way number(s) in bold and the device (e.g. "B32") on a
+ * top line, the circuit's short label below. Cells taller than wide (half-module devices on a
+ * deep strip) are set turned a quarter so the label gets the long side.
+ */
+import { placeFrame, mapItems } from '../geometry.js';
+import type { Box, Item } from '../model.js';
+import type { LayoutContext } from './context.js';
+import { fitText, type FitStyle } from './fit.js';
+
+export interface CellText { ways: string; device: string; main: string }
+
+const PAD_MM = 0.6;
+
+/** Runs for a cell's text in a local `w × h` frame. */
+function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: LayoutContext<'way-labels'>, name: string): Item[] {
+  const inner: Box = { x: PAD_MM, y: PAD_MM * 0.6, w: w - 2 * PAD_MM, h: h - 1.2 * PAD_MM };
+  const bold: FitStyle = { face: 'bold', maxPt: 12, minPt, maxLines: 1, align: 'left' };
+  const regular: FitStyle = { face: 'regular', maxPt: 9, minPt, maxLines: 1, align: 'right' };
+  const main: FitStyle = { face: 'bold', maxPt: 11, minPt, wrapBelowPt: 7, align: 'centre', lineSpacing: 1.18 };
+  const parts: Array<[string, Box, FitStyle]> = [];
+  if (inner.h < 5) {
+    parts.push([t.ways, { ...inner, w: inner.w * 0.3 }, bold], [t.main, { ...inner, x: inner.x + inner.w * 0.32, w: inner.w * 0.68 }, { ...main, align: 'left', maxLines: 1 }]);
+  } else {
+    const top = Math.max(2.2, inner.h * 0.38);
+    // Share the top line by how wide each text is, so "9" next to "C32 30 mA" leaves the device room.
+    // The way number always gets room for at least 7 pt; the device text goes when what is left cannot hold it.
+    const wayW = ctx.tm.measure(t.ways, 'bold', 1);
+    const deviceW = ctx.tm.measure(t.device, 'regular', 1);
+    const wayMin = Math.min(1, (ctx.tm.measure(t.ways, 'bold', 7) + 0.3) / inner.w);
+    let wayShare = t.device ? Math.min(0.7, Math.max(0.25, wayMin, wayW / (wayW + deviceW + 1e-9))) : 1;
+    if (t.device && inner.w * (1 - wayShare) < deviceW * minPt) { wayShare = 1; t = { ...t, device: '' }; }
+    const ways: Box = { x: inner.x, y: inner.y, w: inner.w * wayShare, h: top };
+    parts.push([t.ways, ways, t.device ? bold : { ...bold, align: 'centre' }]);
+    if (t.device) parts.push([t.device, { x: inner.x + inner.w * wayShare, y: inner.y, w: inner.w * (1 - wayShare), h: top }, regular]);
+    parts.push([t.main, { x: inner.x, y: inner.y + top, w: inner.w, h: inner.h - top }, main]);
+  }
+  const items: Item[] = [];
+  for (const [text, cell, style] of parts) {
+    const fit = fitText(text, cell, style, ctx.tm);
+    if (fit.cut) ctx.warnings.cut(name, text);
+    items.push(...fit.runs);
+  }
+  return items;
+}
+
+/** Text items for a cell box; turned 90° when the cell stands taller than wide. */
+export function cellItems(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>, name: string): Item[] {
+  if (box.w <= 0 || box.h <= 0) return [];
+  const minPt = ctx.req.medium.kind === 'tape' ? 5 : 5.5;
+  const turned = box.h > box.w * 1.15;
+  const w = turned ? box.h : box.w;
+  const h = turned ? box.w : box.h;
+  const local = frameItems(t, w, h, minPt, ctx, name);
+  return mapItems(local, placeFrame(w, h, box, turned ? 90 : 0));
+}

@@ -1,0 +1,39 @@
+/**
+ * The engine's front door: lay out the requested output (pure), then draw it. The print API,
+ * the print pack and the handover e-mail all come through `renderOutput`.
+ */
+import type { PrintOutput } from '../../shared/schemas/print.js';
+import { drawLayout } from './draw.js';
+import { typeMetrics } from './fonts.js';
+import type { LayoutDoc, TypeMetrics } from './model.js';
+import type { RenderRequest, RenderResult } from './types.js';
+import { WarningList, withDefaults, type LayoutContext } from './layout/context.js';
+import { layoutFlags } from './layout/flags.js';
+import { layoutWayLabels } from './layout/way-labels.js';
+import { layoutChart } from './layout/chart/index.js';
+import { layoutNotices } from './layout/notices.js';
+import { layoutTag } from './layout/tag.js';
+import { layoutCalibration } from './layout/calibration.js';
+import { emptyDoc } from './layout/empty.js';
+
+type Layouts = { [O in PrintOutput]: (ctx: LayoutContext<O>) => LayoutDoc };
+const layouts: Layouts = {
+  flags: layoutFlags, 'way-labels': layoutWayLabels, chart: layoutChart, notices: layoutNotices, tag: layoutTag, calibration: layoutCalibration,
+};
+
+/** The output laid out in mm, without drawing: what tests and previews measure. */
+export function layoutOutput<O extends PrintOutput>(req: RenderRequest<O>, tm: TypeMetrics = typeMetrics()): LayoutDoc {
+  const ctx: LayoutContext<O> = { req, options: withDefaults(req.output, req.options), tm, warnings: new WarningList() };
+  const layout = (layouts[req.output] as (c: LayoutContext<O>) => LayoutDoc)(ctx);
+  return layout.pages.length > 0 ? layout : emptyDoc(layout, req.medium, tm);
+}
+
+/**
+ * Render one output to PDF bytes with its warnings. Throws LayoutError (with a message saying
+ * what would work) when the output cannot go on the medium, e.g. a QR code on narrow tape.
+ */
+export async function renderOutput<O extends PrintOutput>(req: RenderRequest<O>): Promise<RenderResult> {
+  const layout = layoutOutput(req);
+  const pdf = await drawLayout(layout, req.offset ?? { xMm: 0, yMm: 0 });
+  return { pdf, warnings: layout.warnings, pageCount: layout.pages.length };
+}
