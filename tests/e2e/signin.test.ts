@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loginSchema } from '../../shared/schemas/auth.js';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
-import { uniqueEmail } from '../helpers/app.js';
+import { uniqueEmail, waitForMail } from '../helpers/app.js';
 
 let app: BrowserApp;
 beforeAll(async () => { app = await startBrowserApp(); });
@@ -18,7 +18,8 @@ function schemaMessage(input: unknown, field: string): string {
   return issue.message;
 }
 
-describe('signing up and in through the forms', () => {
+// Browser steps are slow on a loaded machine; each test gets two minutes.
+describe('signing up and in through the forms', { timeout: 120_000 }, () => {
   it('when a contractor signs up, signs out and signs in again, then the shell shows them as owner', async () => {
     const page = await app.newPage();
     const email = uniqueEmail('e2e-owner');
@@ -48,6 +49,8 @@ describe('signing up and in through the forms', () => {
     await page.waitForURL('**/boards');
 
     const nav = page.getByRole('navigation', { name: 'Main' });
+    // The captured-mail entry appears once the server has said it captures mail.
+    await nav.getByRole('link', { name: 'Captured mail' }).waitFor();
     const labels = await nav.getByRole('link').allTextContents();
     expect(labels.map((l) => l.trim())).toEqual(['Boards', 'Sites', 'Print settings', 'Members', 'Organisation', 'Captured mail']);
     const me = await (await page.request.get('/api/auth/me')).json();
@@ -94,5 +97,42 @@ describe('signing up and in through the forms', () => {
     const name = page.getByLabel('Organisation name');
     await name.waitFor();
     expect(await name.inputValue()).toBe('Redirect Test Electrical');
+  });
+
+  it('when a member forgets the password, then the mailed link sets a new one they can sign in with', async () => {
+    const owner = await signedInOwnerPage(app, 'Reset Test Electrical');
+    const page = await app.newPage();
+    await page.goto('/signin');
+    await page.getByRole('link', { name: 'Forgotten your password?' }).click();
+    await page.getByRole('heading', { name: 'Forgotten password' }).waitFor();
+    await page.getByLabel('E-mail').fill(owner.email);
+    await page.getByRole('button', { name: 'Send the link' }).click();
+    await page.getByText('Check your e-mail').waitFor();
+
+    // The link as the captured-mail API reads it (the owner's old session can still ask).
+    const captured = await waitForMail(app.database, owner.email);
+    const message = await (await owner.page.request.get(`/api/dev/mail/${captured.id}`)).json() as { text: string };
+    const link = message.text.match(/https?:\/\/\S+\/reset\/[\w-]+/)?.[0];
+    expect(link).toMatch(new RegExp(`^${app.baseUrl}/reset/`));
+
+    await page.goto(link!);
+    await page.getByLabel('New password', { exact: true }).fill('fresh-fuse-spur-42');
+    await page.getByRole('button', { name: 'Set password' }).click();
+    await page.getByText('Password changed').waitFor();
+    expect((await owner.page.request.get('/api/auth/me')).status()).toBe(401);
+
+    await page.getByRole('link', { name: 'Sign in' }).first().click();
+    await page.getByRole('heading', { name: 'Sign in' }).waitFor();
+    await page.getByLabel('E-mail').fill(owner.email);
+    await page.getByLabel('Password', { exact: true }).fill('fresh-fuse-spur-42');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.waitForURL('**/boards');
+
+    // The link works once.
+    const again = await app.newPage();
+    await again.goto(link!);
+    await again.getByLabel('New password', { exact: true }).fill('another-fuse-spur-43');
+    await again.getByRole('button', { name: 'Set password' }).click();
+    await again.getByText('Ask for a new link').waitFor();
   });
 });

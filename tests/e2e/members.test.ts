@@ -1,0 +1,91 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
+import { uniqueEmail } from '../helpers/app.js';
+
+let app: BrowserApp;
+beforeAll(async () => { app = await startBrowserApp(); });
+afterAll(async () => { await app?.close(); });
+
+async function chooseOption(page: Page, select: ReturnType<Page['locator']>, label: string) {
+  await select.click();
+  await page.locator('.ant-select-dropdown:visible .ant-select-item-option', { hasText: label }).click();
+}
+
+async function mainNavigation(page: Page): Promise<string[]> {
+  const nav = page.getByRole('navigation', { name: 'Main' });
+  await nav.waitFor();
+  return (await nav.getByRole('link').allTextContents()).map((l) => l.trim());
+}
+
+// Browser steps are slow on a loaded machine; each test gets two minutes.
+describe('members and invitations through the screens', { timeout: 120_000 }, () => {
+  it('when the owner invites a viewer, then the invitee joins from the mailed link and sees only what a viewer may use', async () => {
+    const owner = await signedInOwnerPage(app, 'Quillon Test Electrical');
+    const invitee = uniqueEmail('e2e-viewer');
+    await owner.page.goto('/members');
+    await owner.page.getByLabel('E-mail').fill(invitee);
+    await chooseOption(owner.page, owner.page.locator('.members-invite__role .ant-select'), 'Viewer');
+    await owner.page.getByRole('button', { name: 'Send invitation' }).click();
+    await owner.page.getByText(`Invitation sent to ${invitee}.`).waitFor();
+    await owner.page.locator('.members-invitations__item', { hasText: invitee }).waitFor();
+
+    // The owner reads the invitation on the captured-mail page and takes its link.
+    await owner.page.getByRole('navigation', { name: 'Main' }).getByRole('link', { name: 'Captured mail' }).click();
+    await owner.page.locator('.dev-mail__item', { hasText: invitee }).first().click();
+    const href = await owner.page.getByTestId('mail-text').locator('a[href*="/invite/"]').getAttribute('href');
+    expect(href).toMatch(new RegExp(`^${app.baseUrl}/invite/`));
+
+    const page = await app.newPage();
+    await page.goto(href!);
+    await page.getByText('Quillon Test Electrical', { exact: true }).waitFor();
+    await page.getByLabel('Your name').fill('Rhiannon Vale');
+    await page.getByLabel('Choose a password').fill('ladder-and-torch-7');
+    await page.getByRole('button', { name: 'Join Quillon Test Electrical' }).click();
+    await page.waitForURL('**/boards');
+    expect(await mainNavigation(page)).toEqual(['Boards', 'Sites', 'Print settings']);
+
+    // A viewer typing the members address is sent back with the reason.
+    await page.goto('/members');
+    await page.waitForURL('**/boards');
+    await page.getByRole('alert').getByText(/for owners only/).waitFor();
+
+    // The link works once.
+    const again = await app.newPage();
+    await again.goto(href!);
+    await again.getByText('This invitation cannot be used').waitFor();
+    expect(app.pageErrors).toEqual([]);
+  });
+
+  it('when the owner changes a member role and disables them, then the table shows it and the member is signed out', async () => {
+    const owner = await signedInOwnerPage(app, 'Tamsin Test Electrical');
+    // The member joins through the API side of an invitation (the screens are covered above).
+    const csrf = (await (await owner.page.request.get('/api/auth/csrf')).json()).token as string;
+    const memberEmail = uniqueEmail('e2e-member');
+    await owner.page.request.post('/api/members/invitations', { headers: { 'X-CSRF-Token': csrf }, data: { email: memberEmail, role: 'viewer' } });
+    await owner.page.goto('/dev/mail');
+    await owner.page.locator('.dev-mail__item', { hasText: memberEmail }).first().click();
+    const href = await owner.page.getByTestId('mail-text').locator('a[href*="/invite/"]').getAttribute('href');
+    const member = await app.newPage();
+    await member.goto(href!);
+    await member.getByLabel('Your name').fill('Osian Pryce');
+    await member.getByLabel('Choose a password').fill('ladder-and-torch-8');
+    await member.getByRole('button', { name: /^Join/ }).click();
+    await member.waitForURL('**/boards');
+
+    await owner.page.goto('/members');
+    const row = owner.page.locator('.ant-table-row', { hasText: memberEmail });
+    await chooseOption(owner.page, row.locator('.ant-select'), 'Electrician');
+    await row.locator('.ant-select-selection-item', { hasText: 'Electrician' }).waitFor();
+    await row.getByRole('button', { name: 'Disable' }).click();
+    await owner.page.locator('.ant-popover:visible').getByRole('button', { name: 'Disable' }).click();
+    await row.getByText('Disabled', { exact: true }).waitFor();
+
+    const members = await (await owner.page.request.get('/api/members')).json() as { members: Array<{ email: string; role: string; disabled: boolean }> };
+    expect(members.members.find((m) => m.email === memberEmail)).toMatchObject({ role: 'electrician', disabled: true });
+    // The disabled member's next navigation to a signed-in screen goes to sign-in.
+    expect((await member.request.get('/api/auth/me')).status()).toBe(401);
+    await member.reload();
+    await member.waitForURL((url) => url.pathname === '/signin');
+  });
+});
