@@ -18,6 +18,7 @@ export { twinEarthIz } from './capacity.js';
 export { estimatedVoltageDrop } from './voltage-drop.js';
 export { nextInspectionOn, inspectionIntervalMonths } from './inspection.js';
 
+/** The UK rule set, registered in `shared/rules/index.ts`; the checks run in the order findings are grouped on the panel. */
 export const bs7671: RuleSet = {
   id: 'bs7671-2018-a2',
   name: 'BS 7671:2018+A2:2022 (UK)',

@@ -60,11 +60,11 @@ export const TABLE_4D5: Record<number, TwinEarthRow> = {
 
 /**
  * 433.1.204: a 2.5 mm² thermoplastic ring final on a 30 or 32 A device meets 433.1.1
- * when the cable's Iz under its installation conditions is at least 20 A (found).
+ * when the cable's Iz under its installation conditions is at least 20 A (partly: secondary pages quote it).
  */
 export const RING_FINAL = { liveCsa: 2.5, ratings: [30, 32], minIz: 20 } as const;
 
-/** Voltage drop limits, percent of nominal voltage (Appendix 4 Section 6.4, found). */
+/** Voltage drop limits, percent of nominal voltage (Appendix 4 Section 6, found). */
 export const VOLTAGE_DROP_LIMIT_PERCENT = { lighting: 3, other: 5 } as const;
 
 /**
@@ -76,7 +76,7 @@ export const BREAKER_RATINGS = [1, 2, 3, 4, 6, 8, 10, 13, 16, 20, 25, 32, 40, 50
 /** Residual operating currents (mA) RCDs and RCBOs are made in (common practice). */
 export const RESIDUAL_RATINGS_MA = [10, 30, 100, 300, 500, 1000] as const;
 
-/** Largest IΔn that counts as additional protection (415.1.1, found). */
+/** Largest IΔn that counts as additional protection: 30 mA (411.3.3 found; 415.1.1 from memory). */
 export const ADDITIONAL_PROTECTION_MA = 30;
 
 /** Largest socket-outlet circuit rating 411.3.3 asks 30 mA protection for (found). */

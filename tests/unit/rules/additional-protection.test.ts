@@ -12,7 +12,7 @@ describe('411.3.3 socket-outlets up to 32 A', () => {
   });
 
   it('when a ring final (sockets by kind) has a 30 mA RCBO, then it passes', () => {
-    expect(withCode(oneCircuit({ rating: 32 }, { kind: 'ring' }), 'sockets-need-rcd')).toEqual([]); // 30 mA, BS 7671 415.1.1 (found)
+    expect(withCode(oneCircuit({ rating: 32 }, { kind: 'ring' }), 'sockets-need-rcd')).toEqual([]); // 30 mA, BS 7671 411.3.3 (found)
   });
 
   it('when the sockets sit behind a 30 mA RCD on a split-load row, then they pass; behind a 100 mA RCD they fail', () => {
@@ -31,7 +31,7 @@ describe('411.3.3 socket-outlets up to 32 A', () => {
   it('when the sockets are outside a dwelling, then a warning mentions the risk-assessment exception', () => {
     const [f] = withCode(oneCircuit(mcb(20), { kind: 'radial', socketOutlets: true }, { installationType: 'commercial' }), 'sockets-need-rcd');
     expect(f.severity).toBe('warning');
-    expect(f.message).toContain('documented risk assessment'); // BS 7671 411.3.3 exception (found)
+    expect(f.message).toContain('documented risk assessment'); // BS 7671 411.3.3 risk-assessment exception (from memory)
   });
 
   it("when the RCBO's IΔn is not recorded, then a warning that 30 mA protection cannot be confirmed", () => {

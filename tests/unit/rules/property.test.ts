@@ -69,7 +69,8 @@ describe('checks on any schedule the schema accepts', () => {
         expect(['error', 'warning', 'info']).toContain(f.severity);
         expect(f.rule.length * f.message.length * f.code.length).toBeGreaterThan(0);
         for (const w of f.ways) expect(ways.has(w)).toBe(true);
-        if (f.field) expect(pathExists(s, f.field), f.field).toBe(true);
+        expect(f.field, f.code).toBeDefined();
+        expect(pathExists(s, f.field!), f.field).toBe(true);
       }
       const limits = Object.values(maxZsByCircuit(s));
       for (const v of limits) expect(v === null || v > 0).toBe(true);
