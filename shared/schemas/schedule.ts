@@ -48,7 +48,7 @@ export const supplySchema = z.strictObject({
 export const boardDetailsSchema = z.strictObject({
   name: text(120).min(1, 'Required'),
   location: text(200).default(''),
-  rows: z.number().int('Whole rows only').min(1, 'At least one row').max(12, 'At most 12 rows').default(1),
+  rows: z.number().int('Whole rows only').min(1, 'At least one row').max(60, 'At most 60 rows').default(1),
   modulesPerRow: z.number().int('Whole modules only').min(1, 'At least one module').max(72, 'At most 72 modules').default(18),
   phases: z.union([z.literal(1), z.literal(3)], { error: 'Phases must be 1 or 3' }).default(1),
   installationType: z.enum(installationTypes).default('domestic'),
@@ -71,7 +71,7 @@ export const boardDetailsSchema = z.strictObject({
 
 export const deviceSchema = z.strictObject({
   id: key,
-  row: z.number().int().min(1, 'Rows start at 1').max(12, 'At most 12 rows'),
+  row: z.number().int().min(1, 'Rows start at 1').max(60, 'At most 60 rows'),
   kind: z.enum(deviceKinds),
   /** Width in DIN 43880 modules (17.5 mm each), in half-module steps. */
   modules: z.number().min(0.5, 'At least half a module').max(12, 'At most 12 modules').refine((m) => Number.isInteger(m * 2), 'Half-module steps only').default(1),
@@ -99,7 +99,7 @@ export const cableSchema = z.strictObject({
 
 export const circuitSchema = z.strictObject({
   id: key,
-  way: z.number().int('Whole way numbers only').min(1, 'Ways start at 1').max(999, 'At most 999'),
+  way: z.number().int('Whole way numbers only').min(1, 'Ways start at 1').max(2000, 'At most 2000'),
   phase: z.enum(phases).nullable().default(null),
   deviceId: key.nullable().default(null),
   label: text(SHORT_LABEL_MAX).min(1, 'Required'),
