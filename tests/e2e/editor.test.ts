@@ -1,0 +1,94 @@
+/**
+ * The board editor in a real browser: a board built through the screens, a finding that
+ * appears while typing, and the saved board coming back the same after a reload.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Page } from 'playwright-core';
+import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
+
+let app: BrowserApp;
+beforeAll(async () => { app = await startBrowserApp(); });
+afterAll(async () => { await app?.close(); });
+
+/** Picks an option of the ant-design select inside a circuit table cell. */
+async function choose(page: Page, cell: string, option: string): Promise<void> {
+  await page.locator(`td[data-cell="${cell}"] .ant-select-selector`).click();
+  await page.locator(`.ant-select-dropdown:not(.ant-select-dropdown-hidden) .ant-select-item-option[title="${option}"]`).click();
+}
+
+const finding = (page: Page, code: string) => page.locator(`.board-findings [data-finding-code="${code}"]`);
+
+describe('building a board in the editor', () => {
+  it('when a 2.5 mm² radial on a B32 is clipped direct, then the capacity finding appears live, and the board saves and reloads as entered', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+
+    // A new, empty board through the form.
+    await page.goto('/boards');
+    await page.getByRole('link', { name: 'New board' }).click();
+    await page.getByLabel('Board name').fill('Garage sub-board');
+    await page.getByLabel('Where it is').fill('Garage, left of the side door');
+    await page.getByText('Empty board', { exact: true }).click();
+    await page.getByRole('button', { name: 'Create board' }).click();
+    await page.waitForURL(/\/boards\/\d+$/);
+    const boardId = Number(new URL(page.url()).pathname.split('/').pop());
+
+    // One MCB on row 1, made a B32 in its drawer; the DIN row picture shows it.
+    await page.getByRole('tab', { name: /DIN rows/ }).click();
+    await page.getByRole('button', { name: 'Add device to row 1' }).click();
+    await page.getByRole('menuitem', { name: 'MCB' }).click();
+    await page.getByRole('button', { name: 'Edit', exact: true }).click();
+    await page.getByLabel('Rating (A)').fill('32');
+    await page.getByLabel('Curve').waitFor();
+    await page.keyboard.press('Escape');
+    await page.locator('.board-din-row svg text', { hasText: 'B32' }).waitFor();
+
+    // A circuit on it: the new row takes the free breaker and puts the cursor in its label.
+    await page.getByRole('tab', { name: /Circuits/ }).click();
+    await page.getByRole('button', { name: 'Add circuit' }).click();
+    await page.keyboard.type('Garage sockets');
+    const row = page.locator('tbody tr[data-circuit-id]').first();
+    const id = await row.getAttribute('data-circuit-id');
+    expect(await page.locator(`td[data-cell="device-${id}"]`).textContent()).toContain('B32');
+    await choose(page, `kind-${id}`, 'Radial');
+    await page.locator(`td[data-cell="live-${id}"] input`).fill('2.5');
+    await page.locator(`td[data-cell="cpc-${id}"] input`).fill('1.5');
+    // Without a reference method the capacity cannot be checked yet, and the panel says so.
+    await finding(page, 'capacity-not-checked').waitFor();
+    expect(await finding(page, 'rating-over-iz').count()).toBe(0);
+
+    await choose(page, `method-${id}`, 'C – clipped direct');
+    // BS 7671:2018+A2 Table 4D5: 2.5 mm² flat twin-and-earth, method C, Iz = 27 A < In = 32 A.
+    await finding(page, 'rating-over-iz').waitFor();
+    expect(await finding(page, 'rating-over-iz').textContent()).toContain('27 A');
+    await page.locator(`td[data-cell="live-${id}"].board-cell--error`).waitFor();
+
+    // Enter in a cell adds the next circuit below, with the cursor in its label.
+    await page.locator(`td[data-cell="length-${id}"] input`).fill('14');
+    await page.locator(`td[data-cell="length-${id}"] input`).press('Enter');
+    await page.keyboard.type('Garage lights');
+    expect(await page.locator('tbody tr[data-circuit-id]').count()).toBe(2);
+
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 2' }).waitFor();
+
+    // After a reload the board is as entered and the finding is still there.
+    await page.reload();
+    const labelInput = page.locator(`td[data-cell="label-${id}"] input`);
+    await labelInput.waitFor();
+    expect(await labelInput.inputValue()).toBe('Garage sockets');
+    expect(await page.locator(`td[data-cell="live-${id}"] input`).inputValue()).toBe('2.5');
+    expect(await page.locator(`td[data-cell="length-${id}"] input`).inputValue()).toBe('14');
+    await finding(page, 'rating-over-iz').waitFor();
+
+    // The server's check agrees with what the editor showed.
+    const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    expect(saved.revision).toBe(2);
+    expect(saved.circuits.map((c: { label: string }) => c.label)).toEqual(['Garage sockets', 'Garage lights']);
+    expect(saved.devices).toMatchObject([{ kind: 'mcb', rating: 32, curve: 'B' }]);
+    const check = await (await page.request.get(`/api/boards/${boardId}/check`)).json();
+    expect(check.findings.filter((f: { code: string }) => f.code === 'rating-over-iz').map((f: { ways: number[] }) => f.ways)).toEqual([[1]]);
+
+    expect(app.pageErrors).toEqual([]);
+    expect(app.outsideRequests).toEqual([]);
+  }, 180_000);
+});
