@@ -1,3 +1,5 @@
+import { resolve } from 'node:path';
+
 /** Everything the server reads from its environment, read once and passed down. */
 export interface ServerConfig {
   port: number;
@@ -40,7 +42,7 @@ export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerCo
       from: env.MAIL_FROM ?? defaults.smtp?.from ?? 'Waymark <no-reply@waymark.invalid>',
     },
     devMail: (env.WAYMARK_DEV_MAIL ?? (defaults.devMail ? 'on' : 'off')) === 'on',
-    clientDir: env.WAYMARK_CLIENT_DIR ?? defaults.clientDir ?? null,
+    clientDir: env.WAYMARK_CLIENT_DIR ? resolve(env.WAYMARK_CLIENT_DIR) : defaults.clientDir ?? null,
     rateLimits: {
       loginPerAccount: Number(env.RATE_LOGIN_ACCOUNT ?? defaults.rateLimits?.loginPerAccount ?? 10),
       loginPerIp: Number(env.RATE_LOGIN_IP ?? defaults.rateLimits?.loginPerIp ?? 50),
