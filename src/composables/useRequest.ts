@@ -2,8 +2,12 @@
  * Loading state for one read request: the explicit status union every screen shows
  * (a spinner while loading, an error with a retry, the data when ready). A newer run
  * wins over an older one still in flight, so a quick retry never shows stale data.
+ * A 401 means the session has ended, so the session store is told (the shell then asks
+ * the member to sign in again); call it from a component's setup.
  */
 import { ref, shallowRef, type Ref, type ShallowRef } from 'vue';
+import { ApiError } from '../api/http.js';
+import { useSessionStore } from '../stores/session.js';
 import { describeFailure } from './useZodForm.js';
 
 export type RequestStatus = 'idle' | 'loading' | 'ready' | 'error';
@@ -22,6 +26,7 @@ export function useRequest<T>(load: () => Promise<T>, options: { immediate?: boo
   const data = shallowRef<T | null>(null);
   const error = ref<string | null>(null);
   const errorStatus = ref<number | null>(null);
+  const session = useSessionStore();
   let latest = 0;
 
   async function run(): Promise<void> {
@@ -37,8 +42,9 @@ export function useRequest<T>(load: () => Promise<T>, options: { immediate?: boo
     } catch (err) {
       if (mine !== latest) return;
       error.value = describeFailure(err).message;
-      errorStatus.value = typeof (err as { status?: unknown }).status === 'number' ? (err as { status: number }).status : null;
+      errorStatus.value = err instanceof ApiError ? err.status : null;
       status.value = 'error';
+      if (errorStatus.value === 401) session.expire();
     }
   }
 

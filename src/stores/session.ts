@@ -78,6 +78,14 @@ export const useSessionStore = defineStore('session', () => {
     }
   }
 
+  /**
+   * The server answered 401 to a signed-in screen: the session ended elsewhere (signed out,
+   * password reset, member disabled). The shell sees `me` go and sends the member to sign in.
+   */
+  function expire(): void {
+    if (me.value) me.value = null;
+  }
+
   /** After the organisation is renamed, the header should show the new name without a reload. */
   function renameOrganisation(name: string): void {
     if (me.value) me.value = { ...me.value, organisation: { ...me.value.organisation, name } };
@@ -85,6 +93,6 @@ export const useSessionStore = defineStore('session', () => {
 
   return {
     status, me, error, notice, role, signedIn, isOwner, canEdit,
-    hasRole, load, ensureLoaded, signIn, signUp, acceptInvitation, signOut, renameOrganisation,
+    hasRole, load, ensureLoaded, signIn, signUp, acceptInvitation, signOut, expire, renameOrganisation,
   };
 });

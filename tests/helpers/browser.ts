@@ -81,6 +81,8 @@ export async function startBrowserApp(overrides: Partial<ServerConfig> = {}): Pr
   async function newPage(options: PageOptions = {}): Promise<Page> {
     const context = await browser.newContext({ baseURL: baseUrl, viewport: options.viewport ?? { width: 1280, height: 800 }, locale: 'en-GB' });
     contexts.push(context);
+    // Generous waits: the tests share two cores with builds and other suites.
+    context.setDefaultTimeout(60_000);
     await context.route('**/*', (route) => {
       const url = route.request().url();
       if (url.startsWith(baseUrl) || url.startsWith('data:') || url.startsWith('blob:')) return route.continue();
