@@ -8,7 +8,7 @@ import { printOptionSchemas, type PrintOutput } from '../shared/schemas/print.js
 import { checkSchedule, maxZsByCircuit, nextInspectionDate } from '../shared/rules/index.js';
 import type { Schedule } from '../shared/schemas/schedule.js';
 import type { Database } from '../server/db/client.js';
-import { syntheticSchedule } from './fixtures.js';
+import { makeSchedule as syntheticSchedule } from '../tests/helpers/boards.js';
 import { bareDocument } from './pdf-baseline.js';
 import { drawStats } from './pdf-stats.js';
 import { demoPackRenders } from './demo-pack.js';

@@ -9,7 +9,7 @@ import type { Database } from '../server/db/client.js';
 import { smtpMailer } from '../server/mail/mailer.js';
 import { BOARD_FILE_FORMAT } from '../shared/schemas/schedule.js';
 import { DEMO_PASSWORD, DEMO_USERS } from '../server/seed/index.js';
-import { syntheticSchedule } from './fixtures.js';
+import { makeSchedule as syntheticSchedule } from '../tests/helpers/boards.js';
 
 export async function benchQueries(database: Database): Promise<{ at10: number; at1000: number }> {
   const config = configFromEnv({ DATABASE_URL: 'mysql://unused', SESSION_SECRET: 'bench' }, { smtp: { host: '127.0.0.1', port: 1, from: 'x@example.test' } });
