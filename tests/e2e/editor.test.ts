@@ -5,6 +5,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
+import { makeSchedule } from '../helpers/boards.js';
+import { TEST_PASSWORD, uniqueEmail } from '../helpers/app.js';
+import { hashPassword } from '../../server/auth/passwords.js';
+import { users } from '../../server/db/schema.js';
 
 let app: BrowserApp;
 beforeAll(async () => { app = await startBrowserApp(); });
@@ -14,6 +18,22 @@ afterAll(async () => { await app?.close(); });
 async function choose(page: Page, cell: string, option: string): Promise<void> {
   await page.locator(`td[data-cell="${cell}"] .ant-select-selector`).click();
   await page.locator(`.ant-select-dropdown:not(.ant-select-dropdown-hidden) .ant-select-item-option[title="${option}"]`).click();
+}
+
+/** Writes through the page's own session, as the API client the editor uses would. */
+async function api(page: Page, method: 'POST' | 'PUT', path: string, data: unknown) {
+  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const res = await page.request.fetch(path, { method, headers: { 'X-CSRF-Token': token }, data });
+  if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
+  return res.json();
+}
+
+/** A board made through the API from the shared fixture, at revision 2. */
+async function boardWithCircuits(page: Page, circuits: number): Promise<number> {
+  const schedule = makeSchedule(circuits, 'Kitchen extension board');
+  const { id } = await api(page, 'POST', '/api/boards', { name: schedule.board.name });
+  await api(page, 'PUT', `/api/boards/${id}/schedule`, { ...schedule, baseRevision: 1 });
+  return id as number;
 }
 
 const finding = (page: Page, code: string) => page.locator(`.board-findings [data-finding-code="${code}"]`);
@@ -90,5 +110,52 @@ describe('building a board in the editor', () => {
 
     expect(app.pageErrors).toEqual([]);
     expect(app.outsideRequests).toEqual([]);
+  }, 180_000);
+
+  it('when someone else saved meanwhile, then Save offers to re-apply my edit onto their copy, and both edits are kept', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const boardId = await boardWithCircuits(page, 3);
+    await page.goto(`/boards/${boardId}`);
+    const myLabel = page.locator('td[data-cell="label-c1"] input');
+    await myLabel.fill('Hall sockets');
+
+    // Another save lands first, on a different circuit.
+    const theirs = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    theirs.circuits[2].label = 'Landing lights';
+    const { id: _id, revision, updatedAt: _u, code: _c, siteId: _s, ...schedule } = theirs;
+    await api(page, 'PUT', `/api/boards/${boardId}/schedule`, { ...schedule, baseRevision: revision });
+
+    await page.getByTestId('save').click();
+    await page.getByText('Someone else saved this board').waitFor();
+    await page.getByRole('button', { name: 'Reload and re-apply my changes' }).click();
+    await page.getByText('1 of your changes are now on the newer version').waitFor();
+    await page.getByRole('button', { name: 'Review and save' }).click();
+    expect(await page.locator('td[data-cell="label-c3"] input').inputValue()).toBe('Landing lights');
+    expect(await myLabel.inputValue()).toBe('Hall sockets');
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 4' }).waitFor();
+
+    const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    expect(saved.circuits.map((c: { label: string }) => c.label)).toEqual(['Hall sockets', theirs.circuits[1].label, 'Landing lights']);
+  }, 180_000);
+
+  it('when a viewer opens a board, then everything is shown and nothing can be changed', async () => {
+    const { page: ownerPage } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const boardId = await boardWithCircuits(ownerPage, 2);
+    const me = await (await ownerPage.request.get('/api/auth/me')).json();
+    const email = uniqueEmail('viewer');
+    await app.database.db.insert(users).values({ organisationId: me.organisation.id, email, name: 'Test Viewer', role: 'viewer', passwordHash: await hashPassword(TEST_PASSWORD) });
+    const page = await app.newPage({ viewport: { width: 820, height: 1180 } });
+    await api(page, 'POST', '/api/auth/login', { email, password: TEST_PASSWORD });
+
+    await page.goto(`/boards/${boardId}`);
+    const label = page.locator('td[data-cell="label-c1"] input');
+    await label.waitFor();
+    expect(await label.inputValue()).toBe(makeSchedule(2).circuits[0].label);
+    expect(await label.isDisabled()).toBe(true);
+    expect(await page.getByTestId('save').count()).toBe(0);
+    expect(await page.getByRole('button', { name: 'Add circuit' }).count()).toBe(0);
+    await page.getByText('Read only').waitFor();
+    await page.locator('.board-findings').getByText('These checks help').waitFor();
   }, 180_000);
 });
