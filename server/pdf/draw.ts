@@ -7,7 +7,7 @@ import {
   PDFDocument, closePath, degrees, fill, fillAndStroke, lineTo, moveTo, popGraphicsState, pushGraphicsState, rectangle,
   rgb, setDashPattern, setFillingRgbColor, setLineWidth, setStrokingRgbColor, stroke, type PDFFont, type PDFImage, type PDFOperator, type PDFPage,
 } from 'pdf-lib';
-import { cachingFontkit, fontBytes } from './fonts.js';
+import { cachingFontkit, fontBytes, unshaped } from './fonts.js';
 import type { Color, FontFace, Item, LayoutDoc, Point } from './model.js';
 
 /** Points per millimetre. // ISO 32000-1 8.3.2.1: 1 pt = 1/72 in */
@@ -74,7 +74,13 @@ async function embedImages(doc: PDFDocument, layout: LayoutDoc): Promise<Map<Uin
 
 function drawItem(page: PDFPage, item: Item, f: Frame, fonts: Map<FontFace, PDFFont>, images: Map<Uint8Array, PDFImage>, ops: PDFOperator[]): void {
   if (item.kind === 'text') {
-    page.drawText(item.text, { x: px(f, item.x), y: py(f, item.y), size: item.sizePt, font: fonts.get(item.face)!, color: rgb(...item.color), rotate: degrees(-item.rotation) });
+    const options = { x: px(f, item.x), y: py(f, item.y), size: item.sizePt, font: fonts.get(item.face)!, color: rgb(...item.color), rotate: degrees(-item.rotation) };
+    try {
+      page.drawText(item.text, options);
+    } catch {
+      // fontkit cannot shape some scripts; layout already avoids them, this keeps a stray one from failing the print.
+      page.drawText(unshaped(item.text), options);
+    }
   } else if (item.kind === 'image') {
     const b = item.box;
     page.drawImage(images.get(item.bytes)!, { x: px(f, b.x), y: py(f, b.y + b.h), width: b.w * PT_PER_MM, height: b.h * PT_PER_MM });
@@ -92,15 +98,20 @@ function pushAll(page: PDFPage, ops: PDFOperator[]): void {
   for (let i = 0; i < ops.length; i += 4096) page.pushOperators(...ops.slice(i, i + 4096));
 }
 
+export interface DrawOptions {
+  /** Embed only the glyphs used (default). Full embedding exists to check subsets against. */
+  subsetFonts?: boolean;
+}
+
 /** Draw a layout into a new PDF; `offsetMm` is the printer's feed correction (x right, y down). */
-export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm: number }): Promise<Uint8Array> {
+export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm: number }, options: DrawOptions = {}): Promise<Uint8Array> {
   const doc = await PDFDocument.create({ updateMetadata: false });
   doc.registerFontkit(cachingFontkit);
   doc.setTitle(layout.title);
   doc.setProducer('Waymark');
   doc.setCreator('Waymark');
   const fonts = new Map<FontFace, PDFFont>();
-  for (const face of facesUsed(layout)) fonts.set(face, await doc.embedFont(fontBytes(face), { subset: true }));
+  for (const face of facesUsed(layout)) fonts.set(face, await doc.embedFont(fontBytes(face), { subset: options.subsetFonts ?? true }));
   const images = await embedImages(doc, layout);
   for (const p of layout.pages) {
     const page = doc.addPage([p.widthMm * PT_PER_MM, p.heightMm * PT_PER_MM]);

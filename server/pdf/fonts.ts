@@ -51,7 +51,7 @@ function parsed(face: FontFace): FontkitFont {
 }
 
 /** Code points drawn glyph by glyph with no shaping: Latin, Greek, punctuation, super/subscripts, currency, symbols, maths. */
-function isSimple(cp: number): boolean {
+export function isSimple(cp: number): boolean {
   return cp < 0x0300 || (cp >= 0x0370 && cp < 0x0400) || (cp >= 0x2000 && cp < 0x2300 && (cp < 0x20d0 || cp > 0x20ff));
 }
 
@@ -87,14 +87,51 @@ function shapedWidth(text: string, face: FontFace, font: FontkitFont): number {
   const key = `${face}\u0000${text}`;
   let w = shapedCache.get(key);
   if (w === undefined) {
-    w = font.layout(text).glyphs.reduce((s, g) => s + g.advanceWidth, 0) / font.unitsPerEm;
+    try {
+      w = font.layout(text).glyphs.reduce((s, g) => s + g.advanceWidth, 0) / font.unitsPerEm;
+    } catch {
+      w = Array.from(text).reduce((s, ch) => s + font.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth, 0) / font.unitsPerEm;
+    }
     if (shapedCache.size >= SHAPED_CACHE_MAX) shapedCache.clear();
     shapedCache.set(key, w);
   }
   return w;
 }
 
+const REPLACEMENT = '\ufffd';
+const printableCache = new Map<string, string>();
+
+/**
+ * Text the face can draw: code points it has no glyph for become U+FFFD, and a string whose
+ * shaping this fontkit cannot run (it throws for some scripts) keeps only the unshaped characters.
+ * pdf-lib would otherwise fail on the same string when drawing it.
+ */
+function printable(text: string, face: FontFace): string {
+  const key = `${face}\u0000${text}`;
+  const known = printableCache.get(key);
+  if (known !== undefined) return known;
+  const font = parsed(face);
+  let out = '';
+  let simple = true;
+  for (const ch of text) {
+    const cp = ch.codePointAt(0)!;
+    out += font.hasGlyphForCodePoint(cp) ? ch : REPLACEMENT;
+    if (!isSimple(cp)) simple = false;
+  }
+  if (!simple) {
+    try { font.layout(out); } catch { out = unshaped(out); }
+  }
+  if (printableCache.size >= SHAPED_CACHE_MAX) printableCache.clear();
+  printableCache.set(key, out);
+  return out;
+}
+
 let metrics: TypeMetrics | null = null;
+
+/** Fallback for drawing a string fontkit cannot shape: every shaped character becomes U+FFFD. */
+export function unshaped(text: string): string {
+  return Array.from(text, (ch) => (isSimple(ch.codePointAt(0)!) ? ch : REPLACEMENT)).join('');
+}
 
 /** The metrics every layout measures with (DejaVu faces share one ascender and descender). */
 export function typeMetrics(): TypeMetrics {
@@ -102,6 +139,6 @@ export function typeMetrics(): TypeMetrics {
   const faces: FontFace[] = ['regular', 'bold', 'condensed', 'condensed-bold'];
   const ascent = Math.max(...faces.map((f) => parsed(f).ascent / parsed(f).unitsPerEm));
   const descent = Math.max(...faces.map((f) => -parsed(f).descent / parsed(f).unitsPerEm));
-  metrics = { ascent, descent, measure: (text, face, sizePt) => emWidth(text, face) * sizePt * MM_PER_PT };
+  metrics = { ascent, descent, printable, measure: (text, face, sizePt) => emWidth(text, face) * sizePt * MM_PER_PT };
   return metrics;
 }

@@ -69,6 +69,8 @@ export type Measure = (text: string, face: FontFace, sizePt: number) => number;
 /** What layout needs to know about the fonts: widths, and the vertical extent per point of size. */
 export interface TypeMetrics {
   measure: Measure;
+  /** The text as the face can draw it (missing glyphs replaced); layout only ever places such text. */
+  printable: (text: string, face: FontFace) => string;
   /** Ascender and descender as fractions of the em (positive). */
   ascent: number;
   descent: number;

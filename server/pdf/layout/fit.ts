@@ -110,7 +110,7 @@ function wrapAt(words: string[], wordWidths1: number[], space1: number, widthMm:
 
 /** Wrap `text` to `widthMm` at one size, keeping at most `maxLines` (the last cut with an ellipsis). */
 export function wrapText(raw: string, widthMm: number, face: FontFace, sizePt: number, tm: TypeMetrics, maxLines = Infinity): { lines: string[]; cut: boolean } {
-  const text = cleanText(raw);
+  const text = tm.printable(cleanText(raw), face);
   if (!text) return { lines: [], cut: false };
   const words = text.split(' ');
   const widths = words.map((w) => tm.measure(w, face, 1));
@@ -176,7 +176,7 @@ function placeLines(lines: string[], sizePt: number, w: number, h: number, style
  * to be cut with an ellipsis (or left out because nothing fits): the caller warns, naming the label.
  */
 export function fitText(raw: string, cell: Box, style: FitStyle, tm: TypeMetrics, rotation: Rotation = 0): FitResult {
-  const text = cleanText(raw);
+  const text = tm.printable(cleanText(raw), style.face);
   const inner = insetBox(cell, style.padMm ?? 0);
   const turned = rotation === 90 || rotation === 270;
   const w = turned ? inner.h : inner.w;

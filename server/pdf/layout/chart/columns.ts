@@ -57,7 +57,7 @@ function zsCell(c: Circuit, f: ChartFacts): Paragraph[] {
   if (measured == null) return dash();
   const max = f.maxZs?.[c.id];
   const over = max != null && c.measuredZs! > max;
-  return [{ text: over ? `${measured} over` : measured, face: over ? 'bold' : 'regular', color: over ? RED : undefined }];
+  return over ? [{ text: measured, face: 'bold', color: RED }, { text: 'over max', face: 'regular', color: RED }] : [{ text: measured, face: 'regular' }];
 }
 
 /** Column order and relative widths (the way column is fixed-width). */
@@ -69,5 +69,5 @@ export const chartColumns: Column[] = [
   { header: 'RCD', weight: 12, maxLines: 3, cell: rcdCell },
   { header: 'Cable', weight: 17, maxLines: 4, cell: cableCell },
   { header: 'Max Zs (Ω)', weight: 9, maxLines: 2, cell: (c, f) => { const v = ohms(f.maxZs?.[c.id]); return v ? [{ text: v, face: 'regular' }] : dash(); } },
-  { header: 'Zs (Ω)', weight: 8.5, maxLines: 2, cell: zsCell },
+  { header: 'Zs (Ω)', weight: 8.5, maxLines: 3, cell: zsCell },
 ];

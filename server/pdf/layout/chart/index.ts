@@ -78,7 +78,7 @@ export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
   closeRules();
   y += 1.5 * k;
   const notes: Line[] = [
-    { text: 'Max Zs: the highest earth fault loop impedance at which the circuit’s device still disconnects in time (BS 7671 Chapter 41). Zs: as measured; “over” marks a reading above the maximum.', face: 'regular', sizePt: 6 * k, color: GREY },
+    { text: 'Max Zs: the highest earth fault loop impedance at which the circuit’s device still disconnects in time (BS 7671 Chapter 41). Zs: as measured; “over max” marks a reading above the maximum.', face: 'regular', sizePt: 6 * k, color: GREY },
     ...(ctx.options.showFindings ? [{ text: `Findings at revision ${ctx.req.board.revision}`, face: 'bold' as const, sizePt: 8.5 * k, maxLines: 1 }] : []),
     ...findingParagraphs(ctx).map((p): Line => ({ text: p.text, face: p.face, sizePt: 7 * k, color: p.color, maxLines: 6 })),
   ];

@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { layoutOutput, LayoutError, renderOutput } from '../../../server/pdf/index.js';
+import { RED } from '../../../server/pdf/model.js';
+import { boardSchedule, request, tenCircuitBoard } from './fixtures.js';
+import { pdfText, runsOutside, textRuns } from './helpers.js';
+
+describe('circuit chart', () => {
+  it('when ten circuits print on A4, then one page holds the header, every way, the findings and the caution', () => {
+    const layout = layoutOutput(request('chart', 'a4'));
+    expect(layout.pages).toHaveLength(1);
+    const text = textRuns(layout).map((r) => r.text).join(' ');
+    for (const part of ['Circuit chart', 'Main consumer unit', 'Brightwell & Daughters Electrical', 'Supply: TN-C-S', 'RCD 2', 'Findings at revision 6', 'Caution:']) expect(text).toContain(part);
+    expect(runsOutside(layout)).toEqual([]);
+  });
+
+  it('when a hundred circuits print, then the table runs over pages with its header row and the board named on each', async () => {
+    const schedule = boardSchedule(100);
+    const req = request('chart', 'a4', {}, schedule);
+    const layout = layoutOutput(req);
+    expect(layout.pages.length).toBeGreaterThan(3);
+    layout.pages.forEach((page, i) => {
+      const texts = page.items.filter((it) => it.kind === 'text').map((it) => (it.kind === 'text' ? it.text : ''));
+      expect(texts.join(' ')).toContain('Max Zs');
+      expect(texts.join(' ')).toContain(`page ${i + 1} of ${layout.pages.length}`);
+      if (i > 0) expect(texts.join(' ')).toContain('(continued)');
+    });
+    expect(runsOutside(layout)).toEqual([]);
+    const text = (await pdfText((await renderOutput(req)).pdf)).replace(/\s+/g, ' ');
+    for (const c of schedule.circuits) expect(text).toContain(c.label);
+  });
+
+  it('when a description is long, then it wraps inside its cell and the row grows to hold it', () => {
+    const schedule = tenCircuitBoard();
+    schedule.circuits[3].description = 'Cooker control unit beside the hob, with the oven spur behind the tall larder unit and a second switch by the back door for the hob extractor';
+    const layout = layoutOutput(request('chart', 'a4', {}, schedule));
+    const cooker = textRuns(layout).filter((r) => /hob|oven|larder|extractor/.test(r.text));
+    expect(cooker.length).toBeGreaterThanOrEqual(3);
+    expect(new Set(cooker.map((r) => r.cell.y)).size).toBe(1);
+    expect(runsOutside(layout)).toEqual([]);
+  });
+
+  it('when the chart goes on A5, landscape or a board-door size, then it lays out within that page', () => {
+    for (const media of ['a5', 'a4-landscape', 'a5-landscape', 'custom-250x180']) {
+      const layout = layoutOutput(request('chart', media));
+      expect(runsOutside(layout)).toEqual([]);
+      expect(layout.pages[0].widthMm).toBe(request('chart', media).medium.kind === 'page' ? (request('chart', media).medium as { widthMm: number }).widthMm : 0);
+    }
+  });
+
+  it('when findings are switched off, then the chart leaves them out', () => {
+    const text = textRuns(layoutOutput(request('chart', 'a4', { showFindings: false }))).map((r) => r.text).join(' ');
+    expect(text).not.toContain('Findings at revision');
+    expect(text).not.toContain('Zs was measured cold');
+  });
+
+  it('when a measured Zs is above the maximum passed in, then it is marked', () => {
+    const req = { ...request('chart', 'a4'), maxZsByCircuit: { c7: 0.3 } };
+    const runs = textRuns(layoutOutput(req));
+    expect(runs.find((r) => r.text === '0.38')?.color).toEqual(RED);
+    expect(runs.filter((r) => r.color === RED).map((r) => r.text).join(' ')).toBe('0.38 over max');
+  });
+
+  it('when the chart is asked for on tape or a page too small, then a LayoutError says what to choose', () => {
+    expect(() => layoutOutput(request('chart', 'tape-24'))).toThrow(LayoutError);
+    expect(() => layoutOutput(request('chart', 'custom-100x100'))).toThrow(/at least 120/);
+  });
+});
