@@ -74,7 +74,9 @@ export const useBoardStore = defineStore('board', () => {
     updatedAt.value = fresh.updatedAt;
   }
 
+  /** Loads a board; reloading the same board keeps the old copy on screen until the fresh one arrives. */
   async function load(id: number): Promise<void> {
+    if (id !== boardId.value) { working.value = null; loaded.value = null; }
     boardId.value = id;
     status.value = 'loading';
     error.value = null;

@@ -3,6 +3,7 @@
  * appears while typing, and the saved board coming back the same after a reload.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { readFile } from 'node:fs/promises';
 import type { Page } from 'playwright-core';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
 import { makeSchedule } from '../helpers/boards.js';
@@ -157,5 +158,44 @@ describe('building a board in the editor', () => {
     expect(await page.getByRole('button', { name: 'Add circuit' }).count()).toBe(0);
     await page.getByText('Read only').waitFor();
     await page.locator('.board-findings').getByText('These checks help').waitFor();
+  }, 180_000);
+
+  it('when a board file is exported and imported through the screens, then the copy is identical; a bad circuit CSV is refused with its rows listed', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const boardId = await boardWithCircuits(page, 2);
+    await page.goto(`/boards/${boardId}`);
+    await page.locator('td[data-cell="label-c1"] input').waitFor();
+
+    await page.getByRole('button', { name: 'More' }).click();
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('menuitem', { name: 'Export board file' }).click()]);
+    const file = await download.path();
+    const exported = JSON.parse(await readFile(file, 'utf8'));
+    expect(exported).toMatchObject({ format: 1, kind: 'waymark-board' });
+
+    await page.goto('/boards');
+    await page.getByRole('button', { name: 'Import board file' }).click();
+    await page.locator('input[aria-label="Board file"]').setInputFiles(file);
+    await page.getByRole('button', { name: 'Import', exact: true }).click();
+    await page.waitForURL((url) => /^\/boards\/\d+$/.test(url.pathname) && url.pathname !== `/boards/${boardId}`);
+    const copyId = Number(new URL(page.url()).pathname.split('/').pop());
+    const [original, copy] = await Promise.all([boardId, copyId].map(async (id) => (await page.request.get(`/api/boards/${id}/schedule`)).json()));
+    expect({ board: copy.board, devices: copy.devices, circuits: copy.circuits }).toEqual({ board: original.board, devices: original.devices, circuits: original.circuits });
+
+    // A CSV with two bad rows: nothing is imported and both rows are named (the header is row 1).
+    await page.locator('td[data-cell="label-c1"] input').waitFor();
+    await page.getByRole('button', { name: 'More' }).click();
+    await page.getByRole('menuitem', { name: 'Import circuits (CSV)…' }).click();
+    const csv = (text: string) => ({ name: 'circuits.csv', mimeType: 'text/csv', buffer: Buffer.from(text) });
+    await page.getByTestId('csv-file').setInputFiles(csv('way,label,live_csa\n1,Kitchen sockets,thick\n2,,2.5\n'));
+    await page.getByRole('button', { name: 'Import circuits' }).click();
+    await page.locator('.board-faults [data-path="rows.2.live_csa"]').waitFor();
+    await page.locator('.board-faults [data-path="rows.3.label"]').waitFor();
+    expect((await (await page.request.get(`/api/boards/${copyId}/schedule`)).json()).revision).toBe(copy.revision);
+
+    await page.getByTestId('csv-file').setInputFiles(csv('way,label\n1,Porch lights\n'));
+    await page.getByRole('button', { name: 'Import circuits' }).click();
+    await page.getByText('Circuits imported').waitFor();
+    expect(await page.locator('tbody tr[data-circuit-id]').count()).toBe(1);
+    expect(await page.locator('tbody tr[data-circuit-id] td[data-cell^="label-"] input').inputValue()).toBe('Porch lights');
   }, 180_000);
 });
