@@ -1,0 +1,78 @@
+/**
+ * Typed calls to the print API: PDFs with their warnings, the pack, the print history, sheet
+ * layouts and the printer offset. JSON responses are parsed with the shared schemas.
+ */
+import { z } from 'zod';
+import { json, request, send } from './http.js';
+import type { PrintOutput, PrintWarning, SheetLayout } from '../../shared/schemas/print.js';
+import {
+  printCheckSchema, printHistorySchema, printOffsetSchema, printWarningSchema, sheetLayoutListSchema,
+  sheetLayoutRecordSchema, type PrintOffset,
+} from '../../shared/schemas/print-records.js';
+
+export type { PrintRecord, SheetLayoutRecord, PrintOffset } from '../../shared/schemas/print-records.js';
+
+/** What the print page asks for: an output, a medium and the output's options as query values. */
+export interface PrintSelection {
+  output: PrintOutput;
+  media: string;
+  options: Record<string, string>;
+}
+
+/** The query string for a selection; empty option values are left out so the server's defaults apply. */
+export function printQuery(selection: PrintSelection, record = false): string {
+  const search = new URLSearchParams({ media: selection.media });
+  for (const [k, v] of Object.entries(selection.options)) if (v !== '') search.set(k, v);
+  if (record) search.set('record', '1');
+  return search.toString();
+}
+
+export const pdfPath = (boardId: number, selection: PrintSelection, record = false) =>
+  `/api/boards/${boardId}/pdf/${selection.output}?${printQuery(selection, record)}`;
+
+export interface FetchedPdf { blob: Blob; warnings: PrintWarning[]; pageCount: number; fileName: string }
+
+function fileNameOf(res: Response, fallback: string): string {
+  const m = /filename="([^"]+)"/.exec(res.headers.get('Content-Disposition') ?? '');
+  return m ? m[1] : fallback;
+}
+
+/** The warnings header is URI-encoded JSON; a header that does not parse is reported, not hidden. */
+export function warningsFromHeader(value: string | null): PrintWarning[] {
+  if (!value) return [];
+  try {
+    return z.array(printWarningSchema).parse(JSON.parse(decodeURIComponent(value)));
+  } catch {
+    return [{ code: 'unreadable-warnings', message: 'The warnings for this print could not be read' }];
+  }
+}
+
+/** The real PDF for the preview (record off) or for a download or print (record on). */
+export async function fetchPdf(boardId: number, selection: PrintSelection, opts: { record?: boolean; signal?: AbortSignal } = {}): Promise<FetchedPdf> {
+  const res = await request('GET', pdfPath(boardId, selection, opts.record), { signal: opts.signal });
+  return {
+    blob: await res.blob(),
+    warnings: warningsFromHeader(res.headers.get('X-Waymark-Warnings')),
+    pageCount: Number(res.headers.get('X-Waymark-Page-Count') ?? 0),
+    fileName: fileNameOf(res, `${selection.output}-${selection.media}.pdf`),
+  };
+}
+
+export const checkPrint = (boardId: number, selection: PrintSelection) =>
+  json(printCheckSchema, 'GET', `/api/boards/${boardId}/pdf/${selection.output}/warnings?${printQuery(selection)}`);
+
+/** Every output for the board in one ZIP; the server records each file as a print. */
+export async function fetchPack(boardId: number): Promise<{ blob: Blob; fileName: string }> {
+  const res = await request('GET', `/api/boards/${boardId}/pack`);
+  return { blob: await res.blob(), fileName: fileNameOf(res, `board-${boardId}-pack.zip`) };
+}
+
+export const listPrints = (boardId: number) => json(printHistorySchema, 'GET', `/api/boards/${boardId}/prints`);
+
+export const listSheetLayouts = () => json(sheetLayoutListSchema, 'GET', '/api/sheet-layouts');
+export const createSheetLayout = (layout: SheetLayout) => json(sheetLayoutRecordSchema, 'POST', '/api/sheet-layouts', { body: layout });
+export const updateSheetLayout = (id: number, layout: SheetLayout) => json(sheetLayoutRecordSchema, 'PUT', `/api/sheet-layouts/${id}`, { body: layout });
+export const deleteSheetLayout = (id: number) => send('DELETE', `/api/sheet-layouts/${id}`);
+
+export const getPrintOffset = () => json(printOffsetSchema, 'GET', '/api/print-settings/offset');
+export const setPrintOffset = (offset: PrintOffset) => json(printOffsetSchema, 'PUT', '/api/print-settings/offset', { body: offset });

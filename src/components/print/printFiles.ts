@@ -1,0 +1,38 @@
+/**
+ * Handing a fetched file to the browser: save it under the server's file name, or open the
+ * browser's print dialog on it.
+ */
+
+/** Saves a blob as a download. */
+export function saveBlob(blob: Blob, fileName: string): void {
+  const url = URL.createObjectURL(blob);
+  const a = document.createElement('a');
+  a.href = url;
+  a.download = fileName;
+  document.body.append(a);
+  a.click();
+  a.remove();
+  setTimeout(() => URL.revokeObjectURL(url), 60_000);
+}
+
+/**
+ * Opens the print dialog on a PDF through a hidden frame; where the browser will not print a
+ * framed PDF, the PDF opens in a new tab to print from there.
+ */
+export function printBlob(blob: Blob): void {
+  const url = URL.createObjectURL(blob);
+  const frame = document.createElement('iframe');
+  frame.style.cssText = 'position:fixed;right:0;bottom:0;width:1px;height:1px;border:0;opacity:0';
+  frame.title = 'PDF to print';
+  frame.src = url;
+  frame.addEventListener('load', () => {
+    try {
+      frame.contentWindow?.focus();
+      frame.contentWindow?.print();
+    } catch {
+      window.open(url, '_blank', 'noopener');
+    }
+  });
+  document.body.append(frame);
+  setTimeout(() => { frame.remove(); URL.revokeObjectURL(url); }, 10 * 60_000);
+}
