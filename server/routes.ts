@@ -12,6 +12,7 @@ import { boardRoutes } from './boards/routes.js';
 import { publicRoutes, sharingRoutes } from './public/routes.js';
 import { reportRoutes } from './reports/routes.js';
 import { logoRoutes, photoRoutes } from './uploads/routes.js';
+import { handoverRoutes } from './handover/routes.js';
 
 export function apiRoutes(ctx: AppContext): Router {
   const api = Router();
@@ -34,5 +35,6 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use('/boards/:id/reports', reportRoutes(ctx));
   api.use('/boards/:id/photos', photoRoutes(ctx));
   api.use('/organisation/logo', logoRoutes(ctx));
+  api.use('/boards/:id', handoverRoutes(ctx));
   return api;
 }
