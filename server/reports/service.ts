@@ -12,9 +12,10 @@ import { boardForToken } from '../public/service.js';
 import { reportMail } from './messages.js';
 import * as repo from './repository.js';
 
-/** The report's text as stored: the way it names, if any, leads the message. */
+/** The report's text as stored: the way it names, if any, leads the message (unless the visitor already began with it). */
 function storedMessage(input: ReportSubmit): string {
-  return input.way != null ? `Way ${input.way}: ${input.message}` : input.message;
+  if (input.way == null || new RegExp(`^\\s*way\\s*${input.way}\\b`, 'i').test(input.message)) return input.message;
+  return `Way ${input.way}: ${input.message}`;
 }
 
 async function notifyOrganisation(ctx: AppContext, to: string[], mail: { subject: string; text: string }): Promise<void> {

@@ -37,6 +37,11 @@ describe('discrepancy reports from the board page', () => {
     expect(list.items).toHaveLength(1);
     expect(list.items[0]).toMatchObject({ message: 'Way 3: This also feeds the shed lights', reporterName: 'Ffion Marsh', reporterContact: '01632 960777', status: 'open' });
     expect((await owner.get(`/api/boards/${board.id}/sharing`).expect(200)).body.openReports).toBe(1);
+
+    // A visitor who already began with the way is not repeated.
+    await visitor.post(`/api/public/boards/${board.token}/reports`, { message: 'way 3 has no label', way: 3 }).expect(202);
+    const after = reportListSchema.parse((await owner.get(`/api/boards/${board.id}/reports`).expect(200)).body);
+    expect(after.items[0].message).toBe('way 3 has no label');
   });
 
   it('when the organisation has no contact address, then the report goes to its owners', async () => {
