@@ -2,6 +2,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
 import { uniqueEmail } from '../helpers/app.js';
+import { organisationSettingsSchema } from '../../shared/schemas/auth.js';
+import { fieldErrors } from '../../shared/schemas/errors.js';
 
 let app: BrowserApp;
 beforeAll(async () => { app = await startBrowserApp(); });
@@ -10,6 +12,13 @@ afterAll(async () => { await app?.close(); });
 async function chooseOption(page: Page, select: ReturnType<Page['locator']>, label: string) {
   await select.click();
   await page.locator('.ant-select-dropdown:visible .ant-select-item-option', { hasText: label }).click();
+}
+
+/** What the shared schema says about a contact e-mail: the form must show the same words. */
+function contactEmailMessage(value: string): string {
+  const result = organisationSettingsSchema.pick({ contactEmail: true }).safeParse({ contactEmail: value });
+  if (result.success) throw new Error(`the schema accepts ${value}`);
+  return fieldErrors(result.error).contactEmail;
 }
 
 async function mainNavigation(page: Page): Promise<string[]> {
@@ -87,5 +96,27 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     expect((await member.request.get('/api/auth/me')).status()).toBe(401);
     await member.reload();
     await member.waitForURL((url) => url.pathname === '/signin');
+  });
+
+  it('when the owner saves the organisation details, then a bad e-mail is named beside its field and good ones reach the header', async () => {
+    const owner = await signedInOwnerPage(app, 'Halyard Test Electrical');
+    const page = owner.page;
+    await page.goto('/settings/organisation');
+    const name = page.getByLabel('Organisation name');
+    await name.waitFor();
+    await page.getByLabel('Contact e-mail').fill('office-at-halyard');
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.locator('.ant-form-item-has-error', { has: page.getByLabel('Contact e-mail') }).getByText(contactEmailMessage('office-at-halyard')).waitFor();
+
+    await name.fill('Halyard & Daughters Electrical');
+    await page.getByLabel('Contact phone').fill('01632 960 482'); // Ofcom's range kept for drama, never a real line (from memory)
+    await page.getByLabel('Contact e-mail').fill('office@halyard.example');
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByText('Saved.', { exact: false }).waitFor();
+    await page.getByTestId('chart-foot-preview').getByText('Tel. 01632 960 482').waitFor();
+    const account = page.getByRole('button', { name: 'Account menu for Test Owner' });
+    expect(await account.textContent()).toContain('Halyard & Daughters Electrical');
+    const saved = await (await page.request.get('/api/organisation')).json();
+    expect(saved).toMatchObject({ name: 'Halyard & Daughters Electrical', contactPhone: '01632 960 482', contactEmail: 'office@halyard.example' });
   });
 });
