@@ -2,7 +2,7 @@
  * Harness for real-browser tests: the real server (API and the built client from `dist/`)
  * on a free port of the throw-away MariaDB that `npm test` started, a capture SMTP server so
  * invitation and reset mail can be read, and Debian's Chromium driven by playwright-core.
- * It seeds nothing: each test signs up its own organisation. Build the client first:
+ * It adds no data of its own: each test signs up its own organisation. Build the client first:
  * `WAYMARK_BUILD=1 npm test -- tests/e2e/x.test.ts`.
  */
 import { existsSync } from 'node:fs';
