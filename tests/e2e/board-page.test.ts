@@ -108,7 +108,8 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     const routeJs = scripts.reduce((sum, s) => sum + s.gzip, 0);
     console.log(`board page route: ${scripts.length} scripts, ${(routeJs / 1024).toFixed(1)} KB gzipped:`, scripts.map((s) => `${new URL(s.url).pathname} ${s.gzip}`).join(', '));
     expect(scripts.some((s) => /antd|ant-design/i.test(s.url))).toBe(false);
-    expect(routeJs).toBeLessThanOrEqual(ROUTE_JS_BUDGET_GZIP);
+    // The entry chunk loads zod (~25 KB gzipped) only because the route guard imports the session store up front.
+    expect(routeJs, 'board page route JS (gzip) over the 80 KB budget: see which scripts above').toBeLessThanOrEqual(ROUTE_JS_BUDGET_GZIP);
   });
 
   it('when a visitor sends a report from the page, then the contractor gets it by e-mail', async () => {
@@ -119,7 +120,12 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     const page = await app.newPage({ viewport: PHONE });
     page.setDefaultTimeout(60_000);
     await page.goto(`/b/${token}`);
-    await page.getByLabel('What does not match? (required)').fill('Way 8 also feeds the shed lights');
+    await page.getByRole('button', { name: 'Tell Brightwire Test Electrical' }).click();
+    const message = page.getByLabel('What does not match? (required)');
+    await message.waitFor();
+    const axe = await new AxeBuilder({ page }).analyze();
+    expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual([]);
+    await message.fill('Way 8 also feeds the shed lights');
     await page.getByLabel('Which way? (optional)').selectOption('8');
     await page.getByRole('button', { name: 'Send report' }).click();
     await page.getByText(/Your report has gone to Brightwire Test Electrical/).waitFor();
