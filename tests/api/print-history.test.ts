@@ -1,20 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
-import type { Response } from 'superagent';
 import { client, signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
 import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
+import { getPdf } from './print-support.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });
 afterAll(async () => { await t.close(); });
-
-const binary = (res: Response, done: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
-const getPdf = (c: Client, path: string) => c.get(path).buffer(true).parse(binary as never);
 
 async function pdfText(pdf: Buffer): Promise<{ pages: string[]; all: string }> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });

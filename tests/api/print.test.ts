@@ -1,59 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { PDFParse } from 'pdf-parse';
-import { PDFDocument } from 'pdf-lib';
-import type { Response } from 'superagent';
-import { execFileSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { PDFDocument, PDFName, PDFRawStream } from 'pdf-lib';
 import { PNG } from 'pngjs';
-import { client, signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
+import jsQR from 'jsqr';
+import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.js';
 import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { scheduleSchema, type Schedule } from '../../shared/schemas/schedule.js';
+import { files } from '../../server/db/schema.js';
+import { getPdf, inkBox, MM, pdfPages, renderPage } from './print-support.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });
 afterAll(async () => { await t.close(); });
-
-/** Collects a binary body (supertest leaves unknown types unbuffered). */
-const binary = (res: Response, done: (err: Error | null, body: Buffer) => void) => {
-  const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => done(null, Buffer.concat(chunks)));
-};
-const getPdf = (c: Client, path: string) => c.get(path).buffer(true).parse(binary as never);
-
-async function pdfPages(pdf: Buffer): Promise<string[]> {
-  const parser = new PDFParse({ data: new Uint8Array(pdf) });
-  try {
-    return (await parser.getText()).pages.map((p) => p.text.replace(/\s+/g, ' '));
-  } finally {
-    await parser.destroy();
-  }
-}
-
-/** Left and top edge (px) of the ink on page 1, rendered at 100 dpi by poppler's pdftoppm (independent of pdf-lib). */
-function inkBox(pdf: Buffer): { left: number; top: number } {
-  const dir = mkdtempSync(join(tmpdir(), 'waymark-ink-'));
-  try {
-    writeFileSync(join(dir, 'in.pdf'), pdf);
-    execFileSync('/usr/bin/pdftoppm', ['-r', '100', '-f', '1', '-l', '1', '-singlefile', '-png', join(dir, 'in.pdf'), join(dir, 'out')]);
-    const png = PNG.sync.read(readFileSync(join(dir, 'out.png')));
-    let left = png.width;
-    let top = png.height;
-    for (let y = 0; y < png.height; y++) {
-      for (let x = 0; x < png.width; x++) {
-        const i = (y * png.width + x) * 4;
-        if (png.data[i] < 128 && png.data[i + 1] < 128 && png.data[i + 2] < 128) { left = Math.min(left, x); top = Math.min(top, y); }
-      }
-    }
-    return { left, top };
-  } finally {
-    rmSync(dir, { recursive: true, force: true });
-  }
-}
-
-const MM = 72 / 25.4; // ISO 32000-1 8.3.2.1: 1/72 inch user unit
 
 async function ownerWithBoard(schedule: Schedule = makeSchedule(6)) {
   const owner = await signupOwner(t.app);
@@ -123,6 +80,39 @@ describe('printing each output of a stored board', () => {
   });
 });
 
+/** Image XObjects in a PDF (ISO 32000-1 8.9.5: a stream whose /Subtype is /Image). */
+async function imageCount(pdf: Buffer): Promise<number> {
+  const doc = await PDFDocument.load(pdf);
+  return doc.context.enumerateIndirectObjects()
+    .filter(([, o]) => o instanceof PDFRawStream && o.dict.get(PDFName.of('Subtype')) === PDFName.of('Image')).length;
+}
+
+describe('the board tag', () => {
+  it("when the tag is printed, then its QR code, read by an independent decoder, opens this board's public page", async () => {
+    const { owner, id } = await ownerWithBoard();
+    const { publicToken } = (await owner.get(`/api/boards/${id}`).expect(200)).body;
+    const res = await getPdf(owner, `/api/boards/${id}/pdf/tag?media=tape-24`).expect(200);
+    const png = renderPage(res.body, 600);
+    const decoded = jsQR.default(new Uint8ClampedArray(png.data), png.width, png.height); // ISO/IEC 18004 reader (jsQR)
+    expect(decoded?.data).toBe(`${t.ctx.config.publicBaseUrl}/b/${publicToken}`);
+  });
+});
+
+describe("the contractor's logo", () => {
+  it('when the organisation has uploaded a logo, then the chart carries it as an image', async () => {
+    const { owner, id } = await ownerWithBoard();
+    const without = await getPdf(owner, `/api/boards/${id}/pdf/chart`).expect(200);
+    expect(await imageCount(without.body)).toBe(0);
+    const png = new PNG({ width: 40, height: 20 });
+    png.data.fill(0x80);
+    const data = PNG.sync.write(png, { colorType: 2 }); // RGB without alpha, so no soft mask image beside it
+    const me = await owner.get('/api/auth/me').expect(200);
+    await t.database.db.insert(files).values({ organisationId: me.body.organisation.id, kind: 'logo', mime: 'image/png', size: data.length, data });
+    const withLogo = await getPdf(owner, `/api/boards/${id}/pdf/chart`).expect(200);
+    expect(await imageCount(withLogo.body)).toBe(1);
+  });
+});
+
 describe('bad print requests', () => {
   it('when the medium, an option or the output is wrong, then 400 names each field', async () => {
     const { owner, id } = await ownerWithBoard();
@@ -170,53 +160,5 @@ describe('who may print', () => {
     const { owner, id } = await ownerWithBoard();
     await owner.delete(`/api/boards/${id}`).expect(204);
     await owner.get(`/api/boards/${id}/pdf/chart`).expect(404);
-  });
-});
-
-describe('sheet layouts and printer offsets in prints', () => {
-  const sheet = {
-    name: 'A4 21-up', pageWidthMm: 210, pageHeightMm: 297, labelWidthMm: 63.5, labelHeightMm: 38.1, // ISO 216 A4; 63.5 × 38.1 labels // common practice
-    columns: 3, rows: 7, marginTopMm: 15.15, marginLeftMm: 7.25, gapXMm: 2.5, gapYMm: 0, cornerRadiusMm: 2,
-  };
-
-  it("when a stored sheet layout is the medium, then the page is the sheet's size; another organisation's layout is 404", async () => {
-    const { owner, id } = await ownerWithBoard();
-    const layout = await owner.post('/api/sheet-layouts', sheet).expect(201);
-    const res = await getPdf(owner, `/api/boards/${id}/pdf/flags?media=sheet-${layout.body.id}`).expect(200);
-    const page = (await PDFDocument.load(res.body)).getPage(0).getSize();
-    expect([page.width, page.height].map((v) => +(v / MM).toFixed(2))).toEqual([210, 297]); // ISO 216 A4
-    const other = await ownerWithBoard();
-    await other.owner.get(`/api/boards/${other.id}/pdf/flags?media=sheet-${layout.body.id}`).expect(404);
-  });
-
-  it('when the printer offset is set, then it is kept and the same print comes out shifted', async () => {
-    const { owner, id } = await ownerWithBoard();
-    const before = await getPdf(owner, `/api/boards/${id}/pdf/calibration?media=a4`).expect(200);
-    const saved = await owner.put('/api/print-settings/offset', { xMm: 1.5, yMm: -2 }).expect(200);
-    expect(saved.body).toEqual({ xMm: 1.5, yMm: -2 });
-    expect((await owner.get('/api/print-settings/offset').expect(200)).body).toEqual({ xMm: 1.5, yMm: -2 });
-    const after = await getPdf(owner, `/api/boards/${id}/pdf/calibration?media=a4`).expect(200);
-    const [a, b] = [inkBox(before.body), inkBox(after.body)];
-    // 100 dpi: 1 mm = 100 / 25.4 px (ISO 32000-1 user unit 1/72 in); allow a pixel of rounding
-    expect(Math.abs((b.left - a.left) - 1.5 * 100 / 25.4)).toBeLessThanOrEqual(1.5);
-    expect(Math.abs((b.top - a.top) - -2 * 100 / 25.4)).toBeLessThanOrEqual(1.5);
-  });
-
-  it('when the offset is out of range or a viewer sets it, then 400 with fields, or 403', async () => {
-    const { owner } = await ownerWithBoard();
-    const bad = await owner.put('/api/print-settings/offset', { xMm: 25, yMm: 'down' }).expect(400);
-    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['xMm', 'yMm']);
-    const viewer = await addMember(t, owner, 'viewer');
-    await viewer.put('/api/print-settings/offset', { xMm: 0, yMm: 0 }).expect(403);
-    await viewer.get('/api/print-settings/offset').expect(200);
-  });
-
-  it('when the calibration page is asked for from the settings, then it prints with no board and carries a 100 mm ruler', async () => {
-    const { owner } = await ownerWithBoard();
-    const res = await getPdf(owner, '/api/print-settings/calibration?media=a5').expect(200);
-    const page = (await PDFDocument.load(res.body)).getPage(0).getSize();
-    expect(page.width).toBeCloseTo(419.53, 2); // ISO 216 A5 148 mm
-    expect((await pdfPages(res.body)).join(' ')).toMatch(/100 mm/);
-    await owner.get('/api/print-settings/calibration?media=b5').expect(400);
   });
 });
