@@ -10,10 +10,14 @@ export const CODE128_QUIET_X = 10;
 /** Narrowest bar a 203 dpi thermal or office printer renders cleanly (mm). // common practice */
 export const CODE128_MIN_X_MM = 0.25;
 
-/** The bar pattern for `text` ("1" = a dark module). */
+/** The bar pattern for `text` ("1" = a dark module), or '' when Code 128 cannot carry it (non-ASCII). */
 export function code128Pattern(text: string): string {
   const target: { encodings?: Array<{ data: string }> } = {};
-  JsBarcode(target, text, { format: 'CODE128' });
+  try {
+    JsBarcode(target, text, { format: 'CODE128' });
+  } catch {
+    return '';
+  }
   return (target.encodings ?? []).map((e) => e.data).join('');
 }
 

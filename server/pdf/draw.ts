@@ -61,18 +61,23 @@ function facesUsed(layout: LayoutDoc): Set<FontFace> {
   return faces;
 }
 
-async function embedImages(doc: PDFDocument, layout: LayoutDoc): Promise<Map<Uint8Array, PDFImage>> {
-  const images = new Map<Uint8Array, PDFImage>();
+/** Images by their bytes; one that will not decode maps to null and is left off the page. */
+async function embedImages(doc: PDFDocument, layout: LayoutDoc): Promise<Map<Uint8Array, PDFImage | null>> {
+  const images = new Map<Uint8Array, PDFImage | null>();
   for (const page of layout.pages) {
     for (const i of page.items) {
       if (i.kind !== 'image' || images.has(i.bytes)) continue;
-      images.set(i.bytes, i.mime === 'image/png' ? await doc.embedPng(i.bytes) : await doc.embedJpg(i.bytes));
+      try {
+        images.set(i.bytes, i.mime === 'image/png' ? await doc.embedPng(i.bytes) : await doc.embedJpg(i.bytes));
+      } catch {
+        images.set(i.bytes, null);
+      }
     }
   }
   return images;
 }
 
-function drawItem(page: PDFPage, item: Item, f: Frame, fonts: Map<FontFace, PDFFont>, images: Map<Uint8Array, PDFImage>, ops: PDFOperator[]): void {
+function drawItem(page: PDFPage, item: Item, f: Frame, fonts: Map<FontFace, PDFFont>, images: Map<Uint8Array, PDFImage | null>, ops: PDFOperator[]): void {
   if (item.kind === 'text') {
     const options = { x: px(f, item.x), y: py(f, item.y), size: item.sizePt, font: fonts.get(item.face)!, color: rgb(...item.color), rotate: degrees(-item.rotation) };
     try {
@@ -83,7 +88,8 @@ function drawItem(page: PDFPage, item: Item, f: Frame, fonts: Map<FontFace, PDFF
     }
   } else if (item.kind === 'image') {
     const b = item.box;
-    page.drawImage(images.get(item.bytes)!, { x: px(f, b.x), y: py(f, b.y + b.h), width: b.w * PT_PER_MM, height: b.h * PT_PER_MM });
+    const image = images.get(item.bytes);
+    if (image) page.drawImage(image, { x: px(f, b.x), y: py(f, b.y + b.h), width: b.w * PT_PER_MM, height: b.h * PT_PER_MM });
   } else if (item.kind === 'circle') {
     const c = item;
     page.drawCircle({ x: px(f, c.centre.x), y: py(f, c.centre.y), size: c.radiusMm * PT_PER_MM, color: c.fill && rgb(...c.fill), borderColor: c.stroke && rgb(...c.stroke), borderWidth: c.stroke ? (c.lineMm ?? 0.2) * PT_PER_MM : 0 });
@@ -103,8 +109,10 @@ export interface DrawOptions {
   subsetFonts?: boolean;
 }
 
+export interface DrawResult { pdf: Uint8Array; imagesLeftOut: number }
+
 /** Draw a layout into a new PDF; `offsetMm` is the printer's feed correction (x right, y down). */
-export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm: number }, options: DrawOptions = {}): Promise<Uint8Array> {
+export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm: number }, options: DrawOptions = {}): Promise<DrawResult> {
   const doc = await PDFDocument.create({ updateMetadata: false });
   doc.registerFontkit(cachingFontkit);
   doc.setTitle(layout.title);
@@ -126,5 +134,5 @@ export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm
     }
     if (ops.length) pushAll(page, ops);
   }
-  return doc.save();
+  return { pdf: await doc.save(), imagesLeftOut: [...images.values()].filter((i) => i === null).length };
 }

@@ -39,12 +39,34 @@ export const cachingFontkit = {
   create(bytes: Uint8Array, postscriptName?: string): FontkitFont {
     let font = parsedByBytes.get(bytes);
     if (!font) {
-      font = fontkit.create(bytes, postscriptName);
+      font = withLayoutCache(fontkit.create(bytes, postscriptName));
       parsedByBytes.set(bytes, font);
     }
     return font;
   },
 };
+
+const LAYOUT_CACHE_MAX = 20000;
+
+/**
+ * The font with `layout` remembered per string. pdf-lib shapes every drawn run with fontkit;
+ * a board's labels repeat across flags, strips and every live-preview render, so the same
+ * glyph runs are reused instead of shaped again. Glyph runs are only read, never changed.
+ */
+function withLayoutCache(font: FontkitFont): FontkitFont {
+  const runs = new Map<string, ReturnType<FontkitFont['layout']>>();
+  const layout = (text: string, features?: Parameters<FontkitFont['layout']>[1]) => {
+    if (features !== undefined) return font.layout(text, features);
+    let run = runs.get(text);
+    if (!run) {
+      run = font.layout(text);
+      if (runs.size >= LAYOUT_CACHE_MAX) runs.clear();
+      runs.set(text, run);
+    }
+    return run;
+  };
+  return new Proxy(font, { get: (target, key) => (key === 'layout' ? layout : Reflect.get(target, key, target)) });
+}
 
 function parsed(face: FontFace): FontkitFont {
   return cachingFontkit.create(fontBytes(face));

@@ -22,7 +22,8 @@ const layouts: Layouts = {
 };
 
 /** The output laid out in mm, without drawing: what tests and previews measure. */
-export function layoutOutput<O extends PrintOutput>(req: RenderRequest<O>, tm: TypeMetrics = typeMetrics()): LayoutDoc {
+export function layoutOutput<O extends PrintOutput>(given: RenderRequest<O>, tm: TypeMetrics = typeMetrics()): LayoutDoc {
+  const req = { ...given, offset: given.offset ?? { xMm: 0, yMm: 0 }, findings: given.findings ?? [] };
   const ctx: LayoutContext<O> = { req, options: withDefaults(req.output, req.options), tm, warnings: new WarningList() };
   const layout = (layouts[req.output] as (c: LayoutContext<O>) => LayoutDoc)(ctx);
   return layout.pages.length > 0 ? layout : emptyDoc(layout, req.medium, tm);
@@ -34,6 +35,8 @@ export function layoutOutput<O extends PrintOutput>(req: RenderRequest<O>, tm: T
  */
 export async function renderOutput<O extends PrintOutput>(req: RenderRequest<O>): Promise<RenderResult> {
   const layout = layoutOutput(req);
-  const pdf = await drawLayout(layout, req.offset ?? { xMm: 0, yMm: 0 });
+  const { pdf, imagesLeftOut } = await drawLayout(layout, req.offset ?? { xMm: 0, yMm: 0 });
+  // The draw step leaves out an image it cannot decode: say so rather than print a hole silently.
+  if (imagesLeftOut > 0) layout.warnings.push({ code: 'logo-left-off', message: 'The contractor logo could not be read and was left off' });
   return { pdf, warnings: layout.warnings, pageCount: layout.pages.length };
 }

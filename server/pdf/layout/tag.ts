@@ -4,7 +4,7 @@
  */
 import { GREY, type Box, type Item, type LayoutDoc } from '../model.js';
 import { narrowestTapeFor } from '../media.js';
-import { barcodeItems, code128WidthMm, CODE128_MIN_X_MM } from '../barcode.js';
+import { barcodeItems, code128Pattern, code128WidthMm, CODE128_MIN_X_MM } from '../barcode.js';
 import { qrItems, qrMinSideMm } from '../qr.js';
 import type { LayoutContext } from './context.js';
 import { fitText } from './fit.js';
@@ -46,14 +46,16 @@ export function tagPiece(slot: Slot, ctx: LayoutContext<'tag'>): Piece {
   const pad = Math.min(1, h / 20);
   const qrSide = board.publicEnabled ? Math.min(h - 2 * pad, slot.kind === 'fixed' ? slot.widthMm * 0.45 : Infinity) : 0;
   const barsNatural = code128WidthMm(board.code, ROOMY_X_MM);
-  const length = slot.kind === 'fixed' ? slot.widthMm : slot.endMarginMm * 2 + qrSide + GAP_MM + Math.max(barsNatural, h * 1.4);
+  const length = slot.kind === 'fixed' ? slot.widthMm : slot.endMarginMm * 2 + qrSide + GAP_MM + Math.max(barsNatural, h * 1.4) + 0.5;
   const sideX = slot.endMarginMm + qrSide + (qrSide ? GAP_MM : 0);
-  const side: Box = { x: sideX, y: pad, w: length - sideX - slot.endMarginMm, h: h - 2 * pad };
+  const side: Box = { x: sideX, y: pad, w: length - sideX - slot.endMarginMm - 0.5, h: h - 2 * pad };
   const x = Math.min(ROOMY_X_MM, side.w / (barsNatural / ROOMY_X_MM));
   const items: Item[] = [];
   if (qrSide) items.push(...qrItems(board.publicUrl, { x: slot.endMarginMm, y: pad, w: qrSide, h: qrSide }, qrHint(ctx, qrMinSideMm(board.publicUrl))));
-  const bars = x >= CODE128_MIN_X_MM - 1e-9;
-  if (!bars) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `The barcode needs ${code128WidthMm(board.code, CODE128_MIN_X_MM).toFixed(0)} mm beside the QR code; it was left off this size` });
+  const encodable = code128Pattern(board.code) !== '';
+  const bars = encodable && x >= CODE128_MIN_X_MM - 1e-9;
+  if (!encodable) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `Code 128 cannot carry the board code "${board.code}"; the barcode was left off` });
+  else if (!bars) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `The barcode needs ${code128WidthMm(board.code, CODE128_MIN_X_MM).toFixed(0)} mm beside the QR code; it was left off this size` });
   items.push(...textSide(side, bars ? x : null, ctx, qrSide > 0 && h >= 14));
   return { name: 'Board tag', widthMm: length, heightMm: h, items };
 }

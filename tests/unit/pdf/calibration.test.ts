@@ -6,11 +6,11 @@ import { luminance, rasterise } from './helpers.js';
 const DPI = 300;
 const mmToPx = (mm: number) => (mm / 25.4) * DPI;
 
-/** Dark pixel columns along one image row. */
+/** Dark pixel columns along the page at `rowMm` from the top (only a thin band is rendered). */
 function darkColumns(pdf: Uint8Array, rowMm: number): number[] {
-  const png = rasterise(pdf, DPI);
+  const png = rasterise(pdf, DPI, 1, { x: 0, y: rowMm - 0.5, w: 210, h: 1 });
   const lum = luminance(png);
-  const y = Math.round(mmToPx(rowMm));
+  const y = Math.floor(png.height / 2);
   const cols: number[] = [];
   for (let x = 0; x < png.width; x++) if (lum[y * png.width + x] < 128) cols.push(x);
   return cols;

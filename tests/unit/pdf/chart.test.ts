@@ -1,8 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { layoutOutput, LayoutError, renderOutput } from '../../../server/pdf/index.js';
 import { RED } from '../../../server/pdf/model.js';
-import { boardSchedule, request, tenCircuitBoard } from './fixtures.js';
-import { pdfText, runsOutside, textRuns } from './helpers.js';
+import { PNG } from 'pngjs';
+import { boardSchedule, contractor, request, tenCircuitBoard } from './fixtures.js';
+import { pdfText, rasterise, runsOutside, textRuns } from './helpers.js';
 
 describe('circuit chart', () => {
   it('when ten circuits print on A4, then one page holds the header, every way, the findings and the caution', () => {
@@ -58,6 +59,36 @@ describe('circuit chart', () => {
     const runs = textRuns(layoutOutput(req));
     expect(runs.find((r) => r.text === '0.38')?.color).toEqual(RED);
     expect(runs.filter((r) => r.color === RED).map((r) => r.text).join(' ')).toBe('0.38 over max');
+  });
+
+  it('when the contractor has a logo, then it is drawn in the header at its own proportions', async () => {
+    const png = new PNG({ width: 40, height: 20 });
+    for (let i = 0; i < png.data.length; i += 4) png.data.set([200, 20, 20, 255], i);
+    const req = { ...request('chart', 'a4'), contractor: { ...contractor, logo: { bytes: new Uint8Array(PNG.sync.write(png)), mime: 'image/png' as const } } };
+    const image = layoutOutput(req).pages[0].items.find((i) => i.kind === 'image');
+    if (image?.kind !== 'image') throw new Error('no logo in the layout');
+    expect(image.box.w / image.box.h).toBeCloseTo(2, 6);
+    const result = await renderOutput(req);
+    expect(result.warnings).toEqual([]);
+    const px = rasterise(result.pdf, 72, 1, image.box);
+    const red = Array.from({ length: px.width * px.height }, (_, i) => px.data[4 * i] > 150 && px.data[4 * i + 1] < 80).filter(Boolean).length;
+    expect(red / (px.width * px.height)).toBeGreaterThan(0.8);
+  });
+
+  it('when the logo bytes are broken, then the chart still prints and says the logo was left off', async () => {
+    const bad = new Uint8Array(64);
+    bad.set([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a, 0, 0, 0, 13, 0x49, 0x48, 0x44, 0x52, 0, 0, 0, 40, 0, 0, 0, 20]);
+    const result = await renderOutput({ ...request('chart', 'a4'), contractor: { ...contractor, logo: { bytes: bad, mime: 'image/png' } } });
+    expect(result.warnings.map((w) => w.code)).toContain('logo-left-off');
+  });
+
+  it('when a thousand circuits print, then the table runs on over about ten times the continuation pages', () => {
+    const hundred = layoutOutput(request('chart', 'a4', {}, boardSchedule(100))).pages.length;
+    const thousand = layoutOutput(request('chart', 'a4', {}, boardSchedule(1000)));
+    // The first page carries the header, so compare the pages after it.
+    expect(thousand.pages.length - 1).toBeGreaterThanOrEqual(9 * (hundred - 1));
+    expect(thousand.pages.length - 1).toBeLessThanOrEqual(11 * hundred);
+    expect(runsOutside(thousand)).toEqual([]);
   });
 
   it('when the chart is asked for on tape or a page too small, then a LayoutError says what to choose', () => {

@@ -73,6 +73,13 @@ describe('QR codes and barcodes', () => {
     expect(() => layoutOutput(request('tag', 'tape-18'))).toThrow(/tape-24 or wider/);
   });
 
+  it('when the board code has a character Code 128 cannot carry, then the tag prints without bars and says so', () => {
+    const req = { ...request('tag', 'tape-24'), board: { ...board, code: 'WM-3F7K-Ω' } };
+    const layout = layoutOutput(req);
+    expect(codesOf(layout.pages[0].items, 'barcode')).toHaveLength(0);
+    expect(layout.warnings.map((w) => w.code)).toContain('barcode-left-off');
+  });
+
   it('when the board page is switched off, then the tag has no QR code and says why', () => {
     const req = { ...request('tag', 'tape-12'), board: { ...board, publicEnabled: false } };
     const layout = layoutOutput(req);

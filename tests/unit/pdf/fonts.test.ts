@@ -20,8 +20,8 @@ function glyphSheet(): LayoutDoc {
 describe('embedded fonts', () => {
   it('when the glyphs used are embedded as a subset, then they render pixel for pixel like the full font', async () => {
     const sheet = glyphSheet();
-    const subset = await drawLayout(sheet, { xMm: 0, yMm: 0 });
-    const full = await drawLayout(sheet, { xMm: 0, yMm: 0 }, { subsetFonts: false });
+    const subset = (await drawLayout(sheet, { xMm: 0, yMm: 0 })).pdf;
+    const full = (await drawLayout(sheet, { xMm: 0, yMm: 0 }, { subsetFonts: false })).pdf;
     expect(subset.length).toBeLessThan(full.length / 5); // the point of subsetting (NOTES.md: ~7 KB vs ~400 KB)
     const a = rasterise(subset, 150);
     const b = rasterise(full, 150);
@@ -37,7 +37,7 @@ describe('embedded fonts', () => {
   });
 
   it('when the subset is extracted, then the text comes back as typed', async () => {
-    const text = await pdfText(await drawLayout(glyphSheet(), { xMm: 0, yMm: 0 }));
+    const text = await pdfText((await drawLayout(glyphSheet(), { xMm: 0, yMm: 0 })).pdf);
     for (const ch of ['²', 'Ω', '≤', 'Δ', '±', 'é', '€', '½']) expect(text).toContain(ch);
   });
 });

@@ -41,6 +41,11 @@ function findingParagraphs(ctx: LayoutContext<'chart'>): Paragraph[] {
   }));
 }
 
+/** Table cells are set in the condensed faces: narrow columns keep more of each description on a line. */
+function condensed(p: Paragraph): Paragraph {
+  return { ...p, face: p.face === 'bold' ? 'condensed-bold' : p.face === 'regular' ? 'condensed' : p.face };
+}
+
 export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
   const { w, h } = pageSize(ctx);
   const k = Math.min(1.15, Math.max(0.82, Math.sqrt(w / 210)));
@@ -51,7 +56,7 @@ export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
   const maxLines = chartColumns.map((c) => c.maxLines);
   const footerH = stack(footerLines(ctx, k, 99, 99), 0, 0, content.w, ctx).bottom;
   const bottom = content.y + content.h - footerH - 1.5;
-  const headerRow = measureRow(chartColumns.map((c) => [{ text: c.header, face: 'bold' }]), widths, chartColumns.map(() => 3), style);
+  const headerRow = measureRow(chartColumns.map((c) => [{ text: c.header, face: 'condensed-bold' }]), widths, chartColumns.map(() => 3), style);
   const facts = chartFacts(ctx.req.schedule, ctx.req.maxZsByCircuit);
   const pages: Page[] = [];
   let y = 0;
@@ -69,7 +74,7 @@ export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
   };
   newPage(true);
   circuitsInWayOrder(ctx.req.schedule).forEach((c, i) => {
-    const row: MeasuredRow = measureRow(chartColumns.map((col) => col.cell(c, facts)), widths, maxLines, style);
+    const row: MeasuredRow = measureRow(chartColumns.map((col) => col.cell(c, facts).map(condensed)), widths, maxLines, style);
     if (row.cut) ctx.warnings.cut(`Way ${wayText(c)} on the chart`, c.description || c.label);
     if (y + row.heightMm > bottom && y > headerRow.heightMm + content.y + 1) newPage(true);
     pages[pages.length - 1].items.push(...rowItems(row, content.x, y, widths, style, i % 2 === 1));
