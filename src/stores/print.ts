@@ -56,6 +56,8 @@ export const usePrintStore = defineStore('print', () => {
 
   let timer: ReturnType<typeof setTimeout> | null = null;
   let inFlight: AbortController | null = null;
+  /** Bumped by each preview, so a late answer for an older choice is dropped. */
+  let generation = 0;
 
   function setPreviewUrl(url: string | null) {
     if (previewUrl.value) URL.revokeObjectURL(previewUrl.value);
@@ -68,6 +70,7 @@ export const usePrintStore = defineStore('print', () => {
     inFlight?.abort();
     const controller = new AbortController();
     inFlight = controller;
+    const mine = ++generation;
     previewStatus.value = 'loading';
     try {
       const pdf = await printApi.fetchPdf(boardId.value, selection.value, { signal: controller.signal });
@@ -75,6 +78,7 @@ export const usePrintStore = defineStore('print', () => {
       setPreviewUrl(URL.createObjectURL(pdf.blob));
       warnings.value = pdf.warnings;
       pageCount.value = pdf.pageCount;
+      if (pdf.warnings.at(-1)?.code === 'more-warnings') void loadAllWarnings(mine);
       previewError.value = null;
       previewFields.value = {};
       previewStatus.value = 'ready';
@@ -86,6 +90,13 @@ export const usePrintStore = defineStore('print', () => {
     } finally {
       if (inFlight === controller) inFlight = null;
     }
+  }
+
+  /** The header carries the first warnings only; the companion call lists them all. */
+  async function loadAllWarnings(mine: number): Promise<void> {
+    if (boardId.value === null) return;
+    const all = await printApi.checkPrint(boardId.value, selection.value).catch(() => null);
+    if (all && mine === generation) warnings.value = all.warnings;
   }
 
   function schedulePreview() {
@@ -120,6 +131,7 @@ export const usePrintStore = defineStore('print', () => {
   }
 
   function close(): void {
+    generation++;
     if (timer) clearTimeout(timer);
     timer = null;
     inFlight?.abort();

@@ -78,6 +78,18 @@ describe('printing each output of a stored board', () => {
     const check = await owner.get(`/api/boards/${id}/pdf/way-labels/warnings?media=tape-6`).expect(200);
     expect(check.body).toEqual({ warnings: header, pageCount: Number(res.headers['x-waymark-page-count']) });
   });
+
+  it('when there are very many warnings, then the header stays short and says how many more the warnings call lists', async () => {
+    const base = makeSchedule(80);
+    const schedule = scheduleSchema.parse({ ...base, circuits: base.circuits.map((c) => ({ ...c, label: `${'W'.repeat(20)}${c.way}`.slice(0, 24) })) });
+    const { owner, id } = await ownerWithBoard(schedule);
+    const res = await getPdf(owner, `/api/boards/${id}/pdf/flags?media=tape-6`).expect(200);
+    expect(res.headers['x-waymark-warnings'].length).toBeLessThanOrEqual(6000);
+    const header = JSON.parse(decodeURIComponent(res.headers['x-waymark-warnings']));
+    const { warnings } = (await owner.get(`/api/boards/${id}/pdf/flags/warnings?media=tape-6`).expect(200)).body;
+    expect(warnings.length).toBeGreaterThan(header.length);
+    expect(header.at(-1)).toEqual({ code: 'more-warnings', message: `${warnings.length - header.length + 1} more warnings: see the warnings list` });
+  });
 });
 
 /** Image XObjects in a PDF (ISO 32000-1 8.9.5: a stream whose /Subtype is /Image). */
