@@ -86,6 +86,11 @@ function neededPanel(t: PanelText, heightMm: number, endMarginMm: number, ctx: L
 function panelCells(t: PanelText, area: Box, ctx: LayoutContext<'flags'>): { way: Box; label: Box; info: Box; divider: number } {
   const two = area.h >= 7;
   const want = wantedWidths(t, area.h, two, ctx);
+  if (area.h >= 14 && area.h > area.w * 0.6) {
+    // A deep panel (a tall die-cut label): way number, label and info stacked, each the full width.
+    const at = (from: number, share: number): Box => ({ x: area.x, y: area.y + area.h * from, w: area.w, h: area.h * share });
+    return { way: at(0, 0.4), label: at(0.42, 0.34), info: at(0.77, 0.23), divider: -1 };
+  }
   if (two) {
     const wayW = Math.min(area.w * 0.38, area.h * 1.1, Math.max(want.way, area.h * 0.6));
     const x = area.x + wayW + 0.8;
@@ -108,11 +113,11 @@ function panelItems(t: PanelText, name: string, panelMm: number, heightMm: numbe
   const area: Box = { x: endMarginMm, y: 0.3, w: panelMm - endMarginMm - 0.8, h: heightMm - 0.6 };
   const cells = panelCells(t, area, ctx);
   const size = preferredSizes(area.h, area.h >= 7);
-  const items: Item[] = [{ kind: 'line', from: { x: cells.divider, y: area.y + 0.3 }, to: { x: cells.divider, y: area.y + area.h - 0.3 }, lineMm: 0.15, color: LIGHT_GREY }];
+  const items: Item[] = cells.divider < 0 ? [] : [{ kind: 'line', from: { x: cells.divider, y: area.y + 0.3 }, to: { x: cells.divider, y: area.y + area.h - 0.3 }, lineMm: 0.15, color: LIGHT_GREY }];
   const parts: Array<[string, Box, FitStyle]> = [
     [t.way, cells.way, { face: 'bold', maxPt: size.way, minPt, align: 'centre', maxLines: 1 }],
     [t.label, cells.label, { face: 'bold', maxPt: size.label, minPt, wrapBelowPt: 7, align: 'left', maxLines: 2, lineSpacing: 1.18 }],
-    [t.info, cells.info, { face: 'regular', maxPt: size.info, minPt, align: 'left', maxLines: 1 }],
+    [t.info, cells.info, { face: 'regular', maxPt: size.info, minPt, wrapBelowPt: 6, align: 'left', maxLines: 2 }],
   ];
   for (const [text, cell, style] of parts) {
     const fit = fitText(text, cell, style, ctx.tm);

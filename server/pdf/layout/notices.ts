@@ -44,7 +44,7 @@ function noticeItems(c: NoticeContent, w: number, h: number, minPt: number, ctx:
   const narrow = area.h < 14;
   const style = (face: FitStyle['face'], maxPt: number, extra: Partial<FitStyle> = {}): FitStyle => ({ face, maxPt, minPt, align: 'left', lineSpacing: 1.2, ...extra });
   const parts: Array<[string, Box, FitStyle]> = [
-    [narrow && c.details.length ? `${c.title} · ${c.details.join(' · ')}` : c.title, r.title, style('bold', 20, { maxLines: 2, wrapBelowPt: 20 })],
+    [narrow && c.details.length ? `${c.title} · ${c.details.join(' · ')}` : c.title, r.title, style('bold', 20, { maxLines: c.body ? 2 : 3, wrapBelowPt: 20 })],
   ];
   if (r.body) parts.push([narrow ? `${c.body} (${c.regulation})` : c.body, r.body, style('regular', 12, { wrapBelowPt: 12 })]);
   if (r.details) parts.push([c.details.join('\n'), r.details, style('bold', 11, { maxLines: c.details.length })]);

@@ -33,7 +33,7 @@ function textSide(box: Box, xMm: number | null, ctx: LayoutContext<'tag'>, showC
   const captionH = showCaption ? Math.max(2.2, box.h * 0.14) : 0;
   if (xMm) items.push(...barcodeItems(code, { x: box.x, y: box.y + codeH + 0.5, w: box.w, h: box.h - codeH - captionH - 1 }, xMm));
   if (showCaption) {
-    const caption = fitText('Scan the QR code for this board’s page', { x: box.x, y: box.y + box.h - captionH, w: box.w, h: captionH }, { face: 'regular', maxPt: 7, minPt: 5, maxLines: 1, align: 'centre', color: GREY }, ctx.tm);
+    const caption = fitText('Scan for the board page', { x: box.x, y: box.y + box.h - captionH, w: box.w, h: captionH }, { face: 'regular', maxPt: 7, minPt: 5, maxLines: 1, align: 'centre', color: GREY }, ctx.tm);
     items.push(...caption.runs);
   }
   return items;
@@ -44,7 +44,12 @@ export function tagPiece(slot: Slot, ctx: LayoutContext<'tag'>): Piece {
   const { board } = ctx.req;
   const h = slot.heightMm;
   const pad = Math.min(1, h / 20);
-  const qrSide = board.publicEnabled ? Math.min(h - 2 * pad, slot.kind === 'fixed' ? slot.widthMm * 0.45 : Infinity) : 0;
+  let qrSide = board.publicEnabled ? h - 2 * pad : 0;
+  if (slot.kind === 'fixed' && qrSide) {
+    // On a label of fixed length the QR code gives up size (never below readable) so the bars still fit.
+    const roomForBars = slot.widthMm - 2 * slot.endMarginMm - GAP_MM - 0.5 - code128WidthMm(board.code, CODE128_MIN_X_MM);
+    qrSide = Math.min(qrSide, slot.widthMm * 0.6, Math.max(qrMinSideMm(board.publicUrl), roomForBars));
+  }
   const barsNatural = code128WidthMm(board.code, ROOMY_X_MM);
   const length = slot.kind === 'fixed' ? slot.widthMm : slot.endMarginMm * 2 + qrSide + GAP_MM + Math.max(barsNatural, h * 1.4) + 0.5;
   const sideX = slot.endMarginMm + qrSide + (qrSide ? GAP_MM : 0);

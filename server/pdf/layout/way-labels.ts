@@ -66,8 +66,9 @@ function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, De
     const textBox = { ...box };
     if (joins.left && cell.x < 1e-6) { textBox.x += mark; textBox.w -= mark; }
     if (joins.right && cell.x + cell.w > strip.lengthMm - 1e-6) textBox.w -= mark;
-    const cellName = `${name}, ${devices.get(cell.deviceId)?.label || texts.get(cell.deviceId)?.ways || cell.deviceId}`;
-    items.push(...cellItems(texts.get(cell.deviceId)!, textBox, ctx, cellName));
+    const t = texts.get(cell.deviceId)!;
+    const cellName = /^\d/.test(t.ways) ? `Way ${t.ways} label` : `${devices.get(cell.deviceId)?.label || t.ways || 'Device'} label`;
+    items.push(...cellItems(t, textBox, ctx, cellName));
   }
   items.push({ kind: 'line', from: { x: strip.lengthMm, y: 0 }, to: { x: strip.lengthMm, y: heightMm }, lineMm: 0.2, color: BLACK });
   const half = (x: number, dir: 1 | -1): Item[] => [

@@ -4,19 +4,18 @@
  * findings, and on every page the caution, the revision and the page number.
  */
 import { circuitsInWayOrder, wayText } from '../../../../shared/schedule/derive.js';
-import { BLACK, GREY, RED, type Box, type Item, type LayoutDoc, type LayoutPage } from '../../model.js';
+import { BLACK, GREY, RED, type Box, type LayoutDoc, type LayoutPage } from '../../model.js';
 import { LayoutError } from '../../types.js';
 import type { LayoutContext } from '../context.js';
 import { printedDate } from '../dates.js';
 import { chartColumns, chartFacts, type Paragraph } from './columns.js';
-import { continuationHeader, firstPageHeader, stack, type Line } from './header.js';
-import { columnRules, columnWidths, measureRow, rowItems, type MeasuredRow, type TableStyle } from './table.js';
+import { stack, type Line } from './header.js';
+import { ChartPager, type ChartFrame } from './pages.js';
+import { columnWidths, measureRow, type TableStyle } from './table.js';
 
 /** Smallest page a legible chart fits (mm). */
 const MIN_PAGE_MM = 120;
 export const CHART_CAUTION = 'Caution: isolate the supply and prove dead before working on this board. Electrical work is for competent persons only, following BS 7671 and local regulations.';
-
-interface Page { items: Item[]; tableTop: number | null }
 
 function pageSize(ctx: LayoutContext<'chart'>): { w: number; h: number } {
   const m = ctx.req.medium;
@@ -46,57 +45,45 @@ function condensed(p: Paragraph): Paragraph {
   return { ...p, face: p.face === 'bold' ? 'condensed-bold' : p.face === 'regular' ? 'condensed' : p.face };
 }
 
-export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
+function chartFrame(ctx: LayoutContext<'chart'>): ChartFrame {
   const { w, h } = pageSize(ctx);
   const k = Math.min(1.15, Math.max(0.82, Math.sqrt(w / 210)));
   const margin = Math.min(12, Math.max(7, w * 0.05));
   const content: Box = { x: margin, y: margin, w: w - 2 * margin, h: h - 2 * margin };
   const style: TableStyle = { sizePt: 7.5 * k, padMm: 1.1 * k, wayWidthMm: 9 * k, tm: ctx.tm };
   const widths = columnWidths(content.w, chartColumns.map((c) => c.weight), style.wayWidthMm);
-  const maxLines = chartColumns.map((c) => c.maxLines);
   const footerH = stack(footerLines(ctx, k, 99, 99), 0, 0, content.w, ctx).bottom;
-  const bottom = content.y + content.h - footerH - 1.5;
   const headerRow = measureRow(chartColumns.map((c) => [{ text: c.header, face: 'condensed-bold' }]), widths, chartColumns.map(() => 3), style);
-  const facts = chartFacts(ctx.req.schedule, ctx.req.maxZsByCircuit);
-  const pages: Page[] = [];
-  let y = 0;
-  const closeRules = () => {
-    const p = pages[pages.length - 1];
-    if (p?.tableTop != null) { p.items.push(...columnRules(content.x, p.tableTop, y, widths)); p.tableTop = null; }
-  };
-  const newPage = (withTable: boolean) => {
-    closeRules();
-    const header = pages.length === 0 ? firstPageHeader(ctx, content, k) : continuationHeader(ctx, content, k);
-    const page: Page = { items: [...header.items], tableTop: null };
-    pages.push(page);
-    y = header.bottom;
-    if (withTable) { page.tableTop = y; page.items.push(...rowItems(headerRow, content.x, y, widths, style, false, true)); y += headerRow.heightMm; }
-  };
-  newPage(true);
-  circuitsInWayOrder(ctx.req.schedule).forEach((c, i) => {
-    const row: MeasuredRow = measureRow(chartColumns.map((col) => col.cell(c, facts).map(condensed)), widths, maxLines, style);
-    if (row.cut) ctx.warnings.cut(`Way ${wayText(c)} on the chart`, c.description || c.label);
-    if (y + row.heightMm > bottom && y > headerRow.heightMm + content.y + 1) newPage(true);
-    pages[pages.length - 1].items.push(...rowItems(row, content.x, y, widths, style, i % 2 === 1));
-    y += row.heightMm;
-  });
-  closeRules();
-  y += 1.5 * k;
-  const notes: Line[] = [
+  return { w, h, k, content, style, widths, bottom: content.y + content.h - footerH - 1.5, headerRow };
+}
+
+function notes(ctx: LayoutContext<'chart'>, k: number): Line[] {
+  return [
     { text: 'Max Zs: the highest earth fault loop impedance at which the circuit’s device still disconnects in time (BS 7671 Chapter 41). Zs: as measured; “over max” marks a reading above the maximum.', face: 'regular', sizePt: 6 * k, color: GREY },
     ...(ctx.options.showFindings ? [{ text: `Findings at revision ${ctx.req.board.revision}`, face: 'bold' as const, sizePt: 8.5 * k, maxLines: 1 }] : []),
     ...findingParagraphs(ctx).map((p): Line => ({ text: p.text, face: p.face, sizePt: 7 * k, color: p.color, maxLines: 6 })),
   ];
-  for (const line of notes) {
-    let placed = stack([line], content.x, y, content.w, ctx);
-    if (placed.bottom > bottom) { newPage(false); placed = stack([line], content.x, y, content.w, ctx); }
-    pages[pages.length - 1].items.push(...placed.items);
-    y = placed.bottom;
-  }
-  const laid: LayoutPage[] = pages.map((p, i) => ({
-    widthMm: w, heightMm: h,
-    items: [...p.items, { kind: 'line', from: { x: content.x, y: bottom + 0.8 }, to: { x: content.x + content.w, y: bottom + 0.8 }, lineMm: 0.2, color: GREY },
-      ...stack(footerLines(ctx, k, i + 1, pages.length), content.x, bottom + 1.5, content.w, ctx).items],
+}
+
+export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
+  const frame = chartFrame(ctx);
+  const { content, k } = frame;
+  const facts = chartFacts(ctx.req.schedule, ctx.req.maxZsByCircuit);
+  const maxLines = chartColumns.map((c) => c.maxLines);
+  const pager = new ChartPager(ctx, frame);
+  pager.newPage(true);
+  circuitsInWayOrder(ctx.req.schedule).forEach((c, i) => {
+    const row = measureRow(chartColumns.map((col) => col.cell(c, facts).map(condensed)), frame.widths, maxLines, frame.style);
+    if (row.cut) ctx.warnings.cut(`Way ${wayText(c)} on the chart`, c.description || c.label);
+    pager.row(row, i % 2 === 1);
+  });
+  pager.endTable();
+  pager.y += 1.5 * k;
+  for (const line of notes(ctx, k)) pager.block((y) => stack([line], content.x, y, content.w, ctx));
+  const pages: LayoutPage[] = pager.pages.map((items, i) => ({
+    widthMm: frame.w, heightMm: frame.h,
+    items: [...items, { kind: 'line', from: { x: content.x, y: frame.bottom + 0.8 }, to: { x: content.x + content.w, y: frame.bottom + 0.8 }, lineMm: 0.2, color: GREY },
+      ...stack(footerLines(ctx, k, i + 1, pager.pages.length), content.x, frame.bottom + 1.5, content.w, ctx).items],
   }));
-  return { title: `${ctx.req.board.code} circuit chart`, pages: laid, warnings: ctx.warnings.list };
+  return { title: `${ctx.req.board.code} circuit chart`, pages, warnings: ctx.warnings.list };
 }
