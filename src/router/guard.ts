@@ -6,7 +6,6 @@
 import type { Pinia } from 'pinia';
 import type { LocationQueryValue, RouteLocationNormalized, Router } from 'vue-router';
 import type { Role } from '../../shared/schemas/auth.js';
-import { useSessionStore } from '../stores/session.js';
 
 declare module 'vue-router' {
   interface RouteMeta {
@@ -43,10 +42,12 @@ function roleNotice(roles: Role[]): string {
 
 export function installRouteGuards(router: Router, pinia: Pinia): void {
   router.beforeEach(async (to) => {
-    const session = useSessionStore(pinia);
     const needsAuth = to.matched.some((r) => r.meta.auth);
     const guestOnly = typeof to.name === 'string' && GUEST_ONLY.has(to.name);
     if (!needsAuth && !guestOnly) return true;
+    // Loaded only here, so public screens (the board page) never download the session code and its schemas.
+    const { useSessionStore } = await import('../stores/session.js');
+    const session = useSessionStore(pinia);
 
     await session.ensureLoaded();
     if (guestOnly) {
