@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { scheduleSchema } from '../../shared/schemas/schedule.js';
 import { toPublicBoard } from '../../shared/public/board-page.js';
 import { searchWays } from '../../shared/public/search.js';
+import { dayText } from '../../shared/public/dates.js';
 import { demoSites } from '../../server/seed/demo-data.js';
 import { markedSchedule } from './public-fixture.js';
 
@@ -44,5 +45,13 @@ describe('board page search', () => {
 
   it('when the query is a way number, then that way matches', () => {
     expect(labels('8')).toContain('Garden studio');
+  });
+});
+
+describe('board page dates', () => {
+  it('when a date is shown, then it reads as day, month name and year', () => {
+    expect(dayText('2028-09-18')).toBe('18 September 2028');
+    expect(dayText('2024-03-01')).toBe('1 March 2024');
+    expect(dayText('not a date')).toBe('not a date');
   });
 });
