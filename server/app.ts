@@ -3,7 +3,7 @@
  */
 import express, { type Express } from 'express';
 import helmet from 'helmet';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { AppContext } from './context.js';
 import { sessionMiddleware } from './auth/session.js';
@@ -39,8 +39,10 @@ export function createApp(ctx: AppContext): BuiltApp {
     app.use(express.static(clientDir, { index: false, maxAge: '1h', setHeaders: (res, path) => {
       if (path.includes(`${join(clientDir, 'assets')}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
     } }));
-    // Every other path is a client route (history mode).
-    app.get('/{*splat}', (_req, res) => res.sendFile(join(clientDir, 'index.html')));
+    // Every other path is a client route (history mode). The shell page is read once: it only
+    // changes with a new build, and serving it from memory keeps the board page fast under load.
+    const indexHtml = readFileSync(join(clientDir, 'index.html'));
+    app.get('/{*splat}', (_req, res) => { res.type('html').set('Cache-Control', 'no-cache').send(indexHtml); });
   }
   app.use(errorHandler);
   return { app, close: () => sessions.close() };

@@ -28,9 +28,27 @@ export async function boardForToken(db: Db, token: string) {
   return row;
 }
 
+/**
+ * Projections already built, keyed by everything that feeds one. The board row is still read on
+ * every request (so a rotated token or a switched-off page stops at once, on every process); only
+ * parsing the stored schedule and projecting it is saved, which is most of a busy page's cost.
+ */
+const projections = new Map<string, PublicBoard>();
+const PROJECTIONS_KEPT = 500;
+
 /** `GET /api/public/boards/:token`. */
 export async function publicBoardPage(db: Db, token: string): Promise<PublicBoard> {
   const row = await boardForToken(db, token);
+  const key = JSON.stringify([row.id, row.revision, row.updatedAt.getTime(), row.revisionDate?.getTime(), row.organisation, row.hasLogo]);
+  const known = projections.get(key);
+  if (known) return known;
+  const page = projectBoard(row);
+  if (projections.size >= PROJECTIONS_KEPT) projections.delete(projections.keys().next().value!);
+  projections.set(key, page);
+  return page;
+}
+
+function projectBoard(row: Awaited<ReturnType<typeof boardForToken>>): PublicBoard {
   const schedule = readStoredSchedule(row.schedule);
   return toPublicBoard(schedule, {
     organisation: row.organisation,

@@ -71,6 +71,20 @@ describe('the public board page data', () => {
     for (const caution of GENERAL_CAUTIONS) expect(page.cautions).toContain(caution);
   });
 
+  it('when the schedule or the contractor contact changes after the page was read, then the next read shows the change', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const board = await createBoard(owner);
+    await request(t.app).get(`/api/public/boards/${board.token}`).expect(200);
+    const current = (await owner.get(`/api/boards/${board.id}/schedule`).expect(200)).body;
+    const { id: _i, revision, updatedAt: _u, code: _c, siteId: _s, ...schedule } = current;
+    schedule.circuits[0].label = 'Renamed way';
+    await owner.put(`/api/boards/${board.id}/schedule`, { ...schedule, baseRevision: revision }).expect(200);
+    await owner.put('/api/organisation', { name: 'Lanternfield Electrical', contactPhone: '01632 960999', contactEmail: owner.contactEmail }).expect(200);
+    const after = (await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body;
+    expect(JSON.stringify(after.ways)).toContain('Renamed way');
+    expect(JSON.stringify(after)).toContain('01632 960999');
+  });
+
   it('when the token is rotated, then the old one answers 404 and the new one the page', async () => {
     const owner = await signupMarkedOwner(t.app);
     const board = await createBoard(owner, undefined, false);
