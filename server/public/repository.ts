@@ -20,17 +20,23 @@ export interface PublicBoardRow {
   hasLogo: boolean;
 }
 
-/** One query: the board, its organisation's public contact, the current revision's date and whether a logo exists. */
-export async function findPublicBoard(db: Db, token: string): Promise<PublicBoardRow | null> {
-  const [row] = await db
+/** A board page's live facts without its schedule: cheap enough to read on every request. */
+export type PublicBoardHead = Omit<PublicBoardRow, 'schedule' | 'revisionDate'>;
+
+/**
+ * The board page's per-request query: the board (only while its page is on and it is not deleted),
+ * its organisation's public contact and whether a logo exists, without the schedule document.
+ * Prepared once per database, since the busiest public route would otherwise spend much of its
+ * time assembling the same SQL again.
+ */
+function buildHeadQuery(db: Db) {
+  return db
     .select({
       id: boards.id,
       organisationId: boards.organisationId,
       boardName: boards.name,
       code: boards.code,
-      schedule: boards.schedule,
       revision: boards.revision,
-      revisionDate: boardRevisions.createdAt,
       updatedAt: boards.updatedAt,
       name: organisations.name,
       contactPhone: organisations.contactPhone,
@@ -39,12 +45,37 @@ export async function findPublicBoard(db: Db, token: string): Promise<PublicBoar
     })
     .from(boards)
     .innerJoin(organisations, eq(organisations.id, boards.organisationId))
-    .leftJoin(boardRevisions, and(eq(boardRevisions.boardId, boards.id), eq(boardRevisions.number, boards.revision)))
-    .where(and(eq(boards.publicToken, token), eq(boards.publicEnabled, true), isNull(boards.deletedAt)))
-    .limit(1);
+    .where(and(eq(boards.publicToken, sql.placeholder('token')), eq(boards.publicEnabled, true), isNull(boards.deletedAt)))
+    .limit(1)
+    .prepare();
+}
+const headQueries = new WeakMap<Db, ReturnType<typeof buildHeadQuery>>();
+
+export async function findPublicBoardHead(db: Db, token: string): Promise<PublicBoardHead | null> {
+  let query = headQueries.get(db);
+  if (!query) headQueries.set(db, (query = buildHeadQuery(db)));
+  const [row] = await query.execute({ token });
   if (!row) return null;
   const { boardName, name, contactPhone, contactEmail, hasLogo, ...rest } = row;
   return { ...rest, name: boardName, organisation: { name, contactPhone, contactEmail }, hasLogo: Number(hasLogo) === 1 };
+}
+
+/** The schedule document of a board and the date of its current revision. */
+export async function findPublicBoardBody(db: Db, boardId: number): Promise<{ schedule: unknown; revisionDate: Date | null } | null> {
+  const [row] = await db
+    .select({ schedule: boards.schedule, revisionDate: boardRevisions.createdAt })
+    .from(boards)
+    .leftJoin(boardRevisions, and(eq(boardRevisions.boardId, boards.id), eq(boardRevisions.number, boards.revision)))
+    .where(eq(boards.id, boardId))
+    .limit(1);
+  return row ?? null;
+}
+
+/** The whole board behind a token (head and schedule), or null. */
+export async function findPublicBoard(db: Db, token: string): Promise<PublicBoardRow | null> {
+  const head = await findPublicBoardHead(db, token);
+  const body = head && (await findPublicBoardBody(db, head.id));
+  return head && body ? { ...head, ...body } : null;
 }
 
 export interface MemberBoardRow {

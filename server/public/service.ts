@@ -13,7 +13,7 @@ import type { Sharing } from '../../shared/schemas/reports.js';
 import { nextInspectionDate } from '../../shared/rules/index.js';
 import { findLogo, type StoredImage } from '../uploads/repository.js';
 import { countOpenReports } from '../reports/repository.js';
-import { findMemberBoard, findPublicBoard } from './repository.js';
+import { findMemberBoard, findPublicBoard, findPublicBoardBody, findPublicBoardHead } from './repository.js';
 
 /** Tokens are base64url; anything else cannot be one, so it is not looked up. */
 const TOKEN_SHAPE = /^[A-Za-z0-9_-]{16,64}$/;
@@ -29,34 +29,33 @@ export async function boardForToken(db: Db, token: string) {
 }
 
 /**
- * Projections already built, keyed by everything that feeds one. The board row is still read on
- * every request (so a rotated token or a switched-off page stops at once, on every process); only
- * parsing the stored schedule and projecting it is saved, which is most of a busy page's cost.
+ * Projections already built, keyed by everything that feeds one. The board's live facts are read
+ * on every request (so a rotated token, a switched-off page or a save shows at once, on every
+ * process); only fetching, parsing and projecting the schedule document is saved.
  */
 const projections = new Map<string, PublicBoard>();
 const PROJECTIONS_KEPT = 500;
 
 /** `GET /api/public/boards/:token`. */
 export async function publicBoardPage(db: Db, token: string): Promise<PublicBoard> {
-  const row = await boardForToken(db, token);
-  const key = JSON.stringify([row.id, row.revision, row.updatedAt.getTime(), row.revisionDate?.getTime(), row.organisation, row.hasLogo]);
+  const head = TOKEN_SHAPE.test(token) ? await findPublicBoardHead(db, token) : null;
+  if (!head) throw pageNotFound();
+  const key = JSON.stringify([head.id, head.revision, head.updatedAt.getTime(), head.organisation, head.hasLogo]);
   const known = projections.get(key);
   if (known) return known;
-  const page = projectBoard(row);
+  const body = await findPublicBoardBody(db, head.id);
+  if (!body) throw pageNotFound();
+  const schedule = readStoredSchedule(body.schedule);
+  const page = toPublicBoard(schedule, {
+    organisation: head.organisation,
+    hasLogo: head.hasLogo,
+    revision: head.revision,
+    revisionDate: (body.revisionDate ?? head.updatedAt).toISOString().slice(0, 10),
+    nextInspectionOn: nextInspectionDate(schedule.board),
+  });
   if (projections.size >= PROJECTIONS_KEPT) projections.delete(projections.keys().next().value!);
   projections.set(key, page);
   return page;
-}
-
-function projectBoard(row: Awaited<ReturnType<typeof boardForToken>>): PublicBoard {
-  const schedule = readStoredSchedule(row.schedule);
-  return toPublicBoard(schedule, {
-    organisation: row.organisation,
-    hasLogo: row.hasLogo,
-    revision: row.revision,
-    revisionDate: (row.revisionDate ?? row.updatedAt).toISOString().slice(0, 10),
-    nextInspectionOn: nextInspectionDate(schedule.board),
-  });
 }
 
 /** `GET /api/public/boards/:token/logo`: the contractor's logo, only while the page is on. */
