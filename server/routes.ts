@@ -20,6 +20,8 @@ export function apiRoutes(ctx: AppContext): Router {
     await ctx.database.pool.query('SELECT 1');
     res.json({ ok: true });
   });
+  // First: the board page is the busiest route, and every layer before it is matched on each request.
+  api.use('/public', publicRoutes(ctx));
   api.use('/auth', authRoutes(ctx));
   api.use('/members', membersRoutes(ctx));
   api.use('/invitations', invitationRoutes(ctx));
@@ -30,7 +32,6 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use('/boards', boardPrintRoutes(ctx));
   api.use('/sites', siteRoutes(ctx));
   api.use('/boards', boardRoutes(ctx));
-  api.use('/public', publicRoutes(ctx));
   api.use('/boards/:id/sharing', sharingRoutes(ctx));
   api.use('/boards/:id/reports', reportRoutes(ctx));
   api.use('/boards/:id/photos', photoRoutes(ctx));

@@ -3,6 +3,7 @@
  * token, and the sharing state members see. A token that is unknown, rotated away or whose
  * page is switched off gives the same plain 404 as one that never existed.
  */
+import { createHash } from 'node:crypto';
 import type { Db } from '../db/client.js';
 import type { ServerConfig } from '../config.js';
 import { notFound } from '../errors.js';
@@ -33,11 +34,14 @@ export async function boardForToken(db: Db, token: string) {
  * on every request (so a rotated token, a switched-off page or a save shows at once, on every
  * process); only fetching, parsing and projecting the schedule document is saved.
  */
-const projections = new Map<string, PublicBoard>();
+const projections = new Map<string, PublicBoardBody>();
 const PROJECTIONS_KEPT = 500;
 
+/** A board page serialised once per projection, with its entity tag. */
+export interface PublicBoardBody { page: PublicBoard; json: Buffer; etag: string }
+
 /** `GET /api/public/boards/:token`. */
-export async function publicBoardPage(db: Db, token: string): Promise<PublicBoard> {
+export async function publicBoardPage(db: Db, token: string): Promise<PublicBoardBody> {
   const head = TOKEN_SHAPE.test(token) ? await findPublicBoardHead(db, token) : null;
   if (!head) throw pageNotFound();
   const key = JSON.stringify([head.id, head.revision, head.updatedAt.getTime(), head.organisation, head.hasLogo]);
@@ -53,9 +57,11 @@ export async function publicBoardPage(db: Db, token: string): Promise<PublicBoar
     revisionDate: (body.revisionDate ?? head.updatedAt).toISOString().slice(0, 10),
     nextInspectionOn: nextInspectionDate(schedule.board),
   });
+  const json = Buffer.from(JSON.stringify(page));
+  const built = { page, json, etag: `"${createHash('sha1').update(json).digest('base64url')}"` };
   if (projections.size >= PROJECTIONS_KEPT) projections.delete(projections.keys().next().value!);
-  projections.set(key, page);
-  return page;
+  projections.set(key, built);
+  return built;
 }
 
 /** `GET /api/public/boards/:token/logo`: the contractor's logo, only while the page is on. */

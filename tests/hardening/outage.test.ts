@@ -63,6 +63,8 @@ describe('when the database goes away and comes back', () => {
       request(app).get('/api/health'),
       signedIn.get('/api/auth/me'),
       request(app).get('/api/auth/csrf'),
+      // Board-page reads go out together in one statement; its failure must reach each of them.
+      ...['D', 'E', 'F'].map((c) => request(app).get(`/api/public/boards/${c.repeat(32)}`)),
     ]);
     for (const res of during) {
       expect(res.status).toBe(503);
@@ -77,6 +79,7 @@ describe('when the database goes away and comes back', () => {
     }
     expect(health).toBe(200);
     await signedIn.get('/api/auth/me').expect(200);
+    await request(app).get(`/api/public/boards/${'D'.repeat(32)}`).expect(404);
     for (const email of acknowledged) {
       const agent = request.agent(app);
       const { body } = await agent.get('/api/auth/csrf');
