@@ -4,6 +4,7 @@
  */
 import type { RuleSet } from '../types.js';
 import { checkAdditionalProtection } from './additional-protection.js';
+import { checkArcFault } from './arc-fault.js';
 import { checkCapacity } from './capacity.js';
 import { checkCircuitData } from './data-circuits.js';
 import { checkDeviceData } from './data-devices.js';
@@ -30,6 +31,7 @@ export const bs7671: RuleSet = {
       ...checkCapacity(view),
       ...checkEarthFaultLoop(view),
       ...checkAdditionalProtection(view),
+      ...checkArcFault(view),
       ...checkVoltageDrop(view),
       ...checkLightingSpread(view),
       ...checkInspection(schedule.board, context, nextInspectionOn(schedule.board)),
