@@ -1,19 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
-import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
+import type { Client, TestApp } from '../helpers/app.js';
+import { createBoardWith, makeSchedule, startWithCast } from '../helpers/boards.js';
 import { scheduleResponseSchema } from '../../shared/schemas/schedule.js';
 import { diffResponseSchema, revisionListResponseSchema, revisionSnapshotSchema, staleResponseSchema } from '../../shared/schemas/boards.js';
 
-let t: TestApp;
-let owner: Client;
-let viewer: Client;
-let stranger: Client;
-beforeAll(async () => {
-  t = await startTestApp();
-  owner = await signupOwner(t.app, 'Schedule Test Ltd');
-  viewer = await addMember(t, owner, 'viewer');
-  stranger = await signupOwner(t.app, 'Elsewhere Electrical');
-});
+let t: TestApp, owner: Client, viewer: Client, stranger: Client;
+beforeAll(async () => ({ t, owner, viewer, stranger } = await startWithCast('Schedule Test Ltd', 'Elsewhere Electrical')));
 afterAll(async () => { await t.close(); });
 
 const withoutMeta = ({ board, devices, circuits }: any) => ({ board, devices, circuits });

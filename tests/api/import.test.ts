@@ -1,19 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
-import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
+import type { Client, TestApp } from '../helpers/app.js';
+import { createBoardWith, makeSchedule, startWithCast } from '../helpers/boards.js';
 import { boardFileSchema } from '../../shared/schemas/schedule.js';
 import { parseCsv } from '../../server/boards/csv.js';
 
-let t: TestApp;
-let owner: Client;
-let viewer: Client;
-let stranger: Client;
-beforeAll(async () => {
-  t = await startTestApp();
-  owner = await signupOwner(t.app, 'Import Test Ltd');
-  viewer = await addMember(t, owner, 'viewer');
-  stranger = await signupOwner(t.app, 'Far Away Electrical');
-});
+let t: TestApp, owner: Client, viewer: Client, stranger: Client;
+beforeAll(async () => ({ t, owner, viewer, stranger } = await startWithCast('Import Test Ltd', 'Far Away Electrical')));
 afterAll(async () => { await t.close(); });
 
 const withoutMeta = ({ board, devices, circuits }: any) => ({ board, devices, circuits });

@@ -9,7 +9,7 @@ import request from 'supertest';
 import type { ServerConfig } from '../../server/config.js';
 import { addressKey } from '../../server/public/routes.js';
 import { startTestApp, type TestApp } from '../helpers/app.js';
-import { createBoard, markedSchedule, signupMarkedOwner } from './public-fixture.js';
+import { createBoard, markedSchedule, signupMarkedOwner, type StoredBoard } from './public-fixture.js';
 
 let t: TestApp;
 let server: Server;
@@ -30,7 +30,7 @@ const read = (token: string) => fetch(`${base}/api/public/boards/${token}`);
 describe('board page reads arriving together', () => {
   it('when sixty reads of three pages, an unknown token and a switched-off page arrive at once, then each gets its own answer in fewer statements than reads', async () => {
     const owner = await signupMarkedOwner(t.app);
-    const boards = [];
+    const boards: (StoredBoard & { name: string })[] = [];
     for (const name of ['Kitchen board', 'Garage board', 'Loft board']) {
       const schedule = markedSchedule();
       schedule.board.name = name;

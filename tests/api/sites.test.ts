@@ -1,18 +1,10 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { client, signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
-import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
+import { client, type Client, type TestApp } from '../helpers/app.js';
+import { createBoardWith, makeSchedule, startWithCast } from '../helpers/boards.js';
 import { siteDetailSchema, siteListResponseSchema, siteSchema } from '../../shared/schemas/site.js';
 
-let t: TestApp;
-let owner: Client;
-let viewer: Client;
-let stranger: Client;
-beforeAll(async () => {
-  t = await startTestApp();
-  owner = await signupOwner(t.app, 'Sites Test Ltd');
-  viewer = await addMember(t, owner, 'viewer');
-  stranger = await signupOwner(t.app, 'Neighbouring Sparks');
-});
+let t: TestApp, owner: Client, viewer: Client, stranger: Client;
+beforeAll(async () => ({ t, owner, viewer, stranger } = await startWithCast('Sites Test Ltd', 'Neighbouring Sparks')));
 afterAll(async () => { await t.close(); });
 
 const fullSite = {

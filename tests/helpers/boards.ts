@@ -6,7 +6,7 @@ import { scheduleSchema, type Schedule, type ScheduleInput } from '../../shared/
 import { hashPassword } from '../../server/auth/passwords.js';
 import { users } from '../../server/db/schema.js';
 import type { Role } from '../../shared/schemas/auth.js';
-import { client, TEST_PASSWORD, uniqueEmail, type Client, type TestApp } from './app.js';
+import { client, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type Client, type TestApp } from './app.js';
 
 const ROOMS = ['Kitchen', 'Hall', 'Landing', 'Garage', 'Utility', 'Lounge', 'Bedroom 1', 'Bedroom 2', 'Bathroom', 'Loft', 'Porch', 'Study'];
 
@@ -72,4 +72,16 @@ export async function addMember(t: TestApp, owner: Client, role: Role): Promise<
   const c = await client(t.app);
   await c.post('/api/auth/login', { email, password: TEST_PASSWORD }).expect(200);
   return Object.assign(c, { email, userId: row.id });
+}
+
+/** The people most boards API tests need: an owner, a viewer of the same organisation, and an owner of another. */
+export interface Cast { t: TestApp; owner: Client; viewer: Client; stranger: Client }
+
+/** Starts a test app and signs up the cast; the caller closes `t` when done. */
+export async function startWithCast(organisation: string, otherOrganisation: string): Promise<Cast> {
+  const t = await startTestApp();
+  const owner = await signupOwner(t.app, organisation);
+  const viewer = await addMember(t, owner, 'viewer');
+  const stranger = await signupOwner(t.app, otherOrganisation);
+  return { t, owner, viewer, stranger };
 }
