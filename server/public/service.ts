@@ -66,8 +66,10 @@ export async function publicBoardPage(db: Db, token: string): Promise<PublicBoar
 
 /** `GET /api/public/boards/:token/logo`: the contractor's logo, only while the page is on. */
 export async function publicLogo(db: Db, token: string): Promise<StoredImage> {
-  const row = await boardForToken(db, token);
-  const logo = await findLogo(db, row.organisationId);
+  // The head says whether a logo exists; the schedule is not needed for it.
+  const head = TOKEN_SHAPE.test(token) ? await findPublicBoardHead(db, token) : null;
+  if (!head?.hasLogo) throw pageNotFound();
+  const logo = await findLogo(db, head.organisationId);
   if (!logo) throw pageNotFound();
   return logo;
 }
