@@ -57,6 +57,7 @@ const CIRCUIT_FIELDS: Partial<Record<keyof Circuit, FieldText>> = {
 const CABLE_FIELDS: Record<keyof Circuit['cable'], FieldText> = {
   type: { label: 'cable type' }, liveCsa: { label: 'live csa', unit: 'mm²' }, cpcCsa: { label: 'cpc csa', unit: 'mm²' },
   referenceMethod: { label: 'reference method' }, lengthM: { label: 'route length', unit: 'm' }, diameterMm: { label: 'cable diameter', unit: 'mm' },
+  ambientC: { label: 'ambient temperature', unit: '°C' }, groupedWith: { label: 'circuits grouped' }, insulatedLengthMm: { label: 'length in insulation', unit: 'mm' },
 };
 
 const SUMMARY_MAX_PHRASES = 8;

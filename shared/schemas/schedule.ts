@@ -95,7 +95,26 @@ export const cableSchema = z.strictObject({
   lengthM: z.number().nonnegative('Length cannot be negative').max(2000, 'At most 2000 m').nullable().default(null),
   /** Overall diameter of a round cable (mm), or an override for the flag's wrap size. */
   diameterMm: positive('Diameter', 200).nullable().default(null),
+  // Installation conditions, for the correction factors on the cable's capacity. Each is null until
+  // recorded, so documents saved before they existed parse unchanged and are checked as before.
+  /** Hottest ambient temperature along the route (°C), for Ca; null means the tables' 30 °C. */
+  ambientC: z.number({ error: 'Ambient temperature must be a number' }).min(-30, 'At least -30 °C').max(90, 'At most 90 °C').nullable().default(null),
+  /**
+   * How many circuits (or multicore cables) run together at the worst point of the route, this one
+   * included, for Cg; null or 1 means not grouped. The count alone does not say whether the cables
+   * are bunched or spaced in one layer, so the checks use the bunched or enclosed row of the grouping
+   * table for every reference method: it is never the higher factor (see the rule set's tables).
+   */
+  groupedWith: z.number({ error: 'Circuits grouped must be a number' }).int('Whole circuits only').min(1, 'Count this circuit too: at least 1').max(100, 'At most 100 circuits').nullable().default(null),
+  /** Length of the run totally surrounded by thermal insulation (mm), for Ci; null or 0 means none. */
+  insulatedLengthMm: z.number({ error: 'Length in insulation must be a number' }).nonnegative('Length in insulation cannot be negative').max(100_000, 'At most 100000 mm (100 m)').nullable().default(null),
 });
+
+/** A cable with nothing recorded: the default of a circuit without one. */
+export const EMPTY_CABLE = {
+  type: 'twin-earth', liveCsa: null, cpcCsa: null, referenceMethod: null, lengthM: null, diameterMm: null,
+  ambientC: null, groupedWith: null, insulatedLengthMm: null,
+} as const satisfies z.output<typeof cableSchema>;
 
 export const circuitSchema = z.strictObject({
   id: key,
@@ -109,7 +128,7 @@ export const circuitSchema = z.strictObject({
   socketOutlets: z.boolean().default(false),
   /** Cable concealed in a wall less than 50 mm deep without mechanical protection (522.6.202/203). */
   concealedInWall: z.boolean().default(false),
-  cable: cableSchema.default({ type: 'twin-earth', liveCsa: null, cpcCsa: null, referenceMethod: null, lengthM: null, diameterMm: null }),
+  cable: cableSchema.default(() => ({ ...EMPTY_CABLE })),
   points: z.number().int().min(0).max(999).nullable().default(null),
   locations: z.array(text(60).min(1, 'Empty location')).max(20, 'At most 20 locations').default([]),
   /** Way or reference on the board this circuit came from, for replacements. */

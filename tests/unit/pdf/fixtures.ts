@@ -17,7 +17,7 @@ export const board: BoardMeta = {
 
 export const contractor: Contractor = { name: 'Brightwell & Daughters Electrical', phone: '01632 960418', email: 'office@brightwell-electrical.example' };
 
-const tenCircuits: Array<Partial<Circuit> & Pick<Circuit, 'label'>> = [
+const tenCircuits: Array<Omit<ScheduleInput['circuits'][number], 'id' | 'way'>> = [
   { label: 'Kitchen sockets', kind: 'ring', description: 'Ring final serving the kitchen worktop sockets, the fridge spur and the dishwasher spur under the sink', locations: ['Kitchen', 'Utility'], socketOutlets: true, cable: { type: 'twin-earth', liveCsa: 2.5, cpcCsa: 1.5, referenceMethod: 'C', lengthM: 38, diameterMm: null }, measuredZs: 0.62, points: 9 },
   { label: 'Downstairs sockets', kind: 'ring', description: 'Lounge, dining room and hall', locations: ['Lounge', 'Dining room', 'Hall'], socketOutlets: true, cable: { type: 'twin-earth', liveCsa: 2.5, cpcCsa: 1.5, referenceMethod: 'C', lengthM: 44, diameterMm: null }, measuredZs: 0.71 },
   { label: 'Downstairs lights', kind: 'lighting', description: 'Ceiling roses, wall lights and the porch light', locations: ['Ground floor'], cable: { type: 'twin-earth', liveCsa: 1.5, cpcCsa: 1, referenceMethod: '102', lengthM: 30, diameterMm: null }, measuredZs: 1.12 },

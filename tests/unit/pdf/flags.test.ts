@@ -4,11 +4,11 @@ import { cablePerimeter, TWIN_EARTH_SIZE_MM } from '../../../server/pdf/layout/c
 import { flagSpecs } from '../../../server/pdf/layout/flags.js';
 import { WarningList, withDefaults } from '../../../server/pdf/layout/context.js';
 import { typeMetrics } from '../../../server/pdf/fonts.js';
-import type { Cable } from '../../../shared/schemas/schedule.js';
+import { EMPTY_CABLE, type Cable } from '../../../shared/schemas/schedule.js';
 import { request, tenCircuitBoard } from './fixtures.js';
 import { runsOutside, textRuns } from './helpers.js';
 
-const cable = (c: Partial<Cable>): Cable => ({ type: 'twin-earth', liveCsa: 2.5, cpcCsa: 1.5, referenceMethod: null, lengthM: null, diameterMm: null, ...c });
+const cable = (c: Partial<Cable>): Cable => ({ ...EMPTY_CABLE, liveCsa: 2.5, cpcCsa: 1.5, ...c });
 
 function specs(options = {}, mediaId = 'tape-12') {
   const req = request('flags', mediaId, options);
