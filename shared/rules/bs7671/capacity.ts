@@ -1,11 +1,14 @@
 /**
  * Overload protection: the device rating In must not exceed the cable's current-carrying
- * capacity Iz (433.1.1), with Iz from Appendix 4 for the cable and its reference method.
- * Only flat twin-and-earth (Table 4D5) is tabulated here; other cables are reported unchecked.
- * Tabulated Iz assumes 30 °C ambient and no grouping or insulation beyond the method: the
- * designer still applies correction factors.
+ * capacity Iz (433.1.1), with Iz from Appendix 4 for the cable and its reference method,
+ * corrected for the installation conditions recorded on the cable: Iz × Ca × Cg × Ci
+ * (see correction-factors.ts). With none recorded, the tabulated Iz (30 °C, not grouped, no
+ * insulation beyond the method) is used as it stands. Only flat twin-and-earth (Table 4D5) is
+ * tabulated here; other cables are reported unchecked.
  */
+import type { Cable } from '../../schemas/schedule.js';
 import type { Finding } from '../types.js';
+import { correctedIz, strongestFactor, type AppliedFactor } from './correction-factors.js';
 import { RING_FINAL, TABLE_4D5, type TwinEarthMethod, type TwinEarthRow } from './tables.js';
 import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
 
@@ -22,6 +25,45 @@ function unchecked(f: CircuitFacts, field: string, why: string): Finding {
   return circuitFinding(f, 'info', 'capacity-not-checked', 'BS 7671 433.1.1', field, `${circuitName(f.circuit)}: cable capacity not checked: ${why}`);
 }
 
+/** The cable's Iz under its conditions, and how messages say where it came from. */
+interface Capacity {
+  iz: number;
+  factors: AppliedFactor[];
+  /** "at method C (Table 4D5)", or "at method C with Cg 0.70 for 3 circuits grouped (Table 4C1), from 27 A in Table 4D5". */
+  basis: string;
+}
+
+type TabulatedCable = Cable & { liveCsa: number; referenceMethod: TwinEarthMethod };
+
+function capacityOf(cable: TabulatedCable, tabulated: number): Capacity | Extract<ReturnType<typeof correctedIz>, { ok: false }> {
+  const atMethodC = TABLE_4D5[cable.liveCsa].iz.C;
+  const corrected = correctedIz(cable, tabulated, atMethodC);
+  if (!corrected.ok) return corrected;
+  const { iz, factors, insulatedAtMethodC } = corrected;
+  if (!factors.length) return { iz, factors, basis: `at method ${cable.referenceMethod} (Table 4D5)` };
+  const texts = factors.map((x) => x.text);
+  const listed = texts.length > 1 ? `${texts.slice(0, -1).join(', ')} and ${texts[texts.length - 1]}` : texts[0];
+  // Ci is worked from the clipped-direct value; say so when the circuit's own method is another.
+  const method = insulatedAtMethodC && cable.referenceMethod !== 'C' ? `method C where it is in insulation (method ${cable.referenceMethod} elsewhere)` : `method ${cable.referenceMethod}`;
+  return { iz, factors, basis: `at ${method} with ${listed}, from ${num(insulatedAtMethodC ? atMethodC : tabulated)} A in Table 4D5` };
+}
+
+/** Where a capacity finding points: at the factor that lowers Iz most when the tabulated value alone would pass, else at `otherwise`. */
+function blamedField(cap: Capacity, passesTabulated: boolean, otherwise: string): string {
+  return (passesTabulated ? strongestFactor(cap.factors)?.field : undefined) ?? otherwise;
+}
+
+function checkRing(f: CircuitFacts, cap: Capacity, tabulated: number): Finding[] {
+  if (cap.iz >= RING_FINAL.minIz) return [];
+  const { circuit, device } = f;
+  const cable = circuit.cable;
+  const message = cap.factors.length
+    ? `needs Iz of at least ${RING_FINAL.minIz} A under its installation conditions, but it has ${num(cap.iz)} A ${cap.basis}`
+    : `needs Iz of at least ${RING_FINAL.minIz} A, but method ${cable.referenceMethod} gives ${num(cap.iz)} A (Table 4D5)`;
+  return [circuitFinding(f, 'error', 'ring-iz-below-20', 'BS 7671 433.1.204', blamedField(cap, tabulated >= RING_FINAL.minIz, 'cable.referenceMethod'),
+    `${circuitName(circuit)}: a 2.5 mm² ring final on a ${deviceName(device!)} ${message}`)];
+}
+
 function checkCircuit(f: CircuitFacts): Finding[] {
   const { circuit, device } = f;
   if (!device || !isOvercurrentDevice(device) || device.rating == null) return [];
@@ -29,21 +71,22 @@ function checkCircuit(f: CircuitFacts): Finding[] {
   if (cable.type !== 'twin-earth') return [unchecked(f, 'cable.type', `no tabulated values for ${CABLE_NAMES[cable.type]} in this rule set; check In ≤ Iz against its Appendix 4 table`)];
   if (cable.liveCsa == null) return [unchecked(f, 'cable.liveCsa', 'record the live conductor csa')];
   if (cable.referenceMethod == null) return [unchecked(f, 'cable.referenceMethod', 'record the installation reference method')];
-  const iz = twinEarthIz(cable.liveCsa, cable.referenceMethod);
-  if (iz == null) return [unchecked(f, 'cable.referenceMethod', `Table 4D5 does not list ${num(cable.liveCsa)} mm² at method ${cable.referenceMethod}`)];
-  const name = circuitName(circuit);
-  const isRecognisedRing = circuit.kind === 'ring' && cable.liveCsa === RING_FINAL.liveCsa && (RING_FINAL.ratings as readonly number[]).includes(device.rating);
-  if (isRecognisedRing) {
-    if (iz >= RING_FINAL.minIz) return [];
-    return [circuitFinding(f, 'error', 'ring-iz-below-20', 'BS 7671 433.1.204', 'cable.referenceMethod',
-      `${name}: a 2.5 mm² ring final on a ${deviceName(device)} needs Iz of at least ${RING_FINAL.minIz} A, but method ${cable.referenceMethod} gives ${num(iz)} A (Table 4D5)`)];
+  const tabulated = twinEarthIz(cable.liveCsa, cable.referenceMethod);
+  if (tabulated == null) return [unchecked(f, 'cable.referenceMethod', `Table 4D5 does not list ${num(cable.liveCsa)} mm² at method ${cable.referenceMethod}`)];
+  const cap = capacityOf(cable as TabulatedCable, tabulated);
+  if ('ok' in cap) {
+    return [cap.unsuitable
+      ? circuitFinding(f, 'error', 'ambient-over-cable-limit', 'BS 7671 Table 4B1', cap.field, `${circuitName(circuit)}: ${cap.why}`)
+      : unchecked(f, cap.field, cap.why)];
   }
-  if (device.rating <= iz) return [];
-  return [circuitFinding(f, 'error', 'rating-over-iz', 'BS 7671 433.1.1', 'cable.liveCsa',
-    `${name}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${num(iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth at method ${cable.referenceMethod} (Table 4D5)`)];
+  const isRecognisedRing = circuit.kind === 'ring' && cable.liveCsa === RING_FINAL.liveCsa && (RING_FINAL.ratings as readonly number[]).includes(device.rating);
+  if (isRecognisedRing) return checkRing(f, cap, tabulated);
+  if (device.rating <= cap.iz) return [];
+  return [circuitFinding(f, 'error', 'rating-over-iz', 'BS 7671 433.1.1', blamedField(cap, device.rating <= tabulated, 'cable.liveCsa'),
+    `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${num(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`)];
 }
 
-/** In ≤ Iz for every circuit with a rated device, or why it could not be checked. */
+/** In ≤ Iz × Ca × Cg × Ci for every circuit with a rated device, or why it could not be checked. */
 export function checkCapacity(view: ScheduleView): Finding[] {
   return view.circuits.flatMap(checkCircuit);
 }

@@ -59,6 +59,53 @@ export const TABLE_4D5: Record<number, TwinEarthRow> = {
 };
 
 /**
+ * Table 4B1: ambient temperature factor Ca for 70 °C thermoplastic cable in air, by ambient °C,
+ * against the tables' 30 °C (from memory). The table gives no value above 60 °C for this cable:
+ * it is not to be used there. Our copy starts at 25 °C; below that the checks take 25 °C's factor,
+ * so a cold run never earns more than we are sure of.
+ */
+export const TABLE_4B1_THERMOPLASTIC_70: Record<number, number> = {
+  // BS 7671:2018 Appendix 4 Table 4B1, 70 °C thermoplastic column (from memory)
+  25: 1.03, 30: 1, 35: 0.94, 40: 0.87, 45: 0.79, 50: 0.71, 55: 0.61, 60: 0.5,
+};
+
+/**
+ * Table 4C1, row 1: grouping factor Cg for circuits or multicore cables bunched in air, on a surface,
+ * embedded or enclosed (methods A to F), by the number in the group (from memory). Rows 2–4 (one
+ * layer on a wall, tray or ladder) give higher factors, but a schedule that records only a count
+ * cannot tell a single spaced layer from a bunch, so the checks always read row 1, the safer one.
+ * The table stops at 20.
+ */
+export const TABLE_4C1_BUNCHED: Record<number, number> = {
+  // BS 7671:2018 Appendix 4 Table 4C1, item 1 "bunched in air, on a surface, embedded or enclosed" (from memory)
+  1: 1, 2: 0.8, 3: 0.7, 4: 0.65, 5: 0.6, 6: 0.57, 7: 0.54, 8: 0.52, 9: 0.5, 12: 0.45, 16: 0.41, 20: 0.38,
+};
+
+/**
+ * Table 52.2: factor Ci for a cable totally surrounded by thermal insulation for a short length (mm),
+ * applied to its capacity clipped direct (method C); for cables up to 10 mm² (from memory). For 0.5 m
+ * or more, and for larger cables without better information, 523.9 takes 0.5 of the method C value
+ * (from memory). Table 4D5's method 103 is that same half of method C (1.5 mm²: 10 of 20 A, found),
+ * which is why Ci is taken from method C and never stacked on a method already in insulation.
+ */
+export const TABLE_52_2: Record<number, number> = {
+  // BS 7671:2018 Table 52.2 (from memory)
+  50: 0.88, 100: 0.78, 200: 0.63, 400: 0.51,
+};
+/** 523.9: the factor for 0.5 m or more in insulation, and the largest csa Table 52.2 covers (from memory). */
+export const FULLY_INSULATED = { factor: 0.5, fromMm: 500, table52_2MaxCsa: 10 } as const;
+
+/**
+ * The tabulated point a measured value falls on, taking the safer neighbour when it falls between
+ * two: the next key up, because every one of these factors falls as its key rises. Null above the
+ * last key. Tables here are small records keyed by number.
+ */
+export function nextTabulatedKey(table: Record<number, number>, value: number): number | null {
+  const keys = Object.keys(table).map(Number).sort((a, b) => a - b);
+  return keys.find((k) => k >= value) ?? null;
+}
+
+/**
  * 433.1.204: a 2.5 mm² thermoplastic ring final on a 30 or 32 A device meets 433.1.1
  * when the cable's Iz under its installation conditions is at least 20 A (partly: secondary pages quote it).
  */

@@ -31,6 +31,8 @@ const circuit = fc.record({
   cable: fc.record({
     type: fc.constantFrom(...cableTypes), liveCsa: maybe(csa), cpcCsa: maybe(csa), referenceMethod: maybe(fc.constantFrom(...referenceMethods)),
     lengthM: maybe(fc.double({ min: 0, max: 2000, noNaN: true })), diameterMm: fc.constant(null),
+    ambientC: maybe(fc.double({ min: -30, max: 90, noNaN: true })), groupedWith: maybe(fc.integer({ min: 1, max: 100 })),
+    insulatedLengthMm: maybe(fc.oneof(fc.constantFrom(0, 50, 450, 500), fc.double({ min: 0, max: 100_000, noNaN: true }))),
   }),
   measuredZs: maybe(fc.double({ min: 0, max: 200, noNaN: true })), zsAtAmbient: fc.boolean(), legs: fc.integer({ min: 1, max: 8 }),
   feedsBoardId: maybe(fc.integer({ min: 1, max: 99 })),
