@@ -11,14 +11,18 @@ interface Column { name: string; path: string[]; kind: CellKind }
 
 const col = (name: string, path: string, kind: CellKind): Column => ({ name, path: path.split('.'), kind });
 
-/** The columns, in the order the export writes them. Only `way` and `label` are required in a file. */
+/**
+ * The columns, in the order the export writes them. Only `way` and `label` are required in a file, so files
+ * written before a column existed (e.g. the installation conditions) still import and keep those values.
+ */
 export const CIRCUIT_CSV_COLUMNS: Column[] = [
   col('id', 'id', 'choice'), col('way', 'way', 'number'), col('phase', 'phase', 'choice'), col('device_id', 'deviceId', 'choice'),
   col('label', 'label', 'text'), col('description', 'description', 'text'), col('kind', 'kind', 'choice'),
   col('socket_outlets', 'socketOutlets', 'boolean'), col('concealed_in_wall', 'concealedInWall', 'boolean'),
   col('cable_type', 'cable.type', 'choice'), col('live_csa', 'cable.liveCsa', 'number'), col('cpc_csa', 'cable.cpcCsa', 'number'),
   col('reference_method', 'cable.referenceMethod', 'choice'), col('length_m', 'cable.lengthM', 'number'),
-  col('diameter_mm', 'cable.diameterMm', 'number'), col('points', 'points', 'number'), col('locations', 'locations', 'list'),
+  col('diameter_mm', 'cable.diameterMm', 'number'), col('ambient_c', 'cable.ambientC', 'number'), col('grouped_with', 'cable.groupedWith', 'number'),
+  col('insulated_length_mm', 'cable.insulatedLengthMm', 'number'), col('points', 'points', 'number'), col('locations', 'locations', 'list'),
   col('previous_reference', 'previousReference', 'text'), col('measured_zs', 'measuredZs', 'number'),
   col('zs_at_ambient', 'zsAtAmbient', 'boolean'), col('legs', 'legs', 'number'), col('notes', 'notes', 'text'),
   col('notes_public', 'notesPublic', 'boolean'), col('feeds_board_id', 'feedsBoardId', 'number'),

@@ -132,6 +132,31 @@ describe('reading and saving a schedule', () => {
 });
 
 describe('rule checks', () => {
+  it('when a circuit records its installation conditions, then they read back and the check corrects Iz for them; bad ones are 400 by path', async () => {
+    const schedule = makeSchedule(2);
+    const legacy: any = structuredClone(schedule);
+    for (const c of legacy.circuits) { delete c.cable.ambientC; delete c.cable.groupedWith; delete c.cable.insulatedLengthMm; }
+    const { id } = await createBoardWith(owner, legacy); // a client that knows nothing of the conditions still saves
+    const before = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
+    expect(before.circuits[0].cable).toMatchObject({ ambientC: null, groupedWith: null, insulatedLengthMm: null });
+    expect((await owner.get(`/api/boards/${id}/check`).expect(200)).body.findings.some((f: any) => f.code === 'ring-iz-below-20')).toBe(false);
+
+    const grouped = structuredClone(schedule);
+    grouped.circuits[0].cable.groupedWith = 3; // way 1: 2.5 mm² ring on a B32, clipped direct
+    await owner.put(`/api/boards/${id}/schedule`, { ...grouped, baseRevision: 2 }).expect(200);
+    expect(withoutMeta((await owner.get(`/api/boards/${id}/schedule`).expect(200)).body)).toEqual(grouped);
+    const { findings } = (await owner.get(`/api/boards/${id}/check`).expect(200)).body;
+    // 27 A (BS 7671 Table 4D5, found) × 0.70 (Table 4C1, 3 grouped, from memory) = 18.9 A < 20 A (433.1.204, partly)
+    expect(findings.filter((f: any) => f.code === 'ring-iz-below-20')).toMatchObject([{ ways: [1], field: 'circuits.0.cable.groupedWith' }]);
+
+    const bad: any = structuredClone(grouped);
+    bad.circuits[0].cable.groupedWith = 0;
+    bad.circuits[1].cable.ambientC = 'warm';
+    bad.circuits[1].cable.insulatedLengthMm = -1;
+    const res = await owner.put(`/api/boards/${id}/schedule`, { ...bad, baseRevision: 3 }).expect(400);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['circuits.0.cable.groupedWith', 'circuits.1.cable.ambientC', 'circuits.1.cable.insulatedLengthMm']);
+  });
+
   it('when a measured Zs is over the Table 41.3 maximum, then the check names the way and the rule', async () => {
     const schedule = makeSchedule(4);
     schedule.circuits[0].measuredZs = 1.52; // over 1.37 Ω for a B32 // BS 7671:2018+A2 Table 41.3

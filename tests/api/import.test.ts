@@ -20,6 +20,11 @@ function awkwardSchedule() {
   s.circuits[3].notes = '-3 dB? no: a note';
   s.circuits[4].measuredZs = null;
   s.circuits[4].cable.lengthM = 7.25;
+  // installation conditions, one of them below zero (a number, not a formula)
+  s.circuits[0].cable.groupedWith = 3;
+  s.circuits[1].cable.ambientC = -5;
+  s.circuits[2].cable.insulatedLengthMm = 250.5;
+  s.circuits[2].cable.ambientC = 35;
   return s;
 }
 
@@ -122,6 +127,26 @@ describe('circuit CSV', () => {
     expect(circuits[0].deviceId).toBe('d1');
     expect(circuits[1].cable.liveCsa).toBeNull();
     expect(circuits[2]).toMatchObject({ kind: 'other', deviceId: null, locations: ['Shed, rear'], legs: 1 });
+  });
+
+  it('when a file without the installation-condition columns is imported, then the board keeps its conditions; bad condition cells are refused', async () => {
+    const schedule = makeSchedule(2);
+    schedule.circuits[0].cable = { ...schedule.circuits[0].cable, ambientC: 35, groupedWith: 4, insulatedLengthMm: 100 };
+    const { id } = await createBoardWith(owner, schedule);
+    const records = parseCsv((await owner.get(`/api/boards/${id}/circuits.csv`).expect(200)).text);
+    const dropped = ['ambient_c', 'grouped_with', 'insulated_length_mm'].map((name) => records[0].indexOf(name));
+    expect(dropped.every((i) => i > 0)).toBe(true);
+    const older = records.map((r) => r.filter((_, i) => !dropped.includes(i)));
+    older[1][older[0].indexOf('label')] = 'Hall ring';
+    older.push(older[0].map((name) => ({ way: '7', label: 'Porch lights' } as Record<string, string>)[name] ?? ''));
+    const res = await owner.post(`/api/boards/${id}/circuits/import-csv`, { csv: older.map((r) => r.join(',')).join('\n'), baseRevision: 2 }).expect(200);
+    expect(res.body).toMatchObject({ revision: 3, changed: true });
+    const { circuits } = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
+    expect(circuits[0]).toMatchObject({ label: 'Hall ring', cable: { ambientC: 35, groupedWith: 4, insulatedLengthMm: 100 } });
+    expect(circuits[2].cable).toMatchObject({ ambientC: null, groupedWith: null, insulatedLengthMm: null });
+
+    const bad = await owner.post(`/api/boards/${id}/circuits/import-csv`, { csv: 'way,label,ambient_c,grouped_with,insulated_length_mm\n1,A,hot,2.5,-3\n', baseRevision: 3 }).expect(400);
+    expect(Object.keys(bad.body.error.fields).sort()).toEqual(['rows.2.ambient_c', 'rows.2.grouped_with', 'rows.2.insulated_length_mm']);
   });
 
   it('when CSV rows are bad, then 400 lists rows.<n>.<column> and nothing is imported', async () => {
