@@ -113,6 +113,23 @@ describe('building a board in the editor', () => {
     expect(app.outsideRequests).toEqual([]);
   }, 180_000);
 
+  it('when a ring final is marked as grouped with two other circuits in its drawer, then the capacity finding appears beside that field', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const boardId = await boardWithCircuits(page, 2);
+    await page.goto(`/boards/${boardId}`);
+    await page.locator('td[data-cell="label-c1"] input').waitFor();
+    // Way 1 is a 2.5 mm² ring on a B32 clipped direct: 27 A (Table 4D5, found) meets 433.1.204's 20 A.
+    expect(await finding(page, 'ring-iz-below-20').count()).toBe(0);
+
+    await page.getByRole('button', { name: 'Details of way 1' }).click();
+    await page.getByLabel('Circuits grouped, this one included').fill('3');
+    // 27 A × 0.70 for 3 circuits grouped (BS 7671 Table 4C1, from memory) = 18.9 A, below 20 A.
+    await finding(page, 'ring-iz-below-20').waitFor();
+    const beside = page.locator('[data-field="circuits.0.cable.groupedWith"]');
+    await beside.getByText(/18\.9 A at method C with Cg 0\.70 for 3 circuits grouped/).waitFor();
+    expect(app.pageErrors).toEqual([]);
+  }, 180_000);
+
   it('when someone else saved meanwhile, then Save offers to re-apply my edit onto their copy, and both edits are kept', async () => {
     const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
     const boardId = await boardWithCircuits(page, 3);
