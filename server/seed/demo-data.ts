@@ -4,7 +4,8 @@
  * workshop on three phases. Every private field is filled so privacy checks have something to hide,
  * and a few findings are left in on purpose so the findings panel has something to show:
  * flat way 5 is an old 2.5 mm² radial re-used on a B32 in an insulated stud wall (method 103), and its
- * Zs sits above the 80 % rule of thumb; the workshop's periodic inspection has fallen due.
+ * Zs sits above the 80 % rule of thumb; the workshop's periodic inspection has fallen due. Flat way 7 records
+ * its run through the extension roof insulation, so the capacity check works from the corrected value (and passes).
  * Names, addresses, e-mails (.example) and numbers (01632 96xxxx) are invented. No database code here.
  */
 import { scheduleSchema, type Schedule, type ScheduleInput } from '../../shared/schemas/schedule.js';
@@ -62,7 +63,10 @@ const flatMain: ScheduleInput = {
       notes: 'Re-used on a B32 when the board was changed. Quote for a new 4 mm² radial sent to the landlord; awaiting reply.', notesPublic: false,
     },
     { id: 'lights-front', way: 6, deviceId: 'w6', label: 'Lights front', kind: 'lighting', cable: te(1.5, 1, '100', 21), points: 9, locations: ['Hall', 'Living room', 'Bedroom 1'], measuredZs: 1.38 },
-    { id: 'lights-rear', way: 7, deviceId: 'w7', label: 'Lights rear', kind: 'lighting', cable: te(1.5, 1, '100', 17), points: 7, locations: ['Kitchen', 'Bathroom', 'Bedroom 2'], measuredZs: 1.12 },
+    {
+      id: 'lights-rear', way: 7, deviceId: 'w7', label: 'Lights rear', description: 'Crosses the kitchen extension roof void, buried in the loft insulation for about 2 m',
+      kind: 'lighting', cable: { ...te(1.5, 1, '100', 17), insulatedLengthMm: 2000 }, points: 7, locations: ['Kitchen', 'Bathroom', 'Bedroom 2'], measuredZs: 1.12,
+    },
     {
       id: 'studio', way: 8, deviceId: 'w8', label: 'Garden studio', description: 'Sub-main to the studio board, SWA buried across the garden',
       kind: 'sub-main', cable: { type: 'swa', liveCsa: 6, cpcCsa: 6, referenceMethod: 'D', lengthM: 24 }, locations: ['Garden', 'Studio'], measuredZs: 0.61,

@@ -21,6 +21,19 @@ describe('demo data', () => {
     expect(warnings.map((f) => f.code)).toEqual(['zs-over-rule-of-thumb']); // 1.21 Ω > 0.8 × 1.37 Ω (Table 41.3, IET rule of thumb)
   });
 
+  it('when the rear lights record their run buried in insulation, then their capacity is worked from it and still carries the B6', () => {
+    const flat = byKey.get('flat-main')!.schedule;
+    const index = flat.circuits.findIndex((c) => c.id === 'lights-rear');
+    expect(flat.circuits[index].cable).toMatchObject({ liveCsa: 1.5, referenceMethod: '100', insulatedLengthMm: 2000 });
+    // 20 A at method C (BS 7671 Table 4D5, found) × 0.5 for 0.5 m or more in insulation (523.9, from memory) = 10 A ≥ 6 A
+    const onWay = checkSchedule(flat, { today: TODAY }).filter((f) => f.field?.startsWith(`circuits.${index}.cable`));
+    expect(onWay).toEqual([]);
+    const onB16 = structuredClone(flat);
+    onB16.devices.find((d) => d.id === flat.circuits[index].deviceId)!.rating = 16; // 16 A ≤ 16 A at method 100 (Table 4D5, found), but > 10 A
+    const [over] = checkSchedule(onB16, { today: TODAY }).filter((f) => f.code === 'rating-over-iz' && f.ways.includes(7));
+    expect(over.message).toContain('10 A capacity of 1.5 mm² twin-and-earth at method C where it is in insulation (method 100 elsewhere) with Ci 0.50');
+  });
+
   it('when the studio board names its feed, then it points at a sub-main circuit on the flat board', () => {
     const studio = byKey.get('flat-studio')!;
     const feeder = byKey.get(studio.feedsFromKey!)!.schedule.circuits.find((c) => c.id === studio.feedsFromCircuitId);
