@@ -7,6 +7,9 @@ import type { BoardDetails, Circuit, Schedule } from '../schemas/schedule.js';
 import type { CheckContext, Finding, RuleSet, Severity } from './types.js';
 import { bs7671 } from './bs7671/index.js';
 
+/** "way 4" / "ways 1, 2 and 3": how a message or panel lists the ways of a finding. */
+export { waysText } from './bs7671/view.js';
+
 export type { CheckContext, Finding, RuleSet, Severity } from './types.js';
 
 /** The rule set used when a board names none. */

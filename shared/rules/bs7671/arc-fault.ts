@@ -6,7 +6,7 @@
  */
 import type { Finding } from '../types.js';
 import { SOCKET_RCD_MAX_RATING } from './tables.js';
-import { circuitFinding, circuitName, type CircuitFacts, type ScheduleView } from './view.js';
+import { circuitFinding, circuitName, waysText, type CircuitFacts, type ScheduleView } from './view.js';
 
 const RULE = 'BS 7671 421.1.7';
 
@@ -20,10 +20,6 @@ function lacksAfdd(f: CircuitFacts): boolean {
   return sockets && singlePhase && upTo32 && device.kind !== 'afdd';
 }
 
-function waysList(ways: number[]): string {
-  return ways.length === 1 ? `Way ${ways[0]}` : `Ways ${ways.slice(0, -1).join(', ')} and ${ways.at(-1)}`;
-}
-
 export function checkArcFault(view: ScheduleView): Finding[] {
   const missing = view.circuits.filter(lacksAfdd);
   if (!missing.length) return [];
@@ -34,6 +30,6 @@ export function checkArcFault(view: ScheduleView): Finding[] {
   const ways = [...new Set(missing.map((f) => f.circuit.way))].sort((a, b) => a - b);
   return [{
     severity: 'info', code: 'afdd-recommended', rule: RULE, ways, field: `circuits.${missing[0]!.index}.deviceId`,
-    message: `${waysList(ways)}: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A`,
+    message: `${waysText(ways, true)}: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A`,
   }];
 }

@@ -4,6 +4,7 @@
  */
 import type { Finding } from '../types.js';
 import { wayText } from '../../schedule/derive.js';
+import { TWIN_EARTH_CPC } from './tables.js';
 import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
 
 const RULE = 'Data check';
@@ -42,9 +43,20 @@ function deviceProblems(view: ScheduleView, f: CircuitFacts): Finding[] {
   return [];
 }
 
+/** Cables whose cpc is a core of the cable itself, never larger than the live cores (BS 6004 twin-and-earth, flex). */
+const INTEGRAL_CPC = new Set(['twin-earth', 'flex']);
+
 function cableProblems(f: CircuitFacts): Finding[] {
-  const { liveCsa, cpcCsa } = f.circuit.cable;
-  if (liveCsa == null || cpcCsa == null || cpcCsa <= liveCsa) return [];
+  const { type, liveCsa, cpcCsa } = f.circuit.cable;
+  // Twin-and-earth always has a cpc; without its size the cpc cannot be judged (fault current, R1+R2).
+  // Only once the live csa is recorded: a blank cable already gets "record the live conductor csa".
+  if (type === 'twin-earth' && liveCsa != null && cpcCsa == null) {
+    const usual = TWIN_EARTH_CPC[liveCsa];
+    return [circuitFinding(f, 'info', 'cpc-not-recorded', RULE, 'cable.cpcCsa',
+      `${circuitName(f.circuit)}: record the cpc csa of its twin-and-earth${usual != null ? ` (${num(liveCsa)} mm² twin-and-earth usually has ${num(usual)} mm²)` : ''}; without it the cpc cannot be judged for Zs or the adiabatic check (543.1.3)`)];
+  }
+  // SWA armour or a separate cpc in conduit may rightly be larger than the live conductors.
+  if (!INTEGRAL_CPC.has(type) || liveCsa == null || cpcCsa == null || cpcCsa <= liveCsa) return [];
   return [circuitFinding(f, 'warning', 'cpc-larger-than-live', RULE, 'cable.cpcCsa',
     `${circuitName(f.circuit)}: cpc ${num(cpcCsa)} mm² is larger than the live conductors (${num(liveCsa)} mm²); the two sizes may be swapped`)];
 }

@@ -5,18 +5,21 @@
 import type { RuleSet } from '../types.js';
 import { checkAdditionalProtection } from './additional-protection.js';
 import { checkArcFault } from './arc-fault.js';
+import { checkBreakingCapacity } from './breaking-capacity.js';
 import { checkCapacity } from './capacity.js';
 import { checkCircuitData } from './data-circuits.js';
 import { checkDeviceData } from './data-devices.js';
 import { checkEarthFaultLoop, zsLimit } from './earth-fault-loop.js';
 import { checkInspection, nextInspectionOn } from './inspection.js';
 import { checkLightingSpread } from './lighting-spread.js';
+import { checkRcdType } from './rcd-type.js';
 import { viewOf } from './view.js';
 import { checkVoltageDrop } from './voltage-drop.js';
 
 export { maxZs, zsLimit, disconnectionSeconds, type ZsLimit } from './earth-fault-loop.js';
 export { twinEarthIz } from './capacity.js';
 export { estimatedVoltageDrop } from './voltage-drop.js';
+export { waysText } from './view.js';
 export { nextInspectionOn, inspectionIntervalMonths } from './inspection.js';
 
 /** The UK rule set, registered in `shared/rules/index.ts`; the checks run in the order findings are grouped on the panel. */
@@ -29,8 +32,10 @@ export const bs7671: RuleSet = {
       ...checkCircuitData(view),
       ...checkDeviceData(view),
       ...checkCapacity(view),
+      ...checkBreakingCapacity(view),
       ...checkEarthFaultLoop(view),
       ...checkAdditionalProtection(view),
+      ...checkRcdType(view),
       ...checkArcFault(view),
       ...checkVoltageDrop(view),
       ...checkLightingSpread(view),

@@ -152,3 +152,16 @@ export const DWELLINGS: ReadonlySet<InstallationType> = new Set<InstallationType
 
 /** How far ahead an inspection counts as "due soon" (common practice: plan a quarter ahead). */
 export const INSPECTION_DUE_SOON_DAYS = 90;
+
+/**
+ * Breaking capacity (434.5.1, from memory): a device's rated short-circuit capacity (Icn for BS EN 60898
+ * breakers and BS EN 61009 RCBOs) at least the prospective fault current where it is installed, unless a
+ * device on the supply side with enough capacity gives backup protection. A consumer unit or distribution
+ * board to BS EN 61439-3 commonly carries a 16 kA conditional short-circuit rating with the maker's devices,
+ * which is such backup (from memory / common practice). 6 kA is the usual rating of domestic breakers
+ * (common practice), so a device of unknown capacity is only worth a note where the PFC is above it.
+ */
+export const BREAKING_CAPACITY = { usualConditionalKa: 16, usualDomesticKa: 6 } as const;
+
+/** cpc csa of flat twin-and-earth (BS 6004, 6242Y) by live csa, mm² (from memory), for the hint in "record the cpc". */
+export const TWIN_EARTH_CPC: Record<number, number> = { 1: 1, 1.5: 1, 2.5: 1.5, 4: 1.5, 6: 2.5, 10: 4, 16: 6 };

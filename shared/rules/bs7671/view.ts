@@ -61,6 +61,18 @@ export function circuitFinding(f: CircuitFacts, severity: Severity, code: string
   return { severity, code, rule, ways: [f.circuit.way], field: `circuits.${f.index}.${field}`, message };
 }
 
+/**
+ * A list of ways as a sentence says it: "way 4", "ways 1 and 3", "ways 1, 2 and 3 L2".
+ * `capital` starts it with "Way"/"Ways" for the head of a message. Items are way texts
+ * (`wayText`, so "3 L2" on a three-phase board) or numbers.
+ */
+export function waysText(ways: readonly (string | number)[], capital = false): string {
+  const items = ways.map(String);
+  const word = `${capital ? 'W' : 'w'}ay${items.length === 1 ? '' : 's'}`;
+  const listed = items.length <= 1 ? items.join('') : `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`;
+  return `${word} ${listed}`;
+}
+
 /** Way numbers fed by a device, for device-level findings. */
 export function waysOfDevice(view: ScheduleView, deviceId: string): number[] {
   return [...new Set(view.circuits.filter((c) => c.circuit.deviceId === deviceId).map((c) => c.circuit.way))].sort((a, b) => a - b);

@@ -60,6 +60,21 @@ describe('cable and device values', () => {
     expect(withCode(oneCircuit({}, { cable: { liveCsa: 2.5, cpcCsa: 1.5 } }), 'cpc-larger-than-live')).toEqual([]);
   });
 
+  it('when SWA or singles record a cpc larger than the live cores, then no warning: armour or a separate cpc may be larger', () => {
+    expect(withCode(oneCircuit({}, { cable: { type: 'swa', liveCsa: 2.5, cpcCsa: 16 } }), 'cpc-larger-than-live')).toEqual([]); // armour as cpc (common practice)
+    expect(withCode(oneCircuit({}, { cable: { type: 'singles-conduit', liveCsa: 2.5, cpcCsa: 4 } }), 'cpc-larger-than-live')).toEqual([]);
+  });
+
+  it('when twin-and-earth has a live csa but no cpc csa, then a note to record it, with the usual size', () => {
+    const [f] = withCode(oneCircuit({}, { cable: { liveCsa: 2.5, cpcCsa: null } }), 'cpc-not-recorded');
+    expect(f).toMatchObject({ severity: 'info', field: 'circuits.0.cable.cpcCsa', ways: [1] });
+    expect(f!.message).toContain('2.5 mm² twin-and-earth usually has 1.5 mm²'); // BS 6004 6242Y 2.5/1.5 (from memory)
+    expect(f!.message).toContain('adiabatic check (543.1.3)'); // BS 7671 543.1.3 (from memory)
+    expect(withCode(oneCircuit({}, { cable: { liveCsa: 2.5, cpcCsa: 1.5 } }), 'cpc-not-recorded')).toEqual([]);
+    expect(withCode(oneCircuit({}, { cable: { liveCsa: null, cpcCsa: null } }), 'cpc-not-recorded')).toEqual([]); // blank cable: "record the live csa" comes first
+    expect(withCode(oneCircuit({}, { cable: { type: 'swa', liveCsa: 4, cpcCsa: null } }), 'cpc-not-recorded')).toEqual([]); // armour as cpc: no cpc core to record
+  });
+
   it('when a breaker is 33 A, then no breaker is made in it; 32 A and 13 A are made', () => {
     expect(withCode(oneCircuit({ kind: 'mcb', rating: 33, residualMa: null }, {}), 'rating-not-made')[0]).toMatchObject({ severity: 'warning', field: 'devices.0.rating', ways: [1] });
     expect(withCode(oneCircuit({ kind: 'mcb', rating: 32, residualMa: null }, {}), 'rating-not-made')).toEqual([]); // BS EN 60898-1 preferred values (from memory)

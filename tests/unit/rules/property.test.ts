@@ -47,6 +47,7 @@ const schedule: fc.Arbitrary<Schedule> = fc.record({
     supply: fc.record({
       earthing: fc.constantFrom(...earthingArrangements), nominalVoltage: fc.constantFrom(110, 230, 240, 400, 1000),
       ze: maybe(fc.double({ min: 0, max: 200, noNaN: true })),
+      pfcKa: maybe(fc.constantFrom(0, 3, 6, 6.4, 16, 25)), // reaches the breaking-capacity check on either side of 6 and 16 kA
     }),
   }),
   devices: fc.array(device, { maxLength: 12 }),

@@ -19,6 +19,9 @@ describe('demo data', () => {
     expect(errors).toEqual(['flat-main rating-over-iz 5']); // 32 A on 2.5 mm² at method 103, Iz 13.5 A (BS 7671 Table 4D5, from memory)
     const warnings = checkSchedule(byKey.get('flat-main')!.schedule, { today: TODAY }).filter((f) => f.severity === 'warning');
     expect(warnings.map((f) => f.code)).toEqual(['zs-over-rule-of-thumb']); // 1.21 Ω > 0.8 × 1.37 Ω (Table 41.3, IET rule of thumb)
+    // The workshop's 6 kA RCBOs sit below its 6.4 kA PFC: a warning to confirm the board's conditional rating (BS 7671 434.5.1, from memory)
+    const workshop = checkSchedule(byKey.get('workshop')!.schedule, { today: TODAY }).filter((f) => f.severity === 'warning');
+    expect(workshop.map((f) => f.code)).toEqual(['inspection-overdue', 'breaking-capacity-below-pfc']);
   });
 
   it('when the rear lights record their run buried in insulation, then their capacity is worked from it and still carries the B6', () => {
