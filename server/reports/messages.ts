@@ -6,7 +6,8 @@
 export interface ReportMailInput {
   boardName: string;
   boardCode: string;
-  way: number | null;
+  /** The way as the board writes it: "4", or "4 L2" on a three-phase board. */
+  way: string | null;
   message: string;
   reporterName: string;
   reporterContact: string;

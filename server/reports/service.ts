@@ -6,16 +6,34 @@ import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import { invalid, notFound } from '../errors.js';
 import { readStoredSchedule } from '../boards/stored.js';
+import { wayText } from '../../shared/schedule/derive.js';
+import type { Schedule } from '../../shared/schemas/schedule.js';
 import type { Report, ReportResolve, ReportSubmit } from '../../shared/schemas/reports.js';
 import { findMemberBoard } from '../public/repository.js';
 import { boardForToken } from '../public/service.js';
 import { reportMail } from './messages.js';
 import * as repo from './repository.js';
 
+/** The way a report names as the board writes it ("4", "4 L2"), or null when none is named. */
+const reportedWay = (input: ReportSubmit): string | null => (input.way == null ? null : wayText({ way: input.way, phase: input.phase ?? null }));
+
 /** The report's text as stored: the way it names, if any, leads the message (unless the visitor already began with it). */
 function storedMessage(input: ReportSubmit): string {
-  if (input.way == null || new RegExp(`^\\s*way\\s*${input.way}\\b`, 'i').test(input.message)) return input.message;
-  return `Way ${input.way}: ${input.message}`;
+  const way = reportedWay(input);
+  if (way == null) return input.message;
+  const begins = new RegExp(`^\\s*way\\s*${way.replace(' ', '\\s*')}\\b`, 'i');
+  return begins.test(input.message) ? input.message : `Way ${way}: ${input.message}`;
+}
+
+/** A 400 naming the field when the reported way (or that phase of it) is not on the board. */
+function checkReportedWay(schedule: Schedule, input: ReportSubmit): void {
+  if (input.way == null) return;
+  if (!schedule.circuits.some((c) => c.way === input.way)) {
+    throw invalid('There is no such way on this board', { way: `No way ${input.way} on this board` });
+  }
+  if (input.phase != null && !schedule.circuits.some((c) => c.way === input.way && c.phase === input.phase)) {
+    throw invalid('There is no such way on this board', { phase: `No way ${reportedWay(input)} on this board` });
+  }
 }
 
 async function notifyOrganisation(ctx: AppContext, to: string[], mail: { subject: string; text: string }): Promise<void> {
@@ -36,15 +54,13 @@ export async function submitReport(ctx: AppContext, token: string, input: Report
   if (input.website) return;
   const board = await boardForToken(ctx.db, token);
   const schedule = readStoredSchedule(board.schedule);
-  if (input.way != null && !schedule.circuits.some((c) => c.way === input.way)) {
-    throw invalid('There is no such way on this board', { way: `No way ${input.way} on this board` });
-  }
+  checkReportedWay(schedule, input);
   await repo.insertReport(ctx.db, {
     boardId: board.id, message: storedMessage(input), reporterName: input.name ?? '', reporterContact: input.contact ?? '',
   });
   const to = board.organisation.contactEmail ? [board.organisation.contactEmail] : await repo.ownerEmails(ctx.db, board.organisationId);
   await notifyOrganisation(ctx, to, reportMail({
-    boardName: board.name, boardCode: board.code, way: input.way ?? null, message: input.message,
+    boardName: board.name, boardCode: board.code, way: reportedWay(input), message: input.message,
     reporterName: input.name ?? '', reporterContact: input.contact ?? '',
     reviewUrl: `${ctx.config.publicBaseUrl}/boards/${board.id}/page`,
   }));

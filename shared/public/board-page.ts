@@ -8,6 +8,7 @@ import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
 import type { PublicBoard, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
 import { circuitsInWayOrder, deviceKindName, deviceShortText, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
 import { boardCautions } from './cautions.js';
+import { supplyVoltages, supplyVoltageText } from './voltage.js';
 
 /** What the server adds around the schedule; all of it is public by the organisation's choice. */
 export interface PublicBoardMeta {
@@ -46,7 +47,16 @@ function publicWay(c: Circuit, devices: Map<string, Device>, rcds: Map<string, D
     device: device ? publicDeviceText(device) : '',
     rcd: c.deviceId ? wayRcd(rcds.get(c.deviceId), names) : null,
     notes: c.notesPublic ? c.notes : '',
+    feedsAnotherBoard: feedsAnotherBoard(c),
   };
+}
+
+/**
+ * A sub-main takes a whole board with it. Only the schedule's own facts are used (the kind, or the
+ * link to the board it feeds); the other board is not read, so the page costs no extra query.
+ */
+function feedsAnotherBoard(c: Circuit): boolean {
+  return c.kind === 'sub-main' || c.feedsBoardId != null;
 }
 
 function publicRcdGroups(schedule: Schedule): PublicRcdGroup[] {
@@ -54,7 +64,7 @@ function publicRcdGroups(schedule: Schedule): PublicRcdGroup[] {
     name: g.name,
     device: publicDeviceText(g.rcd),
     rcdType: g.rcd.rcdType,
-    ways: g.circuits.map((c) => ({ wayText: wayText(c), label: c.label })),
+    ways: g.circuits.map((c) => ({ wayText: wayText(c), label: c.label, feedsAnotherBoard: feedsAnotherBoard(c) })),
   }));
 }
 
@@ -75,6 +85,8 @@ export function toPublicBoard(schedule: Schedule, meta: PublicBoardMeta): Public
     supply: {
       earthing: board.supply.earthing,
       nominalVoltage: board.supply.nominalVoltage,
+      betweenPhasesVoltage: supplyVoltages(board.phases, board.supply.nominalVoltage).betweenPhases,
+      voltageText: supplyVoltageText(board.phases, board.supply.nominalVoltage),
       ze: board.supply.ze,
       pfcKa: board.supply.pfcKa,
       mainSwitchRating: board.supply.mainSwitchRating,

@@ -16,15 +16,26 @@ export const GENERAL_CAUTIONS: readonly string[] = [
   'This page shows the board as last recorded. Check it against the board itself before relying on it.',
 ];
 
-/** The general cautions plus those this board calls for (another source of supply, mixed wiring colours). */
-export function boardCautions(board: Pick<BoardDetails, 'alternativeSupply' | 'mixedWiringColours'>): string[] {
+/**
+ * The caution of a three-phase board. BS 7671 514.10.1 asks for a warning where more than 230 V
+ * to earth would not normally be expected; between the phases of a 230 V supply there are 400 V.
+ */
+export const THREE_PHASE_CAUTION =
+  'Danger: 400 V. This is a three-phase board: 400 V is present between the phases, here and at the three-phase equipment it feeds. Isolate all three phases before any work.';
+
+/** The general cautions plus those this board calls for (three phases, another source of supply, mixed wiring colours). */
+export function boardCautions(board: Pick<BoardDetails, 'alternativeSupply' | 'mixedWiringColours' | 'phases'>): string[] {
   const out = [...GENERAL_CAUTIONS];
+  const early: string[] = [];
+  if (board.phases === 3) early.push(THREE_PHASE_CAUTION);
   if (board.alternativeSupply.present) {
     const kinds = board.alternativeSupply.kinds.map((k) => ALTERNATIVE_SUPPLY_NAMES[k]);
     const what = kinds.length ? ` (${kinds.join(', ')})` : '';
     // BS 7671 514.15.1: isolate both sources.
-    out.splice(1, 0, `This installation has another source of supply${what}. Switching off this board alone may not make it dead: isolate every source.`);
+    early.push(`This installation has another source of supply${what}. Switching off this board alone may not make it dead: isolate every source.`);
   }
+  // The dangers of this board come straight after "isolate and prove dead".
+  out.splice(1, 0, ...early);
   if (board.mixedWiringColours) {
     // BS 7671 514.14.1: wiring to two versions of the colour code.
     out.push('Wiring in both the old and the new colour codes is present. Identify each conductor before you disconnect anything.');

@@ -27,6 +27,8 @@ export const publicWaySchema = z.object({
   rcd: publicWayRcdSchema.nullable(),
   /** The circuit's notes only when the organisation marked them public, else empty. */
   notes: z.string(),
+  /** A sub-main: switching it off or a trip takes everything on the board it feeds with it. */
+  feedsAnotherBoard: z.boolean(),
 });
 
 /** "If RCD 1 trips, these go off." */
@@ -34,7 +36,7 @@ export const publicRcdGroupSchema = z.object({
   name: z.string(),
   device: z.string(),
   rcdType: z.enum(rcdTypes).nullable(),
-  ways: z.array(z.object({ wayText: z.string(), label: z.string() })),
+  ways: z.array(z.object({ wayText: z.string(), label: z.string(), feedsAnotherBoard: z.boolean() })),
 });
 
 export const publicBoardSchema = z.object({
@@ -42,7 +44,12 @@ export const publicBoardSchema = z.object({
   contractor: z.object({ name: z.string(), phone: z.string(), email: z.string(), hasLogo: z.boolean() }),
   supply: z.object({
     earthing: z.enum(earthingArrangements),
+    /** Nominal voltage to earth as recorded. */
     nominalVoltage: z.number(),
+    /** Voltage between phases on a three-phase board (400 for a 230 V supply), else null. */
+    betweenPhasesVoltage: z.number().nullable(),
+    /** "230 V, single-phase" or "400/230 V (three-phase, 230 V to earth)". */
+    voltageText: z.string(),
     ze: z.number().nullable(),
     pfcKa: z.number().nullable(),
     mainSwitchRating: z.number().nullable(),

@@ -1,7 +1,8 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
 import { publicBoardSchema } from '../../shared/schemas/public-board.js';
-import { GENERAL_CAUTIONS } from '../../shared/public/cautions.js';
+import { GENERAL_CAUTIONS, THREE_PHASE_CAUTION } from '../../shared/public/cautions.js';
+import { demoSites } from '../../server/seed/demo-data.js';
 import type { ServerConfig } from '../../server/config.js';
 import { startTestApp, type TestApp } from '../helpers/app.js';
 import { createBoard, markedSite, PRIVATE_MARK, signupMarkedOwner } from './public-fixture.js';
@@ -69,6 +70,45 @@ describe('the public board page data', () => {
     // IET Guidance Note 3: domestic installations, 10 years (REFERENCE.md, found in secondary pages).
     expect(page.inspection.nextOn).toBe('2034-03-11');
     for (const caution of GENERAL_CAUTIONS) expect(page.cautions).toContain(caution);
+  });
+
+  it('when a three-phase board is read, then it carries the 400 V caution, 400/230 V and its past recommended inspection date', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const workshop = demoSites[1].boards[0].schedule;
+    const board = await createBoard(owner, workshop, false);
+    const page = publicBoardSchema.parse((await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body);
+    expect(page.board.phases).toBe(3);
+    // BS 7671 514.10.1 (REFERENCE.md, found): a warning where more than 230 V to earth would not normally be expected.
+    expect(page.cautions).toContain(THREE_PHASE_CAUTION);
+    // IEC 60038 nominal 230/400 V (from memory).
+    expect(page.supply).toMatchObject({ nominalVoltage: 230, betweenPhasesVoltage: 400, voltageText: '400/230 V (three-phase, 230 V to earth)' });
+    // IET Guidance Note 3 (REFERENCE.md, secondary pages): industrial, 3 years from 8 November 2022. "Overdue" is the browser's call.
+    expect(page.inspection).toEqual({ lastOn: '2022-11-08', nextOn: '2025-11-08' });
+    expect(page.ways.map((w) => w.wayText)).toEqual(['1', '2', '3', '4 L1', '4 L2', '4 L3', '5 L1', '5 L2']);
+  });
+
+  it('when the board is switched from one phase to three, then the next read shows the 400 V caution (the projection is rebuilt)', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const board = await createBoard(owner, undefined, false);
+    const before = (await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body;
+    expect(before.cautions).not.toContain(THREE_PHASE_CAUTION);
+    const { id: _i, revision, updatedAt: _u, code: _c, siteId: _s, ...schedule } = (await owner.get(`/api/boards/${board.id}/schedule`).expect(200)).body;
+    await owner.put(`/api/boards/${board.id}/schedule`, { ...schedule, board: { ...schedule.board, phases: 3 }, baseRevision: revision }).expect(200);
+    const after = (await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body;
+    expect(after.cautions).toContain(THREE_PHASE_CAUTION);
+    expect(after.supply.voltageText).toBe('400/230 V (three-phase, 230 V to earth)');
+  });
+
+  it('when a way is a sub-main linked to another board, then the page flags it without naming the other board\'s id', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const studio = await createBoard(owner, demoSites[0].boards[1].schedule, false);
+    const main = demoSites[0].boards[0].schedule;
+    const linked = { ...main, circuits: main.circuits.map((c) => (c.kind === 'sub-main' ? { ...c, feedsBoardId: studio.id } : c)) };
+    const board = await createBoard(owner, linked, false);
+    const body = (await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body;
+    const page = publicBoardSchema.parse(body);
+    expect(page.ways.filter((w) => w.feedsAnotherBoard).map((w) => [w.wayText, w.label])).toEqual([['8', 'Garden studio']]);
+    expect(keysOf(body).has('feedsBoardId')).toBe(false);
   });
 
   it('when the schedule or the contractor contact changes after the page was read, then the next read shows the change', async () => {

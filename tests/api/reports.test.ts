@@ -7,6 +7,10 @@ import { reportListSchema } from '../../shared/schemas/reports.js';
 import { client, mailTo, startTestApp, waitForMail, type TestApp } from '../helpers/app.js';
 import { addMember } from '../helpers/accounts.js';
 import { createBoard, signupMarkedOwner } from './public-fixture.js';
+import { demoSites } from '../../server/seed/demo-data.js';
+
+/** A demo board's schedule, as stored by the seed. */
+const demoBoard = (key: string) => demoSites.flatMap((s) => s.boards).find((b) => b.key === key)!.schedule;
 
 let t: TestApp;
 // This file sends many reports from one address; the limits themselves are tested at the end.
@@ -78,6 +82,29 @@ describe('discrepancy reports from the board page', () => {
     expect((await visitor.post(path, { message: 'ok', way: 'three' }).expect(400)).body.error.fields.way).toBeTruthy();
     expect((await visitor.post(path, { message: 'ok', boardId: 1 }).expect(400)).body.error.fields).toBeDefined();
     expect(await storedReports(board.id)).toEqual([]);
+  });
+
+  it('when a visitor names one phase of a way on a three-phase board, then it is accepted, stored and mailed as "4 L2"; a phase the way lacks is 400', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const board = await createBoard(owner, demoBoard('workshop'), false);
+    const visitor = await client(t.app);
+    const path = `/api/public/boards/${board.token}/reports`;
+    // The workshop's way 4 is three single-phase RCBOs, 4 L1 to 4 L3 (our demo data).
+    await visitor.post(path, { message: 'Bench sockets are now on the other wall', way: 4, phase: 'L2' }).expect(202);
+    const mail = await simpleParser((await waitForMail(t.database, owner.contactEmail)).raw);
+    expect(mail.text).toContain('Way: 4 L2');
+    expect((await storedReports(board.id)).map((r) => r.message)).toEqual(['Way 4 L2: Bench sockets are now on the other wall']);
+    // A visitor who began with the way and phase is not repeated; a way without a phase is still fine.
+    await visitor.post(path, { message: 'Way 4 L3 label is faded', way: 4, phase: 'L3' }).expect(202);
+    await visitor.post(path, { message: 'Not sure which phase', way: 4 }).expect(202);
+    expect((await storedReports(board.id)).map((r) => r.message).sort()).toEqual([
+      'Way 4 L2: Bench sockets are now on the other wall', 'Way 4 L3 label is faded', 'Way 4: Not sure which phase',
+    ]);
+    // Way 5 has no circuit on L3 (its device there is a spare), so "5 L3" is no way of this board.
+    expect((await visitor.post(path, { message: 'ok', way: 5, phase: 'L3' }).expect(400)).body.error.fields.phase).toMatch(/No way 5 L3/);
+    expect((await visitor.post(path, { message: 'ok', way: 4, phase: 'L4' }).expect(400)).body.error.fields.phase).toBeTruthy();
+    expect((await visitor.post(path, { message: 'ok', phase: 'L1' }).expect(400)).body.error.fields.phase).toMatch(/way number/);
+    expect(await storedReports(board.id)).toHaveLength(3);
   });
 
   it('when the write carries no CSRF token, then 403; when the page is off, then 404', async () => {

@@ -19,6 +19,8 @@ afterAll(async () => { await app?.close(); });
 
 /** The demo flat's main board: way 8 is the sub-main to the garden studio. */
 const flatMain = demoSites[0].boards.find((b) => b.key === 'flat-main')!.schedule;
+/** The demo workshop: three phases, way 4 split into 4 L1–4 L3, last inspected 8 November 2022. */
+const workshop = demoSites[1].boards.find((b) => b.key === 'workshop')!.schedule;
 const PHONE = { width: 390, height: 844 };
 const DIST = join(import.meta.dirname, '..', '..', 'dist');
 /** The issue's budget for the board page route on a weak signal. */
@@ -28,14 +30,14 @@ async function csrf(request: APIRequestContext): Promise<string> {
   return ((await (await request.get('/api/auth/csrf')).json()) as { token: string }).token;
 }
 
-/** Stores the demo board through the API, as the editor would, and returns its id. */
-async function storeDemoBoard(page: Page, contactEmail = uniqueEmail('office')): Promise<number> {
+/** Stores a demo board through the API, as the editor would, and returns its id. */
+async function storeDemoBoard(page: Page, contactEmail = uniqueEmail('office'), schedule = flatMain): Promise<number> {
   const headers = { 'X-CSRF-Token': await csrf(page.request) };
-  const created = await page.request.post('/api/boards', { headers, data: { name: flatMain.board.name } });
+  const created = await page.request.post('/api/boards', { headers, data: { name: schedule.board.name } });
   expect(created.status()).toBe(201);
   const { id } = await created.json() as { id: number };
   const current = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as { revision: number };
-  const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...flatMain, baseRevision: current.revision } });
+  const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: current.revision } });
   expect(saved.status()).toBe(200);
   await page.request.put('/api/organisation', { headers, data: { name: 'Brightwire Test Electrical', contactPhone: '01632 960418', contactEmail } });
   return id;
@@ -86,6 +88,9 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     expect(await studio.getByRole('heading').textContent()).toContain('Garden studio');
     expect(await studio.textContent()).toContain('RCBO B32 100 mA');
     expect(await studio.textContent()).toContain('Own RCBO');
+    // A sub-main takes the studio board with it: the card must not say only this way goes off.
+    expect(await studio.textContent()).toContain('everything on that board goes off too');
+    expect(await studio.textContent()).not.toContain('only this way goes off');
     expect(await page.getByText('Kitchen sockets').count()).toBe(0);
 
     // Nothing is cut off or needs sideways scrolling on a phone.
@@ -93,6 +98,8 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     const scrollWidth = await page.evaluate(() => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth);
     expect(scrollWidth).toBeLessThanOrEqual(PHONE.width);
     await page.getByLabel('Find a way by room, place or name').fill('');
+    // Every way of the flat has its own RCBO, so "if an RCD trips" names the sub-main's RCBO on its own line.
+    expect(await page.locator('.public-rcds').textContent()).toContain('If the RCBO of way 8 (Garden studio) trips, everything on the board it feeds goes off too');
     const axe = await new AxeBuilder({ page }).analyze();
     const serious = axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
@@ -132,6 +139,62 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     const mail = await simpleParser((await waitForMail(app.database, contactEmail, 10_000)).raw);
     expect(mail.text).toContain('Way 8 also feeds the shed lights');
     expect(mail.text).toContain('Way: 8');
+  });
+
+  it('when the three-phase workshop board is opened at 390×844, then the 400 V caution, 400/230 V and "overdue" show in words, and a report names 4 L2', async () => {
+    const { page: owner } = await signedInOwnerPage(app, 'Brightwire Test Electrical');
+    const contactEmail = uniqueEmail('office');
+    const boardId = await storeDemoBoard(owner, contactEmail, workshop);
+    const token = ((await (await owner.request.get(`/api/boards/${boardId}`)).json()) as { publicToken: string }).publicToken;
+
+    const page = await app.newPage({ viewport: PHONE });
+    page.setDefaultTimeout(60_000);
+    // IET Guidance Note 3 (REFERENCE.md, secondary pages): industrial, 3 years, so due by 8 November 2025. The browser's day decides.
+    await page.clock.setFixedTime(new Date(2025, 10, 9, 9, 0));
+    await page.goto(`/b/${token}`, { waitUntil: 'networkidle' });
+    await page.getByRole('heading', { level: 1, name: workshop.board.name }).waitFor();
+    // BS 7671 514.10.1 (REFERENCE.md, found): warn where more than 230 V to earth would not normally be expected.
+    const cautions = page.locator('.public-cautions li');
+    expect(await cautions.nth(1).textContent()).toContain('400 V is present between the phases');
+    // IEC 60038 nominal 230/400 V (from memory).
+    expect(await page.locator('.public-facts__list').textContent()).toContain('400/230 V (three-phase, 230 V to earth)');
+    await page.getByRole('heading', { name: 'Inspection overdue' }).waitFor();
+    expect(await page.locator('.public-overdue').textContent()).toContain('recommended by 8 November 2025');
+    expect(await page.locator('.public-facts__list').textContent()).toContain('Overdue (recommended by 8 November 2025)');
+    const scrollWidth = await page.evaluate(() => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth);
+    expect(scrollWidth).toBeLessThanOrEqual(PHONE.width);
+    const axe = await new AxeBuilder({ page }).analyze();
+    expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual([]);
+    await page.screenshot({ path: join(tmpdir(), 'waymark-board-page-3phase-390.png'), fullPage: true });
+
+    // Search by way and phase, as printed on the board.
+    await page.getByLabel('Find a way by room, place or name').fill('way 4 L2');
+    await page.getByText('1 of 8 ways match').waitFor();
+    expect(await page.locator('.public-way').first().getByRole('heading').textContent()).toContain('Bench sockets');
+    await page.getByLabel('Find a way by room, place or name').fill('');
+
+    // Each phase of way 4 can be picked in the report, and the contractor's e-mail names it.
+    await page.getByRole('button', { name: 'Tell Brightwire Test Electrical' }).click();
+    const wayPicker = page.getByLabel('Which way? (optional)');
+    await wayPicker.waitFor();
+    const choices = await wayPicker.locator('option').allTextContents();
+    expect(choices).toEqual(expect.arrayContaining(['Way 4 L1', 'Way 4 L2', 'Way 4 L3']));
+    await page.getByLabel('What does not match? (required)').fill('Bench sockets moved to the east wall');
+    await wayPicker.selectOption({ label: 'Way 4 L2' });
+    await page.getByRole('button', { name: 'Send report' }).click();
+    await page.getByText(/Your report has gone to Brightwire Test Electrical/).waitFor();
+    const mail = await simpleParser((await waitForMail(app.database, contactEmail, 10_000)).raw);
+    expect(mail.text).toContain('Way: 4 L2');
+
+    // The day before the date has not passed: no "overdue" anywhere.
+    const earlier = await app.newPage({ viewport: PHONE });
+    earlier.setDefaultTimeout(60_000);
+    await earlier.clock.setFixedTime(new Date(2025, 10, 7, 9, 0));
+    await earlier.goto(`/b/${token}`, { waitUntil: 'networkidle' });
+    await earlier.getByRole('heading', { level: 1, name: workshop.board.name }).waitFor();
+    expect(await earlier.locator('.public-facts__list').textContent()).toContain('Recommended by 8 November 2025');
+    expect(await earlier.getByText(/overdue/i).count()).toBe(0);
+    expect(app.pageErrors).toEqual([]);
   });
 
   it('when the token is unknown, then a plain not-found page that names no board', async () => {
