@@ -49,6 +49,8 @@ export const usePrintStore = defineStore('print', () => {
   const previewFields = ref<Record<string, string>>({});
   const warnings = shallowRef<PrintWarning[]>([]);
   const pageCount = ref(0);
+  /** The selection the PDF on show was made for, so a PDF is never offered for other settings. */
+  const previewedFor = ref<string | null>(null);
 
   const history = shallowRef<PrintRecord[]>([]);
   const historyStatus = ref<PrintStatus>('idle');
@@ -64,18 +66,38 @@ export const usePrintStore = defineStore('print', () => {
     previewUrl.value = url;
   }
 
+  /** Never leaves a PDF of other settings on show, nor its warnings, beside an error. */
+  function showNoPreview(message: string | null, fields: Record<string, string>): void {
+    setPreviewUrl(null);
+    previewedFor.value = null;
+    warnings.value = [];
+    pageCount.value = 0;
+    previewError.value = message;
+    previewFields.value = fields;
+    previewStatus.value = 'error';
+  }
+
   /** Fetches the PDF for what is picked now; an older request still running is cancelled. */
   async function refreshPreview(): Promise<void> {
-    if (boardId.value === null || Object.keys(errors.value).length) return;
+    if (boardId.value === null) return;
+    if (Object.keys(errors.value).length) {
+      // The marked field says what is wrong; an answer still coming is for other settings.
+      inFlight?.abort();
+      generation++;
+      showNoPreview(null, {});
+      return;
+    }
     inFlight?.abort();
     const controller = new AbortController();
     inFlight = controller;
     const mine = ++generation;
     previewStatus.value = 'loading';
+    const asked = selection.value;
     try {
-      const pdf = await printApi.fetchPdf(boardId.value, selection.value, { signal: controller.signal });
+      const pdf = await printApi.fetchPdf(boardId.value, asked, { signal: controller.signal });
       if (controller.signal.aborted) return;
       setPreviewUrl(URL.createObjectURL(pdf.blob));
+      previewedFor.value = JSON.stringify(asked);
       warnings.value = pdf.warnings;
       pageCount.value = pdf.pageCount;
       if (pdf.warnings.at(-1)?.code === 'more-warnings') void loadAllWarnings(mine);
@@ -84,9 +106,7 @@ export const usePrintStore = defineStore('print', () => {
       previewStatus.value = 'ready';
     } catch (err) {
       if (controller.signal.aborted) return;
-      previewError.value = err instanceof Error ? err.message : String(err);
-      previewFields.value = err instanceof ApiError ? err.fields : {};
-      previewStatus.value = 'error';
+      showNoPreview(err instanceof Error ? err.message : String(err), err instanceof ApiError ? err.fields : {});
     } finally {
       if (inFlight === controller) inFlight = null;
     }
@@ -137,6 +157,7 @@ export const usePrintStore = defineStore('print', () => {
     inFlight?.abort();
     inFlight = null;
     setPreviewUrl(null);
+    previewedFor.value = null;
     boardId.value = null;
     previewStatus.value = 'idle';
     warnings.value = [];
@@ -158,13 +179,31 @@ export const usePrintStore = defineStore('print', () => {
     return pack;
   }
 
+  /**
+   * Download, print and pack are offered only while the settings picked make a PDF: none while
+   * the browser's own check fails, while the last preview was refused, and until the preview of
+   * what is picked now has come (the PDF printed is then the one seen).
+   */
+  const printable = computed(() => Object.keys(errors.value).length === 0 && previewStatus.value === 'ready'
+    && previewedFor.value === JSON.stringify(selection.value));
+
+  /**
+   * True when every field the server named in its refusal is a control on the page (the medium
+   * or one of this output's options), so the message is shown there and not again over the preview.
+   */
+  const previewErrorBesideFields = computed(() => {
+    const keys = Object.keys(previewFields.value);
+    const shape = printOptionSchemas[output.value].shape;
+    return keys.length > 0 && keys.every((k) => k === 'media' || k in shape);
+  });
+
   /** The latest revision this output was printed at, for "changed since last print". */
   const lastPrintedRevision = computed(() => history.value.find((p) => p.output === output.value)?.revision ?? null);
 
   return {
     boardId, output, mediaByOutput, optionsByOutput, selection, errors,
     previewStatus, previewUrl, previewError, previewFields, warnings, pageCount,
-    history, historyStatus, layouts, lastPrintedRevision,
+    history, historyStatus, layouts, lastPrintedRevision, printable, previewErrorBesideFields,
     open, close, refreshPreview, loadHistory, loadLayouts, fetchForPrinting, fetchPack,
   };
 });

@@ -74,6 +74,37 @@ describe('the print page', { timeout: 180_000 }, () => {
     await previewFollows(page, async () => { await page.goto(`/boards/${id}/print`); }, 'chart', 'a4', null);
     await previewFollows(page, () => page.locator('[data-output="tag"]').click(), 'tag', 'tape-24', null);
     await pickMedium(page, 'Tape 6 mm');
-    await expect.poll(() => page.getByTestId('print-preview-error').textContent().catch(() => ''), { timeout: 60_000 }).toMatch(/tape-\d+/);
+    // Said beside the medium it is about.
+    const mediumItem = page.locator('.ant-form-item').filter({ has: page.getByTestId('print-medium') });
+    await expect.poll(() => mediumItem.locator('.ant-form-item-explain').textContent().catch(() => ''), { timeout: 60_000 }).toMatch(/tape-\d+/);
+  });
+
+  it('when a medium refuses the layout, then the old preview and "no warnings" go, the error shows once and nothing can be printed until a medium works', async () => {
+    const { page } = await signedInOwnerPage(app, 'Print Refusal Electrical');
+    const id = await boardWithLongLabel(page);
+    await previewFollows(page, async () => { await page.goto(`/boards/${id}/print`); }, 'chart', 'a4', null);
+    const tag24 = await previewFollows(page, () => page.locator('[data-output="tag"]').click(), 'tag', 'tape-24', null);
+    await expect.poll(() => page.getByTestId('print-download').isEnabled()).toBe(true);
+
+    const refused = page.waitForResponse((r) => r.url().includes('/pdf/tag?') && r.url().includes('media=tape-12'), { timeout: 60_000 });
+    await pickMedium(page, 'Tape 12 mm');
+    expect((await refused).status()).toBe(422); // the server's answer for a layout that cannot fit (DEVELOPERS.md, Print API)
+    const message = (await (await refused).json() as { error: { message: string } }).error.message;
+    expect(message).toMatch(/tape-\d+/);
+
+    await page.getByTestId('print-preview-frame').waitFor({ state: 'detached', timeout: 30_000 });
+    await page.getByTestId('print-preview-empty').waitFor();
+    expect(await page.getByTestId('print-warnings-none').count()).toBe(0);
+    for (const button of ['print-download', 'print-print', 'print-pack']) expect(await page.getByTestId(button).isDisabled()).toBe(true);
+    // Once: beside the medium it names, not again over the preview or under the buttons.
+    expect(await page.getByText(message, { exact: true }).count()).toBe(1);
+
+    if (process.env.WAYMARK_SHOTS) await page.screenshot({ path: `${process.env.WAYMARK_SHOTS}/print-refused.png`, fullPage: true });
+
+    const back = await previewFollows(page, () => pickMedium(page, 'Tape 24 mm'), 'tag', 'tape-24', tag24.src);
+    expect(back.widthMm).toBeCloseTo(24, 6); // page width = 24 mm tape // common practice
+    await expect.poll(() => page.getByTestId('print-download').isEnabled(), { timeout: 30_000 }).toBe(true);
+    expect(await page.getByTestId('print-pack').isEnabled()).toBe(true);
+    expect(app.pageErrors).toEqual([]);
   });
 });
