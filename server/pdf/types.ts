@@ -47,6 +47,8 @@ export interface RenderRequest<O extends PrintOutput = PrintOutput> {
   onlyWays?: number[];
   /** Maximum Zs (Ω) per circuit id from the rule set, for the chart; missing or null prints "—". */
   maxZsByCircuit?: Record<string, number | null>;
+  /** Today's date (YYYY-MM-DD), for warnings about dates already past; omitted, none are given. */
+  today?: string;
 }
 
 export interface RenderResult {

@@ -71,6 +71,7 @@ export async function renderWith(ctx: AppContext, user: CurrentUser, source: Pri
     offset: source.offset,
     maxZsByCircuit: source.maxZsByCircuit,
     onlyWays,
+    today: today(),
   }));
 }
 

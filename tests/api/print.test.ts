@@ -79,6 +79,25 @@ describe('printing each output of a stored board', () => {
     expect(check.body).toEqual({ warnings: header, pageCount: Number(res.headers['x-waymark-page-count']) });
   });
 
+  it('when the next inspection is already past, then the notices print with a warning naming the inspection notice', async () => {
+    const base = makeSchedule(3);
+    const schedule = scheduleSchema.parse({ ...base, board: { ...base.board, lastInspectionOn: '2012-03-01', inspectionIntervalMonths: 12 } }); // due 1 Mar 2013: long past
+    const { owner, id } = await ownerWithBoard(schedule);
+    const check = await owner.get(`/api/boards/${id}/pdf/notices/warnings?media=a4&kinds=inspection`).expect(200);
+    expect(check.body.warnings).toEqual([expect.objectContaining({ code: 'inspection-overdue', label: 'Periodic inspection and testing notice' })]);
+  });
+
+  it('when the alternative-supply notice cannot show where to isolate on the chosen label, then the print is refused with 422, not cut', async () => {
+    const base = makeSchedule(3);
+    const where = 'PV isolator and inverter in the loft beside the hatch; battery isolator on the garage wall by the door';
+    const schedule = scheduleSchema.parse({ ...base, board: { ...base.board, alternativeSupply: { present: true, kinds: ['pv', 'battery'], description: where } } });
+    const { owner, id } = await ownerWithBoard(schedule);
+    const res = await owner.get(`/api/boards/${id}/pdf/notices?media=custom-40x20&kinds=alternative-supply`).expect(422);
+    expect(JSON.stringify(res.body)).toMatch(/alternative-supply notice/);
+    const ok = await getPdf(owner, `/api/boards/${id}/pdf/notices?media=a4&kinds=alternative-supply`).expect(200);
+    expect((await pdfPages(ok.body)).join(' ')).toContain(where);
+  });
+
   it('when there are very many warnings, then the header stays short and says how many more the warnings call lists', async () => {
     const base = makeSchedule(80);
     const schedule = scheduleSchema.parse({ ...base, circuits: base.circuits.map((c) => ({ ...c, label: `${'W'.repeat(20)}${c.way}`.slice(0, 24) })) });

@@ -79,7 +79,7 @@ export function noticeContent(kind: NoticeKind, schedule: Schedule, board: Board
       const v = phaseVoltage(b.supply.nominalVoltage);
       return {
         kind, title: `Danger: ${v} volts`, symbol: 'warning', regulation: 'BS 7671 514.10.1',
-        body: `Three-phase board: up to ${v} V between devices on different phases. Isolate every phase before removing covers.`,
+        body: `Three-phase supply, ${v}/${b.supply.nominalVoltage} V: up to ${v} V between devices on different phases. Isolate every phase before removing covers.`,
         details: [],
       };
     }

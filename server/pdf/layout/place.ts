@@ -5,9 +5,9 @@
  * sheet with cut lines, or one die-cut label each.
  */
 import { mapItems, placeFrame, type Placement } from '../geometry.js';
-import { GREY, type Box, type Item, type LayoutPage, type TypeMetrics } from '../model.js';
+import { BLACK, GREY, type Box, type Item, type LayoutPage, type TypeMetrics } from '../model.js';
 import { fitText } from './fit.js';
-import { isLabelPage } from '../media.js';
+import { isLabelPage, TAPE_MAX_LENGTH_MM } from '../media.js';
 import { LayoutError, type Medium } from '../types.js';
 
 /** One thing to print, in its own frame (length `widthMm` along x, `heightMm` across). */
@@ -65,21 +65,46 @@ function tapePages(pieces: Piece[], medium: Extract<Medium, { kind: 'tape' }>): 
   });
 }
 
-/** All pieces one after another on one tape page, a dashed cut line across the tape between them. */
-function tapeStrip(pieces: Piece[], medium: Extract<Medium, { kind: 'tape' }>): LayoutPage[] {
-  const items: Item[] = [];
+/** Half of a ▼▲ join mark at both edges of the band across the tape at `y`, pointing along `dir`. */
+function joinMarks(y: number, dir: 1 | -1, band: { x: number; w: number }): Item[] {
+  const mark = Math.min(2, band.w / 4);
+  const left = band.x;
+  const right = band.x + band.w;
+  return [
+    { kind: 'polygon', points: [{ x: left, y }, { x: left + mark, y }, { x: left, y: y + dir * mark }], fill: BLACK },
+    { kind: 'polygon', points: [{ x: right, y }, { x: right - mark, y }, { x: right, y: y + dir * mark }], fill: BLACK },
+  ];
+}
+
+/**
+ * Pieces one after another on tape, a dashed cut line across the tape between them. A strip that
+ * would run past `maxMm` (the longest label the printer takes in one piece, as for way-label strips)
+ * goes on over further pages, split between pieces, with ▼▲ half-marks where the parts meet.
+ */
+function tapeStrip(pieces: Piece[], medium: Extract<Medium, { kind: 'tape' }>, maxMm: number): LayoutPage[] {
+  const pages: LayoutPage[] = [];
+  let items: Item[] = [];
   let y = 0;
+  const close = () => { pages.push({ widthMm: medium.widthMm, heightMm: Math.max(y, 1), items }); items = []; y = 0; };
   pieces.forEach((p, i) => {
-    if (i > 0) {
+    const band = { x: (medium.widthMm - p.heightMm) / 2, w: p.heightMm };
+    if (i > 0 && y + STRIP_GAP_MM + p.widthMm > maxMm + 1e-6) {
+      y += STRIP_GAP_MM / 2;
+      items.push(...joinMarks(y, -1, band));
+      close();
+      items.push(...joinMarks(0, 1, band));
+      y = STRIP_GAP_MM / 2;
+    } else if (i > 0) {
       const cutAt = y + STRIP_GAP_MM / 2;
       items.push({ kind: 'line', from: { x: 0, y: cutAt }, to: { x: medium.widthMm, y: cutAt }, ...CUT_LINE });
       y += STRIP_GAP_MM;
     }
-    const target: Box = { x: (medium.widthMm - p.heightMm) / 2, y, w: p.heightMm, h: p.widthMm };
+    const target: Box = { x: band.x, y, w: p.heightMm, h: p.widthMm };
     items.push(...mapItems(p.items, placeFrame(p.widthMm, p.heightMm, target, 90)));
     y += p.widthMm;
   });
-  return [{ widthMm: medium.widthMm, heightMm: Math.max(y, 1), items }];
+  close();
+  return pages;
 }
 
 /** Tiles in rows on a plain page, each outlined with a dashed cut line and captioned if it has one. */
@@ -134,10 +159,13 @@ function sheetLabels(pieces: Piece[], medium: Medium): LayoutPage[] {
   return pages;
 }
 
-/** Pages for pieces on any medium; `strip` joins tape pieces into one strip with cut marks. */
-export function placePieces(pieces: Piece[], medium: Medium, tm: TypeMetrics, strip = false): LayoutPage[] {
+/**
+ * Pages for pieces on any medium; `strip` joins tape pieces into strips with cut marks, each no
+ * longer than `maxStripMm` (by default the longest label a tape printer takes, TAPE_MAX_LENGTH_MM).
+ */
+export function placePieces(pieces: Piece[], medium: Medium, tm: TypeMetrics, strip = false, maxStripMm = TAPE_MAX_LENGTH_MM): LayoutPage[] {
   if (pieces.length === 0) return [];
-  if (medium.kind === 'tape') return strip ? tapeStrip(pieces, medium) : tapePages(pieces, medium);
+  if (medium.kind === 'tape') return strip ? tapeStrip(pieces, medium, maxStripMm) : tapePages(pieces, medium);
   if (labelGrid(medium)) return sheetLabels(pieces, medium);
   return pageTiles(pieces, medium as Extract<Medium, { kind: 'page' }>, tm);
 }

@@ -22,21 +22,37 @@ function qrHint(ctx: LayoutContext<'tag'>, needMm: number): string {
   return tape ? `use tape-${tape} or wider` : 'use a sheet or page instead of tape';
 }
 
-/** Code, barcode and caption in the box to the right of the QR code. */
-function textSide(box: Box, xMm: number | null, ctx: LayoutContext<'tag'>, showCaption: boolean): Item[] {
+/** Code and barcode in the box to the right of the QR code. */
+function textSide(box: Box, xMm: number | null, ctx: LayoutContext<'tag'>): Item[] {
   const code = ctx.req.board.code;
   const items: Item[] = [];
-  const codeH = xMm ? box.h * 0.36 : box.h * (showCaption ? 0.8 : 1);
+  const codeH = xMm ? box.h * 0.36 : box.h;
   const fit = fitText(code, { x: box.x, y: box.y, w: box.w, h: codeH }, { face: 'bold', maxPt: 28, minPt: 5, maxLines: 1, align: 'centre' }, ctx.tm);
   if (fit.cut) ctx.warnings.cut('Board tag', code);
   items.push(...fit.runs);
-  const captionH = showCaption ? Math.max(2.2, box.h * 0.14) : 0;
-  if (xMm) items.push(...barcodeItems(code, { x: box.x, y: box.y + codeH + 0.5, w: box.w, h: box.h - codeH - captionH - 1 }, xMm));
-  if (showCaption) {
-    const caption = fitText('Scan for the board page', { x: box.x, y: box.y + box.h - captionH, w: box.w, h: captionH }, { face: 'regular', maxPt: 7, minPt: 5, maxLines: 1, align: 'centre', color: GREY }, ctx.tm);
-    items.push(...caption.runs);
-  }
+  if (xMm) items.push(...barcodeItems(code, { x: box.x, y: box.y + codeH + 0.5, w: box.w, h: box.h - codeH - 1 }, xMm));
   return items;
+}
+
+const CAPTION = 'Scan for the board page';
+const CAPTION_STYLE = { face: 'regular', maxPt: 7, minPt: 5, maxLines: 2, align: 'centre', color: GREY, lineSpacing: 1.1 } as const;
+
+/** Width of the caption set up the QR code's side (two lines of 5–7 pt, mm). */
+const BESIDE_MM = 5;
+
+function captionBeside(qrSide: number, ctx: LayoutContext<'tag'>): boolean {
+  return !fitText(CAPTION, { x: 0, y: 0, w: BESIDE_MM - 0.3, h: qrSide }, CAPTION_STYLE, ctx.tm, 270).cut;
+}
+
+/**
+ * Room under the QR code for its caption: the code gives up that height only while it stays at its
+ * readable minimum; otherwise the caption is left off (the code alone still works).
+ */
+function captionRoom(qrSide: number, h: number, pad: number, url: string, ctx: LayoutContext<'tag'>): number {
+  if (!qrSide || h < 14) return 0;
+  const room = Math.max(2.4, h * 0.16);
+  const fits = fitText(CAPTION, { x: 0, y: 0, w: qrSide - room, h: room }, CAPTION_STYLE, ctx.tm);
+  return !fits.cut && qrSide - room >= qrMinSideMm(url) - 1e-9 && h - 2 * pad >= qrSide ? room : 0;
 }
 
 /** One tag as a piece for the slot. */
@@ -50,18 +66,25 @@ export function tagPiece(slot: Slot, ctx: LayoutContext<'tag'>): Piece {
     const roomForBars = slot.widthMm - 2 * slot.endMarginMm - GAP_MM - 0.5 - code128WidthMm(board.code, CODE128_MIN_X_MM);
     qrSide = Math.min(qrSide, slot.widthMm * 0.6, Math.max(qrMinSideMm(board.publicUrl), roomForBars));
   }
+  const captionH = captionRoom(qrSide, h, pad, board.publicUrl, ctx);
+  qrSide -= captionH;
+  // No room under the code (tape, where the code already has the whole height): the caption runs up its side.
+  const besideW = !captionH && qrSide && h >= 14 && slot.kind === 'free' && captionBeside(qrSide, ctx) ? BESIDE_MM : 0;
   const barsNatural = code128WidthMm(board.code, ROOMY_X_MM);
-  const length = slot.kind === 'fixed' ? slot.widthMm : slot.endMarginMm * 2 + qrSide + GAP_MM + Math.max(barsNatural, h * 1.4) + 0.5;
-  const sideX = slot.endMarginMm + qrSide + (qrSide ? GAP_MM : 0);
+  const length = slot.kind === 'fixed' ? slot.widthMm : slot.endMarginMm * 2 + qrSide + besideW + GAP_MM + Math.max(barsNatural, h * 1.4) + 0.5;
+  const sideX = slot.endMarginMm + qrSide + besideW + (qrSide ? GAP_MM : 0);
   const side: Box = { x: sideX, y: pad, w: length - sideX - slot.endMarginMm - 0.5, h: h - 2 * pad };
   const x = Math.min(ROOMY_X_MM, side.w / (barsNatural / ROOMY_X_MM));
   const items: Item[] = [];
   if (qrSide) items.push(...qrItems(board.publicUrl, { x: slot.endMarginMm, y: pad, w: qrSide, h: qrSide }, qrHint(ctx, qrMinSideMm(board.publicUrl))));
+  // The caption sits under the code it explains, not under the barcode.
+  if (captionH) items.push(...fitText(CAPTION, { x: slot.endMarginMm, y: pad + qrSide, w: qrSide, h: captionH }, CAPTION_STYLE, ctx.tm).runs);
+  if (besideW) items.push(...fitText(CAPTION, { x: slot.endMarginMm + qrSide + 0.3, y: pad, w: besideW - 0.3, h: qrSide }, CAPTION_STYLE, ctx.tm, 270).runs);
   const encodable = code128Pattern(board.code) !== '';
   const bars = encodable && x >= CODE128_MIN_X_MM - 1e-9;
   if (!encodable) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `Code 128 cannot carry the board code "${board.code}"; the barcode was left off` });
   else if (!bars) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `The barcode needs ${code128WidthMm(board.code, CODE128_MIN_X_MM).toFixed(0)} mm beside the QR code; it was left off this size` });
-  items.push(...textSide(side, bars ? x : null, ctx, qrSide > 0 && h >= 14));
+  items.push(...textSide(side, bars ? x : null, ctx));
   return { name: 'Board tag', widthMm: length, heightMm: h, items };
 }
 

@@ -10,17 +10,23 @@ import { fitText, type FitStyle } from './fit.js';
 
 export interface CellText { ways: string; device: string; main: string }
 
+/** Largest sizes (pt) for a cell's way number and main label: one pair per strip keeps the row even. */
+export interface CellCaps { ways: number; main: number }
+/** Sizes a cell's text was set at, for working out the strip's caps. */
+export type CellSizes = CellCaps;
+
 const PAD_MM = 0.6;
 
-/** Runs for a cell's text in a local `w × h` frame. */
-function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: LayoutContext<'way-labels'>, name: string): Item[] {
+/** Runs for a cell's text in a local `w × h` frame, and the sizes its way number and main label got. */
+function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: LayoutContext<'way-labels'>, name: string | null, caps?: CellCaps): { items: Item[]; sizes: CellSizes } {
   const inner: Box = { x: PAD_MM, y: PAD_MM * 0.6, w: w - 2 * PAD_MM, h: h - 1.2 * PAD_MM };
-  const bold: FitStyle = { face: 'bold', maxPt: 12, minPt, maxLines: 1, align: 'left' };
+  const cap = (pt: number, c: number | undefined) => Math.max(minPt, Math.min(pt, c ?? pt));
+  const bold: FitStyle = { face: 'bold', maxPt: cap(12, caps?.ways), minPt, maxLines: 1, align: 'left' };
   const regular: FitStyle = { face: 'regular', maxPt: 9, minPt, maxLines: 1, align: 'right' };
-  const main: FitStyle = { face: 'bold', maxPt: 11, minPt, wrapBelowPt: 7, align: 'centre', lineSpacing: 1.18 };
-  const parts: Array<[string, Box, FitStyle]> = [];
+  const main: FitStyle = { face: 'bold', maxPt: cap(11, caps?.main), minPt, wrapBelowPt: Math.min(7, cap(11, caps?.main)), align: 'centre', lineSpacing: 1.18 };
+  const parts: Array<[string, Box, FitStyle, 'ways' | 'device' | 'main']> = [];
   if (inner.h < 5) {
-    parts.push([t.ways, { ...inner, w: inner.w * 0.3 }, bold], [t.main, { ...inner, x: inner.x + inner.w * 0.32, w: inner.w * 0.68 }, { ...main, align: 'left', maxLines: 1 }]);
+    parts.push([t.ways, { ...inner, w: inner.w * 0.3 }, bold, 'ways'], [t.main, { ...inner, x: inner.x + inner.w * 0.32, w: inner.w * 0.68 }, { ...main, align: 'left', maxLines: 1 }, 'main']);
   } else {
     const top = Math.max(2.2, inner.h * 0.38);
     // Share the top line by how wide each text is, so "9" next to "C32 30 mA" leaves the device room.
@@ -31,26 +37,39 @@ function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: Layou
     let wayShare = t.device ? Math.min(0.7, Math.max(0.25, wayMin, wayW / (wayW + deviceW + 1e-9))) : 1;
     if (t.device && inner.w * (1 - wayShare) < deviceW * minPt) { wayShare = 1; t = { ...t, device: '' }; }
     const ways: Box = { x: inner.x, y: inner.y, w: inner.w * wayShare, h: top };
-    parts.push([t.ways, ways, t.device ? bold : { ...bold, align: 'centre' }]);
-    if (t.device) parts.push([t.device, { x: inner.x + inner.w * wayShare, y: inner.y, w: inner.w * (1 - wayShare), h: top }, regular]);
-    parts.push([t.main, { x: inner.x, y: inner.y + top, w: inner.w, h: inner.h - top }, main]);
+    parts.push([t.ways, ways, t.device ? bold : { ...bold, align: 'centre' }, 'ways']);
+    if (t.device) parts.push([t.device, { x: inner.x + inner.w * wayShare, y: inner.y, w: inner.w * (1 - wayShare), h: top }, regular, 'device']);
+    parts.push([t.main, { x: inner.x, y: inner.y + top, w: inner.w, h: inner.h - top }, main, 'main']);
   }
   const items: Item[] = [];
-  for (const [text, cell, style] of parts) {
+  const sizes: CellSizes = { ways: Infinity, main: Infinity };
+  for (const [text, cell, style, role] of parts) {
     const fit = fitText(text, cell, style, ctx.tm);
-    if (fit.cut) ctx.warnings.cut(name, text);
+    if (fit.cut && name) ctx.warnings.cut(name, text);
+    if (text && role !== 'device') sizes[role] = fit.sizePt;
     items.push(...fit.runs);
   }
-  return items;
+  return { items, sizes };
 }
 
-/** Text items for a cell box; turned 90° when the cell stands taller than wide. */
-export function cellItems(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>, name: string): Item[] {
-  if (box.w <= 0 || box.h <= 0) return [];
+function cellFrame(box: Box, ctx: LayoutContext<'way-labels'>) {
   const minPt = ctx.req.medium.kind === 'tape' ? 5 : 5.5;
   const turned = box.h > box.w * 1.15;
-  const w = turned ? box.h : box.w;
-  const h = turned ? box.w : box.h;
-  const local = frameItems(t, w, h, minPt, ctx, name);
-  return mapItems(local, placeFrame(w, h, box, turned ? 90 : 0));
+  return { minPt, turned, w: turned ? box.h : box.w, h: turned ? box.w : box.h };
+}
+
+/** Text items for a cell box; turned 90° when the cell stands taller than wide; `caps` limit the sizes. */
+export function cellItems(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>, name: string, caps?: CellCaps): Item[] {
+  if (box.w <= 0 || box.h <= 0) return [];
+  const f = cellFrame(box, ctx);
+  const local = frameItems(t, f.w, f.h, f.minPt, ctx, name, caps).items;
+  return mapItems(local, placeFrame(f.w, f.h, box, f.turned ? 90 : 0));
+}
+
+/** The sizes a cell's way number and main label fit at on their own (turned cells report none: they are set across). */
+export function cellSizes(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>): CellSizes {
+  const none = { ways: Infinity, main: Infinity };
+  if (box.w <= 0 || box.h <= 0) return none;
+  const f = cellFrame(box, ctx);
+  return f.turned ? none : frameItems(t, f.w, f.h, f.minPt, ctx, null).sizes;
 }

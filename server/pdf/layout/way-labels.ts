@@ -9,7 +9,7 @@ import { BLACK, type Box, type Item, type LayoutDoc } from '../model.js';
 import { TAPE_MAX_LENGTH_MM } from '../media.js';
 import type { LayoutContext } from './context.js';
 import { placePieces, slotFor, slotMaxLength, type Piece } from './place.js';
-import { cellItems, type CellText } from './way-cell.js';
+import { cellItems, cellSizes, type CellCaps, type CellText } from './way-cell.js';
 
 /** Strip height when tiled on a plain sheet (mm), unless the option says otherwise. // common practice */
 const PAGE_STRIP_HEIGHT_MM = 12;
@@ -42,18 +42,71 @@ export function splitPoints(cells: WayCell[], max: number): Array<[number, numbe
   return parts;
 }
 
-function textFor(d: Device, circuits: Circuit[], rcds: Map<string, string>): CellText {
+/** Same words, ignoring case, spaces and punctuation. */
+const sameText = (a: string, b: string) => a.toLowerCase().replace(/[^\p{L}\p{N}]+/gu, '') === b.toLowerCase().replace(/[^\p{L}\p{N}]+/gu, '');
+
+function textFor(d: Device, circuits: Circuit[], rcds: Map<string, string>, spareWay: string): CellText {
   if (d.kind === 'blank') return { ways: '', device: '', main: '' };
   if (d.kind === 'rcd') return { ways: rcds.get(d.id) ?? 'RCD', device: '', main: deviceShortText(d).replace(/^RCD /, '') + (d.rcdType ? ` Type ${d.rcdType}` : '') };
   if (d.kind === 'main-switch' || (d.kind === 'isolator' && circuits.length === 0)) return { ways: d.label || deviceKindName(d), device: '', main: d.rating != null ? `${d.rating} A` : '' };
-  if (d.kind === 'spd') return { ways: d.label || 'SPD', device: '', main: 'Surge protection' };
+  // A label that only repeats "Surge protection" is not printed twice: the short name goes on top.
+  if (d.kind === 'spd') return { ways: d.label && !sameText(d.label, 'Surge protection') ? d.label : 'SPD', device: '', main: 'Surge protection' };
   const labels = [...new Set(circuits.map((c) => c.label))];
-  return { ways: circuits.map((c) => wayText(c)).join(', '), device: deviceShortText(d), main: labels.length ? labels.join(' / ') : 'Spare' };
+  return { ways: circuits.length ? circuits.map((c) => wayText(c)).join(', ') : spareWay, device: deviceShortText(d), main: labels.length ? labels.join(' / ') : 'Spare' };
+}
+
+const PHASE_ORDER = ['L1', 'L2', 'L3'] as const;
+
+/**
+ * Way numbers for protective devices with no circuit (spare ways), from the way before them on the
+ * rail: the next phase of the same way on a three-phase board, else the next way. Left blank when
+ * that number is already some circuit's, or there is no way before to count from.
+ */
+export function spareWays(schedule: Schedule, byDevice: Map<string, Circuit[]>): Map<string, string> {
+  const used = new Set(schedule.circuits.map((c) => wayText(c)));
+  const out = new Map<string, string>();
+  let last: Pick<Circuit, 'way' | 'phase'> | null = null;
+  for (const d of [...schedule.devices].sort((a, b) => a.row - b.row)) {
+    if (d.kind !== 'mcb' && d.kind !== 'rcbo') continue;
+    const circuits = byDevice.get(d.id) ?? [];
+    if (circuits.length) { last = circuitsSorted(circuits)[circuits.length - 1]; continue; }
+    if (!last) continue;
+    const i = last.phase ? PHASE_ORDER.indexOf(last.phase as typeof PHASE_ORDER[number]) : -1;
+    const next: Pick<Circuit, 'way' | 'phase'> = i >= 0 && i < 2 ? { way: last.way, phase: PHASE_ORDER[i + 1] } : { way: last.way + 1, phase: i === 2 ? 'L1' : null };
+    last = next;
+    if (!used.has(wayText(next))) out.set(d.id, wayText(next));
+  }
+  return out;
+}
+
+function circuitsSorted(cs: Circuit[]): Circuit[] {
+  return [...cs].sort((a, b) => a.way - b.way || (a.phase ?? '').localeCompare(b.phase ?? ''));
+}
+
+/**
+ * No label on a strip is set larger than the smallest every other label of the row fits at, so the
+ * row reads evenly; but no lower than EVEN_FLOOR_PT, so one long label cannot shrink the whole row to
+ * its size: it shrinks (or wraps) alone. Cells set turned (half modules) keep their own size.
+ */
+const EVEN_FLOOR_PT = 7;
+
+function rowCaps(cells: WayCell[], heightMm: number, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>): CellCaps {
+  const sizes = cells.map((c) => cellSizes(texts.get(c.deviceId)!, { x: 0, y: 0, w: c.w, h: heightMm }, ctx));
+  return {
+    ways: Math.max(EVEN_FLOOR_PT, Math.min(...sizes.map((z) => z.ways))),
+    main: Math.max(EVEN_FLOOR_PT, Math.min(...sizes.map((z) => z.main))),
+  };
+}
+
+/** "▼▲ meet part 2", "… parts 1 and 3", "… part 2": each part names the parts its marks meet. */
+function joinCaption(part: number, parts: number): string {
+  const near = [part - 1, part + 1].filter((p) => p >= 1 && p <= parts);
+  return near.length === 2 ? `▼▲ meet parts ${near[0]} and ${near[1]}` : `▼▲ meet part ${near[0]}`;
 }
 
 interface StripPlan { strips: WayStrip[]; pieces: Piece[] }
 
-function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, Device>, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>, joins: { left: boolean; right: boolean }): Piece {
+function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, Device>, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>, joins: { left: boolean; right: boolean }, caps: CellCaps): Piece {
   const mark = Math.min(2, heightMm / 4);
   const name = `Row ${strip.row} way labels${strip.parts > 1 ? ` (part ${strip.part} of ${strip.parts})` : ''}`;
   const items: Item[] = [
@@ -68,7 +121,7 @@ function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, De
     if (joins.right && cell.x + cell.w > strip.lengthMm - 1e-6) textBox.w -= mark;
     const t = texts.get(cell.deviceId)!;
     const cellName = /^\d/.test(t.ways) ? `Way ${t.ways} label` : `${devices.get(cell.deviceId)?.label || t.ways || 'Device'} label`;
-    items.push(...cellItems(t, textBox, ctx, cellName));
+    items.push(...cellItems(t, textBox, ctx, cellName, caps));
   }
   items.push({ kind: 'line', from: { x: strip.lengthMm, y: 0 }, to: { x: strip.lengthMm, y: heightMm }, lineMm: 0.2, color: BLACK });
   const half = (x: number, dir: 1 | -1): Item[] => [
@@ -79,7 +132,7 @@ function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, De
   if (joins.right) items.push(...half(strip.lengthMm, -1));
   const pitch = ctx.options.pitchMm;
   const caption = strip.parts > 1
-    ? `Row ${strip.row} · part ${strip.part} of ${strip.parts} (▼▲ meet the next part) · ${pitch} mm`
+    ? `Row ${strip.row} · part ${strip.part} of ${strip.parts} (${joinCaption(strip.part, strip.parts)}) · ${pitch} mm`
     : `Row ${strip.row} · ${pitch} mm modules`;
   return { name, widthMm: strip.lengthMm, heightMm, items, caption };
 }
@@ -98,20 +151,22 @@ export function wayLabelPlan(ctx: LayoutContext<'way-labels'>): StripPlan {
   const byDevice = circuitsByDevice(schedule);
   const rcds = rcdNames(schedule);
   const devices = new Map(schedule.devices.map((d) => [d.id, d]));
-  const texts = new Map(schedule.devices.map((d) => [d.id, textFor(d, byDevice.get(d.id) ?? [], rcds)]));
+  const spares = spareWays(schedule, byDevice);
+  const texts = new Map(schedule.devices.map((d) => [d.id, textFor(d, byDevice.get(d.id) ?? [], rcds, spares.get(d.id) ?? '')]));
   const only = ctx.req.onlyWays ? new Set(ctx.req.onlyWays) : null;
   const rows = [...new Set(schedule.devices.map((d) => d.row))].sort((a, b) => a - b);
   const strips: WayStrip[] = [];
   const pieces: Piece[] = [];
   for (const row of rows) {
     let cells = rowCells(schedule.devices.filter((d) => d.row === row), byDevice, ctx.options.pitchMm);
+    const caps = rowCaps(cells, slot.heightMm, texts, ctx);
     const groups = only ? cells.filter((c) => c.ways.some((w) => only.has(w))).map((c) => [{ ...c, x: 0 }]) : [cells];
     for (cells of groups) {
       const parts = splitPoints(cells, max);
       parts.forEach(([a, b], i) => {
         const strip: WayStrip = { row, part: i + 1, parts: parts.length, startMm: a, lengthMm: b - a, cells: cellsIn(cells, a, b) };
         strips.push(strip);
-        pieces.push(segmentPiece(strip, slot.heightMm, devices, texts, ctx, { left: i > 0, right: i < parts.length - 1 }));
+        pieces.push(segmentPiece(strip, slot.heightMm, devices, texts, ctx, { left: i > 0, right: i < parts.length - 1 }, caps));
       });
     }
   }

@@ -27,7 +27,11 @@ const CABLE_NAMES: Record<Circuit['cable']['type'], string> = {
   'twin-earth': 'Twin & earth', swa: 'SWA', 'singles-conduit': 'Singles in conduit', flex: 'Flex', other: 'Other',
 };
 const dash = (): Paragraph[] => [{ text: '—', face: 'regular', color: GREY }];
-const ohms = (v: number | null | undefined) => (v == null ? null : v.toFixed(2));
+/**
+ * Ohms as a chart prints them: two decimals for the small values of TN circuits, fewer as values
+ * grow, whole ohms from 100 Ω (a TT circuit's 50 V / 30 mA = 1667 Ω, not "1666.67").
+ */
+export const ohms = (v: number | null | undefined) => (v == null ? null : v >= 100 ? Math.round(v).toFixed(0) : v >= 10 ? v.toFixed(1) : v.toFixed(2));
 
 function deviceCell(c: Circuit, f: ChartFacts): Paragraph[] {
   const d = c.deviceId ? f.devices.get(c.deviceId) : undefined;
@@ -60,11 +64,25 @@ function zsCell(c: Circuit, f: ChartFacts): Paragraph[] {
   return over ? [{ text: measured, face: 'bold', color: RED }, { text: 'over max', face: 'regular', color: RED }] : [{ text: measured, face: 'regular' }];
 }
 
+/** Whether the schedule alone says this way feeds another board (a sub-main, or a link to the board it feeds). */
+export function feedsAnotherBoard(c: Circuit): boolean {
+  return c.kind === 'sub-main' || c.feedsBoardId != null;
+}
+
+function circuitCell(c: Circuit): Paragraph[] {
+  return [
+    { text: c.label, face: 'bold' },
+    // Switching this way off (or a trip) turns off the whole board it feeds, not one circuit.
+    ...(feedsAnotherBoard(c) ? [{ text: 'Feeds another board', face: 'bold' as const }] : []),
+    ...(c.description ? [{ text: c.description, face: 'regular' as const }] : []),
+  ];
+}
+
 /** Column order and relative widths (the way column is fixed-width). */
 export const chartColumns: Column[] = [
   { header: 'Way', weight: 0, maxLines: 2, cell: (c) => [{ text: wayText(c), face: 'bold' }] },
-  { header: 'Circuit', weight: 34, maxLines: 12, cell: (c) => [{ text: c.label, face: 'bold' }, ...(c.description ? [{ text: c.description, face: 'regular' as const }] : [])] },
-  { header: 'Locations', weight: 17, maxLines: 6, cell: (c) => [...(c.locations.length ? [{ text: c.locations.join(', '), face: 'regular' as const }] : []), ...(c.points != null ? [{ text: `${c.points} points`, face: 'regular' as const, color: GREY }] : [])] },
+  { header: 'Circuit', weight: 34, maxLines: 12, cell: circuitCell },
+  { header: 'Locations', weight: 17, maxLines: 6, cell: (c) => [...(c.locations.length ? [{ text: c.locations.join(', '), face: 'regular' as const }] : []), ...(c.points != null ? [{ text: `${c.points} point${c.points === 1 ? '' : 's'}`, face: 'regular' as const, color: GREY }] : [])] },
   { header: 'Device', weight: 13, maxLines: 4, cell: deviceCell },
   { header: 'RCD', weight: 12, maxLines: 3, cell: rcdCell },
   { header: 'Cable', weight: 17, maxLines: 4, cell: cableCell },

@@ -11,6 +11,7 @@ import type { LayoutContext } from '../context.js';
 import { printedDate } from '../dates.js';
 import { blockHeight, runsForLines, wrapText, type FitStyle } from '../fit.js';
 import { imageSize } from '../image-size.js';
+import { phaseVoltage } from '../notice-content.js';
 
 export interface Line { text: string; face: FontFace; sizePt: number; color?: Color; maxLines?: number }
 
@@ -31,7 +32,7 @@ export function stack(lines: Line[], x: number, y: number, w: number, ctx: Layou
 function supplyText(s: Schedule): string {
   const p = s.board.supply;
   const parts = [
-    p.earthing, `${p.nominalVoltage} V${s.board.phases === 3 ? ' three-phase' : ''}`, p.ze != null ? `Ze ${p.ze} Ω` : '', p.pfcKa != null ? `PFC ${p.pfcKa} kA` : '',
+    p.earthing, s.board.phases === 3 ? `${phaseVoltage(p.nominalVoltage)}/${p.nominalVoltage} V three-phase` : `${p.nominalVoltage} V`, p.ze != null ? `Ze ${p.ze} Ω` : '', p.pfcKa != null ? `PFC ${p.pfcKa} kA` : '',
     p.mainSwitchRating != null ? `main switch ${p.mainSwitchRating} A` : '', p.tailsCsa != null ? `tails ${p.tailsCsa} mm²` : '',
     p.mainEarthCsa != null ? `main earth ${p.mainEarthCsa} mm²` : '', p.mainBondingCsa != null ? `main bonding ${p.mainBondingCsa} mm²` : '',
   ];
