@@ -1,5 +1,5 @@
 /** The organisation's own row: name, contact details shown on printed charts, print offsets. */
-import { eq } from 'drizzle-orm';
+import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { organisations } from '../db/schema.js';
 import type { Organisation, OrganisationSettings } from '../../shared/schemas/auth.js';
@@ -7,11 +7,14 @@ import type { Organisation, OrganisationSettings } from '../../shared/schemas/au
 const columns = {
   id: organisations.id, name: organisations.name, contactPhone: organisations.contactPhone, contactEmail: organisations.contactEmail,
   printOffsetXMm: organisations.printOffsetXMm, printOffsetYMm: organisations.printOffsetYMm,
+  // Written out with table names: in a one-table select Drizzle leaves columns unqualified, and an
+  // unqualified `id` inside the subquery would mean the file's id, not the organisation's.
+  hasLogo: sql<number>`exists(select 1 from files where files.organisation_id = organisations.id and files.kind = 'logo')`,
 };
 
 export async function findOrganisation(db: Db, id: number): Promise<Organisation | null> {
   const [row] = await db.select(columns).from(organisations).where(eq(organisations.id, id)).limit(1);
-  return row ?? null;
+  return row ? { ...row, hasLogo: Number(row.hasLogo) === 1 } : null;
 }
 
 export async function updateOrganisation(db: Db, id: number, settings: OrganisationSettings): Promise<void> {

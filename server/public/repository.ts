@@ -37,6 +37,7 @@ function headColumns() {
     name: organisations.name,
     contactPhone: organisations.contactPhone,
     contactEmail: organisations.contactEmail,
+    // Both queries below join organisations, so Drizzle qualifies these columns with their tables.
     hasLogo: sql<number>`exists(select 1 from ${files} where ${files.organisationId} = ${boards.organisationId} and ${files.kind} = 'logo')`,
   };
 }

@@ -100,6 +100,8 @@ export const organisationSchema = z.object({
   contactEmail: z.string(),
   printOffsetXMm: z.number(),
   printOffsetYMm: z.number(),
+  /** Whether a logo is uploaded, so screens need not ask for one that is not there. */
+  hasLogo: z.boolean(),
 });
 export type Organisation = z.infer<typeof organisationSchema>;
 

@@ -56,7 +56,9 @@ describe('organisation logo', () => {
     const owner = await signupMarkedOwner(t.app);
     const board = await createBoard(owner, undefined, false);
     const png = realPng();
+    expect((await owner.get('/api/organisation').expect(200)).body.hasLogo).toBe(false);
     expect((await putLogo(owner, png, 'logo.png', 'image/png').expect(201)).body).toEqual({ mime: 'image/png', size: png.length });
+    expect((await owner.get('/api/organisation').expect(200)).body.hasLogo).toBe(true);
     const back = await owner.get('/api/organisation/logo').buffer(true).expect(200);
     expect(back.headers['content-type']).toBe('image/png');
     expect(Buffer.compare(back.body as Buffer, png)).toBe(0);
@@ -66,6 +68,9 @@ describe('organisation logo', () => {
     expect(Buffer.compare(pub.body as Buffer, png)).toBe(0);
     await owner.patch(`/api/boards/${board.id}/public`, { enabled: false }).expect(200);
     await request(t.app).get(`/api/public/boards/${board.token}/logo`).expect(404);
+    await owner.delete('/api/organisation/logo').expect(204);
+    expect((await owner.get('/api/organisation').expect(200)).body.hasLogo).toBe(false);
+    await owner.get('/api/organisation/logo').expect(404);
   });
 
   it('when a PNG is named .jpg and declared as JPEG, then it is still stored as a PNG; a real JPEG as a JPEG', async () => {
