@@ -35,6 +35,12 @@ describe('cable flag strip', () => {
 });
 
 describe('circuit chart wording', () => {
+  it('when a finding concerns several ways or one, then the chart names them "ways 3 and 6" / "way 8"', async () => {
+    const text = squash(await pdfText((await renderOutput(request('chart', 'a4'))).pdf));
+    expect(text).toContain('Note · ways 3 and 6 ·');
+    expect(text).toContain('Check · way 8 ·');
+  });
+
   it('when a circuit serves one point, then it says "1 point"', async () => {
     const s = tenCircuitBoard();
     s.circuits[0].points = 1;

@@ -4,6 +4,7 @@
  * findings, and on every page the caution, the revision and the page number.
  */
 import { circuitsInWayOrder, wayText } from '../../../../shared/schedule/derive.js';
+import { waysText } from '../../../../shared/rules/index.js';
 import { BLACK, GREY, RED, type Box, type LayoutDoc, type LayoutPage } from '../../model.js';
 import { LayoutError } from '../../types.js';
 import type { LayoutContext } from '../context.js';
@@ -35,7 +36,7 @@ function findingParagraphs(ctx: LayoutContext<'chart'>): Paragraph[] {
   if (ctx.req.findings.length === 0) return [{ text: 'None from the wiring-rule checks.', face: 'regular' }];
   const word = { error: 'Must fix', warning: 'Check', info: 'Note' } as const;
   return ctx.req.findings.map((f) => ({
-    text: `${word[f.severity]} · ${f.ways.length ? `way ${f.ways.join(', ')} · ` : ''}${f.rule}: ${f.message}`,
+    text: `${word[f.severity]} · ${f.ways.length ? `${waysText(f.ways)} · ` : ''}${f.rule}: ${f.message}`,
     face: f.severity === 'info' ? 'regular' : 'bold', color: f.severity === 'error' ? RED : BLACK,
   }));
 }
