@@ -6,7 +6,7 @@
  */
 import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
 import type { PublicBoard, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
-import { circuitsInWayOrder, deviceKindName, deviceShortText, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
+import { circuitsInWayOrder, deviceKindName, deviceShortText, hasOwnRcd, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
 import { boardCautions } from './cautions.js';
 import { supplyVoltages, supplyVoltageText } from './voltage.js';
 
@@ -31,7 +31,7 @@ export function publicDeviceText(d: Device): string {
 
 function wayRcd(rcd: Device | null | undefined, names: Map<string, string>): PublicWayRcd | null {
   if (!rcd) return null;
-  if (rcd.kind === 'rcbo') return { kind: 'rcbo', residualMa: rcd.residualMa };
+  if (hasOwnRcd(rcd)) return { kind: 'rcbo', residualMa: rcd.residualMa };
   return { kind: 'rcd', name: names.get(rcd.id) ?? 'RCD', residualMa: rcd.residualMa };
 }
 

@@ -5,7 +5,6 @@
 import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
 
 const BREAKERS = new Set(['mcb', 'rcbo']);
-const RCD_LIKE = new Set(['rcd', 'rcbo']);
 
 /** Short device text as an electrician writes it: "B32", "RCBO B16 30 mA", "RCD 63 A 30 mA". */
 export function deviceShortText(d: Device): string {
@@ -15,7 +14,7 @@ export function deviceShortText(d: Device): string {
     case 'rcbo': return [`${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ') || 'RCBO';
     case 'rcd': return ['RCD', rating && `${rating} A`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
     case 'main-switch': return ['Main switch', rating && `${rating} A`].filter(Boolean).join(' ');
-    case 'afdd': return ['AFDD', rating && `${d.curve ?? ''}${rating}`].filter(Boolean).join(' ');
+    case 'afdd': return ['AFDD', rating && `${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
     case 'spd': return 'SPD';
     case 'isolator': return ['Isolator', rating && `${rating} A`].filter(Boolean).join(' ');
     case 'timer': return 'Timer';
@@ -33,7 +32,14 @@ export function deviceKindName(d: Device): string {
 }
 
 export function isBreaker(d: Device): boolean { return BREAKERS.has(d.kind); }
-export function givesRcdProtection(d: Device): boolean { return RCD_LIKE.has(d.kind); }
+/**
+ * A device that is its own residual-current protection: an RCBO, or an AFDD with an IΔn recorded
+ * (a combined AFDD/RCBO unit).
+ */
+export function hasOwnRcd(d: Device): boolean {
+  return d.kind === 'rcbo' || (d.kind === 'afdd' && d.residualMa != null);
+}
+export function givesRcdProtection(d: Device): boolean { return d.kind === 'rcd' || hasOwnRcd(d); }
 
 /** Devices of one row in their order along the DIN rail. */
 export function devicesOnRow(schedule: Schedule, row: number): Device[] {
@@ -62,7 +68,7 @@ export function rcdFor(schedule: Schedule): Map<string, Device | null> {
   const out = new Map<string, Device | null>();
   if (schedule.board.rcdMode === 'manual') {
     for (const d of schedule.devices) {
-      if (d.kind === 'rcbo') { out.set(d.id, d); continue; }
+      if (hasOwnRcd(d)) { out.set(d.id, d); continue; }
       const rcd = d.protectedBy ? byId.get(d.protectedBy) : undefined;
       out.set(d.id, rcd && rcd.kind === 'rcd' ? rcd : null);
     }
@@ -74,12 +80,12 @@ export function rcdFor(schedule: Schedule): Map<string, Device | null> {
     if (d.row !== row) { row = d.row; current = null; }
     if (d.kind === 'rcd') { current = d; out.set(d.id, null); continue; }
     if (d.kind === 'main-switch' || d.kind === 'isolator') { current = null; out.set(d.id, null); continue; }
-    out.set(d.id, d.kind === 'rcbo' ? d : current);
+    out.set(d.id, hasOwnRcd(d) ? d : current);
   }
   return out;
 }
 
-/** The RCD (or RCBO) that gives a circuit its residual-current protection, if any. */
+/** The RCD (or RCBO, or AFDD/RCBO) that gives a circuit its residual-current protection, if any. */
 export function circuitRcd(schedule: Schedule, circuit: Circuit, rcds = rcdFor(schedule)): Device | null {
   if (!circuit.deviceId) return null;
   return rcds.get(circuit.deviceId) ?? null;

@@ -5,6 +5,7 @@
  * everywhere else, so there it is one note for the board rather than a mark on every way.
  */
 import type { Finding } from '../types.js';
+import { wayText } from '../../schedule/derive.js';
 import { SOCKET_RCD_MAX_RATING } from './tables.js';
 import { circuitFinding, circuitName, waysText, type CircuitFacts, type ScheduleView } from './view.js';
 
@@ -28,8 +29,11 @@ export function checkArcFault(view: ScheduleView): Finding[] {
       `${circuitName(f.circuit)}: in a house in multiple occupation, socket-outlet circuits up to 32 A need an AFDD (BS EN 62606); its device is not one`));
   }
   const ways = [...new Set(missing.map((f) => f.circuit.way))].sort((a, b) => a - b);
+  // The message names each way as printed ("4 L1"), so a three-phase board's ways can be told apart.
+  const named = [...missing].sort((a, b) => a.circuit.way - b.circuit.way || (a.circuit.phase ?? '').localeCompare(b.circuit.phase ?? ''));
+  const printed = [...new Set(named.map((f) => wayText(f.circuit)))];
   return [{
     severity: 'info', code: 'afdd-recommended', rule: RULE, ways, field: `circuits.${missing[0]!.index}.deviceId`,
-    message: `${waysText(ways, true)}: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A`,
+    message: `${waysText(printed, true)}: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A`,
   }];
 }

@@ -12,6 +12,9 @@ import { correctedIz, strongestFactor, type AppliedFactor } from './correction-f
 import { RING_FINAL, TABLE_4D5, type TwinEarthMethod, type TwinEarthRow } from './tables.js';
 import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
 
+/** A corrected capacity as printed: to 0.1 A, rounded down so a message never overstates it. */
+const amps = (iz: number) => num(Math.floor(iz * 10 + 1e-9) / 10);
+
 /** Looks up Table 4D5 Iz; null when the csa or method is not tabulated. */
 export function twinEarthIz(liveCsa: number, method: string): number | null {
   const row: TwinEarthRow | undefined = TABLE_4D5[liveCsa];
@@ -58,8 +61,8 @@ function checkRing(f: CircuitFacts, cap: Capacity, tabulated: number): Finding[]
   const { circuit, device } = f;
   const cable = circuit.cable;
   const message = cap.factors.length
-    ? `needs Iz of at least ${RING_FINAL.minIz} A under its installation conditions, but it has ${num(cap.iz)} A ${cap.basis}`
-    : `needs Iz of at least ${RING_FINAL.minIz} A, but method ${cable.referenceMethod} gives ${num(cap.iz)} A (Table 4D5)`;
+    ? `needs Iz of at least ${RING_FINAL.minIz} A under its installation conditions, but it has ${amps(cap.iz)} A ${cap.basis}`
+    : `needs Iz of at least ${RING_FINAL.minIz} A, but method ${cable.referenceMethod} gives ${amps(cap.iz)} A (Table 4D5)`;
   return [circuitFinding(f, 'error', 'ring-iz-below-20', 'BS 7671 433.1.204', blamedField(cap, tabulated >= RING_FINAL.minIz, 'cable.referenceMethod'),
     `${circuitName(circuit)}: a 2.5 mm² ring final on a ${deviceName(device!)} ${message}`)];
 }
@@ -83,7 +86,7 @@ function checkCircuit(f: CircuitFacts): Finding[] {
   if (isRecognisedRing) return checkRing(f, cap, tabulated);
   if (device.rating <= cap.iz) return [];
   return [circuitFinding(f, 'error', 'rating-over-iz', 'BS 7671 433.1.1', blamedField(cap, device.rating <= tabulated, 'cable.liveCsa'),
-    `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${num(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`)];
+    `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${amps(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`)];
 }
 
 /** In ≤ Iz × Ca × Cg × Ci for every circuit with a rated device, or why it could not be checked. */

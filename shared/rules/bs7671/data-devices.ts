@@ -6,6 +6,7 @@ import type { Device } from '../../schemas/schedule.js';
 import type { Finding } from '../types.js';
 import { BREAKER_RATINGS, RESIDUAL_RATINGS_MA } from './tables.js';
 import { deviceName, num, waysOfDevice, type ScheduleView } from './view.js';
+import { givesRcdProtection } from '../../schedule/derive.js';
 
 const RULE = 'Data check';
 
@@ -48,7 +49,7 @@ function ratingProblems(view: ScheduleView, d: Device, i: number): Finding[] {
   }
   if ((d.kind === 'rcd' || d.kind === 'rcbo') && d.residualMa == null) {
     out.push(deviceFinding(view, d, i, 'warning', 'rcd-without-residual', 'residualMa', `Device ${who(d)}: record its IΔn (e.g. 30 mA)`));
-  } else if ((d.kind === 'rcd' || d.kind === 'rcbo') && d.residualMa != null && !(RESIDUAL_RATINGS_MA as readonly number[]).includes(d.residualMa)) {
+  } else if (givesRcdProtection(d) && d.residualMa != null && !(RESIDUAL_RATINGS_MA as readonly number[]).includes(d.residualMa)) {
     out.push(deviceFinding(view, d, i, 'warning', 'residual-not-made', 'residualMa', `Device ${who(d)}: no RCD is made with IΔn ${num(d.residualMa)} mA (usual 30, 100, 300 mA); check the value`));
   }
   return out;

@@ -9,7 +9,7 @@
  */
 import type { Circuit, Device } from '../../schemas/schedule.js';
 import type { Finding, Severity } from '../types.js';
-import { wayText } from '../../schedule/derive.js';
+import { deviceKindName, givesRcdProtection, wayText } from '../../schedule/derive.js';
 import { deviceName, waysText, type CircuitFacts, type ScheduleView } from './view.js';
 
 const RULE = 'BS 7671 531.3.3';
@@ -27,8 +27,12 @@ function protectedBy(view: ScheduleView, d: Device): CircuitFacts[] {
   return view.circuits.filter((f) => f.rcd?.id === d.id || f.circuit.deviceId === d.id);
 }
 
+/** "RCD 2 (RCD 63 A 30 mA), Type AC"; an unlabelled RCBO is named by its kind, "RCBO B20 30 mA". */
 function name(d: Device): string {
-  return `${d.label ? `${d.label} (${deviceName(d)})` : deviceName(d)}, Type AC`;
+  const text = deviceName(d);
+  const kind = deviceKindName(d);
+  const plain = text.startsWith(kind) ? text : `${kind} ${text}`;
+  return `${d.label ? `${d.label} (${plain})` : plain}, Type AC`;
 }
 
 function finding(d: Device, index: number, circuits: CircuitFacts[], severity: Severity, message: string): Finding {
@@ -57,5 +61,5 @@ function checkDevice(view: ScheduleView, d: Device, index: number): Finding[] {
 
 /** A finding for each Type AC RCD or RCBO, by what it protects. */
 export function checkRcdType(view: ScheduleView): Finding[] {
-  return view.schedule.devices.flatMap((d, i) => (d.rcdType === 'AC' && (d.kind === 'rcd' || d.kind === 'rcbo') ? checkDevice(view, d, i) : []));
+  return view.schedule.devices.flatMap((d, i) => (d.rcdType === 'AC' && givesRcdProtection(d) ? checkDevice(view, d, i) : []));
 }

@@ -37,3 +37,28 @@ describe('421.1.7 arc fault detection on socket-outlet circuits', () => {
     expect(notes[0]!.message).toBe('Ways 1 and 3: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A');
   });
 });
+
+describe('a combined AFDD/RCBO', () => {
+  it('when a domestic socket circuit is on an AFDD with 30 mA IΔn, then it counts as 30 mA RCD protection and as an AFDD', () => {
+    const s = oneCircuit(afdd, { kind: 'ring' });
+    // 411.3.3: 30 mA additional protection (found); 421.1.7: AFDD (found).
+    expect([...withCode(s, 'sockets-need-rcd'), ...withCode(s, 'afdd-recommended')]).toEqual([]);
+  });
+
+  it('when the AFDD records no IΔn, then it is not taken as RCD protection', () => {
+    const s = oneCircuit({ ...afdd, residualMa: null, rcdType: null }, { kind: 'ring' });
+    expect(withCode(s, 'sockets-need-rcd')).toHaveLength(1); // 411.3.3 (found)
+  });
+});
+
+describe('ways of a three-phase board in the recommendation', () => {
+  it('when socket circuits sit on phases of one way, then the note names each as printed, "4 L1 and 4 L2"', () => {
+    const s = makeSchedule({
+      board: { phases: 3 },
+      devices: [{ id: 'd1', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 }, { id: 'd2', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 }],
+      circuits: [{ way: 4, phase: 'L2', deviceId: 'd2', kind: 'radial', socketOutlets: true }, { way: 4, phase: 'L1', deviceId: 'd1', kind: 'radial', socketOutlets: true }],
+    });
+    const [note] = withCode(s, 'afdd-recommended');
+    expect(note!.message).toBe('Ways 4 L1 and 4 L2: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A');
+  });
+});

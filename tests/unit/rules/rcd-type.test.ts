@@ -24,6 +24,8 @@ describe('Type AC RCDs (531.3.3)', () => {
     const [f] = withCode(oneCircuit({ rcdType: 'AC' }, { kind: 'sub-main' }), 'rcd-type-ac');
     expect(f).toMatchObject({ severity: 'warning', ways: [1], field: 'devices.0.rcdType' });
     expect(f!.message).toContain('it protects a sub-main (way 1)');
+    // An unlabelled RCBO is named by its kind as well as its rating.
+    expect(f!.message).toMatch(/^RCBO B32 30 mA, Type AC: /);
   });
 
   it('when a Type AC RCBO feeds only lighting, then a note to confirm the load has no DC components', () => {
