@@ -8,3 +8,9 @@ export function printedDate(iso: string | null | undefined): string | null {
   if (!y || !m || !d) return iso;
   return `${d} ${MONTHS[m - 1]} ${y}`;
 }
+
+/** The printed next-inspection date when it is already before `today` (both `YYYY-MM-DD`), else null. */
+export function overdueInspection(nextInspectionOn: string | null | undefined, today: string | undefined): string | null {
+  if (!nextInspectionOn || !today || nextInspectionOn >= today) return null;
+  return printedDate(nextInspectionOn);
+}

@@ -5,6 +5,7 @@
 import { noticeKindList, type NoticeKind } from '../../../shared/schemas/print.js';
 import type { Schedule } from '../../../shared/schemas/schedule.js';
 import { rcdNames } from '../../../shared/schedule/derive.js';
+import { supplyVoltages } from '../../../shared/schedule/voltage.js';
 import type { BoardMeta } from '../types.js';
 import { printedDate } from './dates.js';
 
@@ -38,10 +39,6 @@ function sourcesText(schedule: Schedule): string {
   return kinds.length === 1 ? kinds[0] : `${kinds.slice(0, -1).join(', ')} and ${kinds[kinds.length - 1]}`;
 }
 
-/** Line-to-line voltage of a three-phase supply, rounded as boards are marked (230 V → 400 V). */
-export function phaseVoltage(nominal: number): number {
-  return Math.round((nominal * Math.sqrt(3)) / 10) * 10;
-}
 
 /** One notice's text for this board. */
 export function noticeContent(kind: NoticeKind, schedule: Schedule, board: BoardMeta): NoticeContent {
@@ -76,10 +73,14 @@ export function noticeContent(kind: NoticeKind, schedule: Schedule, board: Board
       details: b.alternativeSupply.description ? [b.alternativeSupply.description] : [],
     };
     case 'voltage': {
-      const v = phaseVoltage(b.supply.nominalVoltage);
+      const { toEarth, betweenPhases } = supplyVoltages(b.phases, b.supply.nominalVoltage);
+      if (betweenPhases == null) return {
+        kind, title: `Danger: ${toEarth} volts`, symbol: 'warning', regulation: 'BS 7671 514.10.1',
+        body: `Supply ${toEarth} V to earth. Isolate the supply before removing covers.`, details: [],
+      };
       return {
-        kind, title: `Danger: ${v} volts`, symbol: 'warning', regulation: 'BS 7671 514.10.1',
-        body: `Three-phase supply, ${v}/${b.supply.nominalVoltage} V: up to ${v} V between devices on different phases. Isolate every phase before removing covers.`,
+        kind, title: `Danger: ${betweenPhases} volts`, symbol: 'warning', regulation: 'BS 7671 514.10.1',
+        body: `Three-phase supply, ${betweenPhases}/${toEarth} V: up to ${betweenPhases} V between devices on different phases. Isolate every phase before removing covers.`,
         details: [],
       };
     }

@@ -11,7 +11,7 @@ import { BLACK, WHITE, type Box, type FontFace, type Item, type LayoutDoc, type 
 import { narrowestTapeFor, TAPE_MAX_LENGTH_MM } from '../media.js';
 import { LayoutError } from '../types.js';
 import type { LayoutContext } from './context.js';
-import { printedDate } from './dates.js';
+import { overdueInspection, printedDate } from './dates.js';
 import { blockHeight, fitText, runsForLines, wrapText, type FitStyle } from './fit.js';
 import { noticeContent, noticesCalledFor, type NoticeContent } from './notice-content.js';
 import { placePieces, slotFor, type Piece, type Slot } from './place.js';
@@ -197,12 +197,24 @@ function fixedNotice(c: NoticeContent, w: number, h: number, ctx: LayoutContext<
   return [...f.items, ...narrow.items];
 }
 
+/**
+ * A stack squeezed to the minimum wording size reads worse than the two-line form when that sets
+ * larger and fits the tape's length, so thin tape keeps every notice's wording at one size.
+ */
+function twoLinesReadLarger(c: NoticeContent, scale: number, area: Box, maxTextW: number, tm: TypeMetrics): boolean {
+  if (sizesAt(scale).body > NOTICE_MIN_PT + 1e-9) return false;
+  const size = narrowSize(area, tm);
+  if (size <= NOTICE_MIN_PT) return false;
+  const [a, b] = narrowLines(c);
+  return Math.max(tm.measure(a, 'bold', size), tm.measure(b, 'regular', size)) <= maxTextW;
+}
+
 /** On tape: the shortest length whose wording reads near the largest size the tape allows. */
 function tapeNotice(c: NoticeContent, h: number, maxLength: number, ctx: LayoutContext<'notices'>): { w: number; items: Item[] } {
   const room = sideRoom(c, h);
   const area = frame(c, 1000, h).area;
   const longest = bestStack(c, maxLength - room, area.h, ctx.tm, true);
-  if (longest) {
+  if (longest && !twoLinesReadLarger(c, longest.scale * TAPE_SCALE_SHARE, area, maxLength - room, ctx.tm)) {
     const target = longest.scale * TAPE_SCALE_SHARE;
     for (let textW = Math.max(20, area.h); textW + room <= maxLength + 1e-6; textW += LENGTH_STEP_MM) {
       const st = bestStack(c, textW, area.h, ctx.tm, true, target);
@@ -222,7 +234,7 @@ function tapeNotice(c: NoticeContent, h: number, maxLength: number, ctx: LayoutC
   // Too thin to stack: two lines, as long as the longer needs.
   const size = narrowSize(area, ctx.tm);
   if (size < NOTICE_MIN_PT) {
-    throw new LayoutError(`${c.title} notice needs ${ctx.req.medium.id} or wider to set its wording in at least ${NOTICE_MIN_PT} pt: ${roomHint(ctx)}`, 'media');
+    throw new LayoutError(`${c.title} notice cannot set its wording in at least ${NOTICE_MIN_PT} pt on ${ctx.req.medium.id}: ${roomHint(ctx)}`, 'media');
   }
   const [a, b] = narrowLines(c);
   const w = Math.min(maxLength, Math.ceil(Math.max(ctx.tm.measure(a, 'bold', size), ctx.tm.measure(b, 'regular', size)) + room + 0.5));
@@ -273,10 +285,10 @@ function kindsFor(ctx: LayoutContext<'notices'>): NoticeKind[] {
 
 /** A periodic-inspection notice whose next date has already passed would send the reader to a past date. */
 function warnIfOverdue(c: NoticeContent, ctx: LayoutContext<'notices'>): void {
-  const next = ctx.req.board.nextInspectionOn;
-  if (c.kind !== 'inspection' || !next || !ctx.req.today || next >= ctx.req.today) return;
+  const due = overdueInspection(ctx.req.board.nextInspectionOn, ctx.req.today);
+  if (c.kind !== 'inspection' || !due) return;
   const name = `${c.title} notice`;
-  ctx.warnings.add({ code: 'inspection-overdue', label: name, message: `${name}: the next inspection was due on ${printedDate(next)}, which has passed. Have the installation inspected and print the notice with the new dates.` });
+  ctx.warnings.add({ code: 'inspection-overdue', label: name, message: `${name}: the next inspection was due on ${due}, which has passed. Have the installation inspected and print the notice with the new dates.` });
 }
 
 export function layoutNotices(ctx: LayoutContext<'notices'>): LayoutDoc {

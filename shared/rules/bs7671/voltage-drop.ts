@@ -1,9 +1,10 @@
 /**
  * Voltage drop estimate (Appendix 4 Section 6): route length × mV/A/m × design current / 1000,
- * against 3 % of the nominal voltage for lighting and 5 % for other uses. The design current is
+ * against 3 % of the voltage to earth (U0) for lighting and 5 % for other uses. The design current is
  * taken as the device rating, the worst case the circuit can carry. The drop is from this board;
  * a board fed by a sub-main adds the sub-main's own drop.
  */
+import { supplyVoltages } from '../../schedule/voltage.js';
 import type { Finding } from '../types.js';
 import { TABLE_4D5, VOLTAGE_DROP_LIMIT_PERCENT } from './tables.js';
 import { circuitFinding, circuitName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
@@ -26,7 +27,10 @@ export function estimatedVoltageDrop(f: Pick<CircuitFacts, 'circuit' | 'device'>
 function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   const volts = estimatedVoltageDrop(f);
   if (volts == null) return [];
-  const nominal = view.schedule.board.supply.nominalVoltage;
+  // Table 4D5 cables are two-core, so each circuit is single-phase: the limit is a share of U0, even
+  // when a three-phase board records its 400 V between phases.
+  const board = view.schedule.board;
+  const nominal = supplyVoltages(board.phases, board.supply.nominalVoltage).toEarth;
   const isLighting = f.circuit.kind === 'lighting';
   const limitPercent = isLighting ? VOLTAGE_DROP_LIMIT_PERCENT.lighting : VOLTAGE_DROP_LIMIT_PERCENT.other;
   const percent = (volts / nominal) * 100;

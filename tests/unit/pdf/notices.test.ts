@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
 import { layoutOutput } from '../../../server/pdf/index.js';
-import { noticesCalledFor, phaseVoltage } from '../../../server/pdf/layout/notice-content.js';
+import { noticeContent, noticesCalledFor } from '../../../server/pdf/layout/notice-content.js';
 import { warningTriangle } from '../../../server/pdf/layout/symbols.js';
 import { SAFETY_YELLOW, type PolygonItem } from '../../../server/pdf/model.js';
-import { request, tenCircuitBoard } from './fixtures.js';
+import { board, request, tenCircuitBoard } from './fixtures.js';
 import { runsOutside, textRuns } from './helpers.js';
 
 const ALL = 'inspection,rcd-test,earthing,mixed-colours,alternative-supply,voltage';
@@ -19,7 +19,9 @@ describe('notices', () => {
   });
 
   it('when a three-phase board is on 230 V, then the voltage warning says 400 V', () => {
-    expect(phaseVoltage(230)).toBe(400); // 230 V × √3 = 398 V, marked 400 V (BS 7671 Appendix / common practice)
+    const s = tenCircuitBoard();
+    s.board.phases = 3;
+    expect(noticeContent('voltage', s, board).title).toBe('Danger: 400 volts'); // 230/400 V: BS EN 60038 (from memory)
   });
 
   it('when every notice prints on A4, then warnings carry the yellow triangle and the others do not', () => {

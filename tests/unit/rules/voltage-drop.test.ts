@@ -35,6 +35,14 @@ describe('voltage drop estimate (Appendix 4 Section 6)', () => {
     expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: te(2.5, 32) }, { supply: { nominalVoltage: 240 } }), 'voltage-drop-over-limit')).toEqual([]); // 11.52 V < 12 V
   });
 
+  it('when a three-phase board records 400 V between phases, then each circuit is judged against 230 V to earth, as at 230 V', () => {
+    // 18 mV/A/m (Table 4D5, from memory) × 20 A × 32 m = 11.52 V > 5 % of U0 230 V = 11.5 V; 230/400 V (BS EN 60038, from memory)
+    for (const nominalVoltage of [230, 400]) {
+      const [f] = withCode(oneCircuit(mcb(20), { kind: 'radial', phase: 'L1', cable: te(2.5, 32) }, { phases: 3, supply: { nominalVoltage } }), 'voltage-drop-over-limit');
+      expect(f?.message).toContain('exceeds the 5 % limit for this use (11.5 V)');
+    }
+  });
+
   it('when the length or a tabulated cable is missing, then no estimate is made', () => {
     const noLength = oneCircuit(mcb(20), { kind: 'radial', cable: { type: 'twin-earth', liveCsa: 2.5 } });
     expect(estimatedVoltageDrop({ circuit: noLength.circuits[0], device: noLength.devices[0] })).toBeNull();

@@ -11,7 +11,8 @@ import type { LayoutContext } from '../context.js';
 import { printedDate } from '../dates.js';
 import { blockHeight, runsForLines, wrapText, type FitStyle } from '../fit.js';
 import { imageSize } from '../image-size.js';
-import { phaseVoltage } from '../notice-content.js';
+import { supplyVoltageShortText } from '../../../../shared/schedule/voltage.js';
+import { waysText } from '../../../../shared/rules/index.js';
 
 export interface Line { text: string; face: FontFace; sizePt: number; color?: Color; maxLines?: number }
 
@@ -32,7 +33,7 @@ export function stack(lines: Line[], x: number, y: number, w: number, ctx: Layou
 function supplyText(s: Schedule): string {
   const p = s.board.supply;
   const parts = [
-    p.earthing, s.board.phases === 3 ? `${phaseVoltage(p.nominalVoltage)}/${p.nominalVoltage} V three-phase` : `${p.nominalVoltage} V`, p.ze != null ? `Ze ${p.ze} Ω` : '', p.pfcKa != null ? `PFC ${p.pfcKa} kA` : '',
+    p.earthing, supplyVoltageShortText(s.board.phases, p.nominalVoltage), p.ze != null ? `Ze ${p.ze} Ω` : '', p.pfcKa != null ? `PFC ${p.pfcKa} kA` : '',
     p.mainSwitchRating != null ? `main switch ${p.mainSwitchRating} A` : '', p.tailsCsa != null ? `tails ${p.tailsCsa} mm²` : '',
     p.mainEarthCsa != null ? `main earth ${p.mainEarthCsa} mm²` : '', p.mainBondingCsa != null ? `main bonding ${p.mainBondingCsa} mm²` : '',
   ];
@@ -48,15 +49,15 @@ function datesText(ctx: LayoutContext<'chart'>): string {
   return parts.charAt(0).toUpperCase() + parts.slice(1);
 }
 
-/** "RCD 1 · 63 A 30 mA Type A: ways 1 Kitchen sockets, 2 …" per RCD, then RCBOs and unprotected ways. */
+/** "RCD 1 · 63 A 30 mA Type A: ways 1 Kitchen sockets, 2 … and 5 …" (or "way 1 …") per RCD, then RCBOs and unprotected ways. */
 export function rcdLines(s: Schedule): string[] {
-  const ways = (cs: Schedule['circuits']) => cs.map((c) => `${wayText(c)} ${c.label}`).join(', ');
-  const lines = rcdGroups(s).map((g) => `${g.name} · ${deviceShortText(g.rcd).replace(/^RCD /, '')}${g.rcd.rcdType ? ` Type ${g.rcd.rcdType}` : ''}: ${g.circuits.length ? `ways ${ways(g.circuits)}` : 'protects no recorded way'}`);
+  const ways = (cs: Schedule['circuits']) => waysText(cs.map((c) => `${wayText(c)} ${c.label}`));
+  const lines = rcdGroups(s).map((g) => `${g.name} · ${deviceShortText(g.rcd).replace(/^RCD /, '')}${g.rcd.rcdType ? ` Type ${g.rcd.rcdType}` : ''}: ${g.circuits.length ? ways(g.circuits) : 'protects no recorded way'}`);
   const rcds = rcdFor(s);
   const own = s.circuits.filter((c) => c.deviceId && rcds.get(c.deviceId)?.kind === 'rcbo');
-  if (own.length) lines.push(`RCBOs (own residual-current protection): ways ${own.map((c) => wayText(c)).join(', ')}`);
+  if (own.length) lines.push(`RCBOs (own residual-current protection): ${waysText(own.map((c) => wayText(c)))}`);
   const none = s.circuits.filter((c) => !c.deviceId || !rcds.get(c.deviceId));
-  if (none.length) lines.push(`No RCD protection: ways ${none.map((c) => wayText(c)).join(', ')}`);
+  if (none.length) lines.push(`No RCD protection: ${waysText(none.map((c) => wayText(c)))}`);
   return lines;
 }
 

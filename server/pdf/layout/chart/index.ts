@@ -8,7 +8,7 @@ import { waysText } from '../../../../shared/rules/index.js';
 import { BLACK, GREY, RED, type Box, type LayoutDoc, type LayoutPage } from '../../model.js';
 import { LayoutError } from '../../types.js';
 import type { LayoutContext } from '../context.js';
-import { printedDate } from '../dates.js';
+import { overdueInspection, printedDate } from '../dates.js';
 import { chartColumns, chartFacts, type Paragraph } from './columns.js';
 import { stack, type Line } from './header.js';
 import { ChartPager, type ChartFrame } from './pages.js';
@@ -86,5 +86,10 @@ export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
     items: [...items, { kind: 'line', from: { x: content.x, y: frame.bottom + 0.8 }, to: { x: content.x + content.w, y: frame.bottom + 0.8 }, lineMm: 0.2, color: GREY },
       ...stack(footerLines(ctx, k, i + 1, pager.pages.length), content.x, frame.bottom + 1.5, content.w, ctx).items],
   }));
+  const due = overdueInspection(ctx.req.board.nextInspectionOn, ctx.req.today);
+  if (due) {
+    const label = 'Circuit chart';
+    ctx.warnings.add({ code: 'inspection-overdue', label, message: `${label}: the next inspection was due on ${due}, which has passed. Have the installation inspected and print the chart with the new dates.` });
+  }
   return { title: `${ctx.req.board.code} circuit chart`, pages, warnings: ctx.warnings.list };
 }
