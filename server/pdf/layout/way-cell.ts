@@ -6,7 +6,7 @@
 import { placeFrame, mapItems } from '../geometry.js';
 import type { Box, Item } from '../model.js';
 import type { LayoutContext } from './context.js';
-import { fitText, type FitStyle } from './fit.js';
+import { blockHeight, fitText, runsForLines, type FitStyle } from './fit.js';
 
 export interface CellText { ways: string; device: string; main: string }
 
@@ -14,6 +14,8 @@ export interface CellText { ways: string; device: string; main: string }
 export interface CellCaps { ways: number; main: number }
 /** Sizes a cell's text was set at, for working out the strip's caps. */
 export type CellSizes = CellCaps;
+/** A row's caps: one pair for its upright cells, one for its turned (half-module) cells, so each kind reads evenly. */
+export interface RowCaps { upright: CellCaps; turned: CellCaps }
 
 const PAD_MM = 0.6;
 
@@ -25,23 +27,33 @@ function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: Layou
   const regular: FitStyle = { face: 'regular', maxPt: 9, minPt, maxLines: 1, align: 'right' };
   const main: FitStyle = { face: 'bold', maxPt: cap(11, caps?.main), minPt, wrapBelowPt: Math.min(7, cap(11, caps?.main)), align: 'centre', lineSpacing: 1.18 };
   const parts: Array<[string, Box, FitStyle, 'ways' | 'device' | 'main']> = [];
+  const extra: Item[] = [];
   if (inner.h < 5) {
     parts.push([t.ways, { ...inner, w: inner.w * 0.3 }, bold, 'ways'], [t.main, { ...inner, x: inner.x + inner.w * 0.32, w: inner.w * 0.68 }, { ...main, align: 'left', maxLines: 1 }, 'main']);
   } else {
-    const top = Math.max(2.2, inner.h * 0.38);
+    let top = Math.max(2.2, inner.h * 0.38);
     // Share the top line by how wide each text is, so "9" next to "C32 30 mA" leaves the device room.
     // The way number always gets room for at least 7 pt; the device text goes when what is left cannot hold it.
     const wayW = ctx.tm.measure(t.ways, 'bold', 1);
     const deviceW = ctx.tm.measure(t.device, 'regular', 1);
     const wayMin = Math.min(1, (ctx.tm.measure(t.ways, 'bold', 7) + 0.3) / inner.w);
     let wayShare = t.device ? Math.min(0.7, Math.max(0.25, wayMin, wayW / (wayW + deviceW + 1e-9))) : 1;
-    if (t.device && inner.w * (1 - wayShare) < deviceW * minPt) { wayShare = 1; t = { ...t, device: '' }; }
+    // A device text too long for one line beside the way number ("B20 30 mA") takes two ("B20" over "30 mA");
+    // if even that cannot be set at the minimum, it goes with the usual cut warning, never silently.
+    let deviceLines: { lines: string[]; sizePt: number } | null = null;
+    if (t.device && inner.w * (1 - wayShare) < deviceW * minPt) {
+      deviceLines = twoLines(t.device, inner.w * (1 - wayShare), inner.h * 0.5, minPt, regular, ctx);
+      if (deviceLines) top = Math.max(top, blockHeight(2, deviceLines.sizePt, regular, ctx.tm));
+      else { if (name) ctx.warnings.cut(name, t.device); wayShare = 1; t = { ...t, device: '' }; }
+    }
     const ways: Box = { x: inner.x, y: inner.y, w: inner.w * wayShare, h: top };
     parts.push([t.ways, ways, t.device ? bold : { ...bold, align: 'centre' }, 'ways']);
-    if (t.device) parts.push([t.device, { x: inner.x + inner.w * wayShare, y: inner.y, w: inner.w * (1 - wayShare), h: top }, regular, 'device']);
+    const deviceBox: Box = { x: inner.x + inner.w * wayShare, y: inner.y, w: inner.w * (1 - wayShare), h: top };
+    if (deviceLines) extra.push(...runsForLines(deviceLines.lines, deviceBox, { ...regular, maxPt: deviceLines.sizePt, minPt: deviceLines.sizePt }, deviceLines.sizePt, ctx.tm));
+    else if (t.device) parts.push([t.device, deviceBox, regular, 'device']);
     parts.push([t.main, { x: inner.x, y: inner.y + top, w: inner.w, h: inner.h - top }, main, 'main']);
   }
-  const items: Item[] = [];
+  const items: Item[] = [...extra];
   const sizes: CellSizes = { ways: Infinity, main: Infinity };
   for (const [text, cell, style, role] of parts) {
     const fit = fitText(text, cell, style, ctx.tm);
@@ -52,6 +64,17 @@ function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: Layou
   return { items, sizes };
 }
 
+/** `text` split at its first space into two lines, at the largest size up to the style's that fits `w × h`; null below `minPt`. */
+function twoLines(text: string, w: number, h: number, minPt: number, style: FitStyle, ctx: LayoutContext<'way-labels'>): { lines: string[]; sizePt: number } | null {
+  const at = text.indexOf(' ');
+  if (at <= 0) return null;
+  const lines = [text.slice(0, at), text.slice(at + 1)];
+  const widest = Math.max(...lines.map((l) => ctx.tm.measure(l, style.face, 1)));
+  const byHeight = h / blockHeight(2, 1, style, ctx.tm);
+  const sizePt = Math.floor(Math.min(style.maxPt, w / widest, byHeight) * 4) / 4;
+  return sizePt >= minPt ? { lines, sizePt } : null;
+}
+
 function cellFrame(box: Box, ctx: LayoutContext<'way-labels'>) {
   const minPt = ctx.req.medium.kind === 'tape' ? 5 : 5.5;
   const turned = box.h > box.w * 1.15;
@@ -59,17 +82,16 @@ function cellFrame(box: Box, ctx: LayoutContext<'way-labels'>) {
 }
 
 /** Text items for a cell box; turned 90° when the cell stands taller than wide; `caps` limit the sizes. */
-export function cellItems(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>, name: string, caps?: CellCaps): Item[] {
+export function cellItems(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>, name: string, caps?: RowCaps): Item[] {
   if (box.w <= 0 || box.h <= 0) return [];
   const f = cellFrame(box, ctx);
-  const local = frameItems(t, f.w, f.h, f.minPt, ctx, name, caps).items;
+  const local = frameItems(t, f.w, f.h, f.minPt, ctx, name, caps?.[f.turned ? 'turned' : 'upright']).items;
   return mapItems(local, placeFrame(f.w, f.h, box, f.turned ? 90 : 0));
 }
 
-/** The sizes a cell's way number and main label fit at on their own (turned cells report none: they are set across). */
-export function cellSizes(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>): CellSizes {
-  const none = { ways: Infinity, main: Infinity };
-  if (box.w <= 0 || box.h <= 0) return none;
+/** The sizes a cell's way number and main label fit at on their own, and whether the cell is set turned. */
+export function cellSizes(t: CellText, box: Box, ctx: LayoutContext<'way-labels'>): { turned: boolean; sizes: CellSizes } {
+  if (box.w <= 0 || box.h <= 0) return { turned: false, sizes: { ways: Infinity, main: Infinity } };
   const f = cellFrame(box, ctx);
-  return f.turned ? none : frameItems(t, f.w, f.h, f.minPt, ctx, null).sizes;
+  return { turned: f.turned, sizes: frameItems(t, f.w, f.h, f.minPt, ctx, null).sizes };
 }

@@ -9,7 +9,7 @@ import { BLACK, type Box, type Item, type LayoutDoc } from '../model.js';
 import { TAPE_MAX_LENGTH_MM } from '../media.js';
 import type { LayoutContext } from './context.js';
 import { placePieces, slotFor, slotMaxLength, type Piece } from './place.js';
-import { cellItems, cellSizes, type CellCaps, type CellText } from './way-cell.js';
+import { cellItems, cellSizes, type CellCaps, type CellText, type RowCaps } from './way-cell.js';
 
 /** Strip height when tiled on a plain sheet (mm), unless the option says otherwise. // common practice */
 const PAGE_STRIP_HEIGHT_MM = 12;
@@ -86,16 +86,20 @@ function circuitsSorted(cs: Circuit[]): Circuit[] {
 /**
  * No label on a strip is set larger than the smallest every other label of the row fits at, so the
  * row reads evenly; but no lower than EVEN_FLOOR_PT, so one long label cannot shrink the whole row to
- * its size: it shrinks (or wraps) alone. Cells set turned (half modules) keep their own size.
+ * its size: it shrinks (or wraps) alone. Cells set turned (half modules) share a pair of their own.
  */
 const EVEN_FLOOR_PT = 7;
 
-function rowCaps(cells: WayCell[], heightMm: number, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>): CellCaps {
-  const sizes = cells.map((c) => cellSizes(texts.get(c.deviceId)!, { x: 0, y: 0, w: c.w, h: heightMm }, ctx));
-  return {
-    ways: Math.max(EVEN_FLOOR_PT, Math.min(...sizes.map((z) => z.ways))),
-    main: Math.max(EVEN_FLOOR_PT, Math.min(...sizes.map((z) => z.main))),
+function rowCaps(cells: WayCell[], heightMm: number, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>): RowCaps {
+  const measured = cells.map((c) => cellSizes(texts.get(c.deviceId)!, { x: 0, y: 0, w: c.w, h: heightMm }, ctx));
+  const capsOf = (turned: boolean): CellCaps => {
+    const sizes = measured.filter((m) => m.turned === turned).map((m) => m.sizes);
+    return {
+      ways: Math.max(EVEN_FLOOR_PT, Math.min(...sizes.map((z) => z.ways))),
+      main: Math.max(EVEN_FLOOR_PT, Math.min(...sizes.map((z) => z.main))),
+    };
   };
+  return { upright: capsOf(false), turned: capsOf(true) };
 }
 
 /** "▼▲ meet part 2", "… parts 1 and 3", "… part 2": each part names the parts its marks meet. */
@@ -106,7 +110,7 @@ function joinCaption(part: number, parts: number): string {
 
 interface StripPlan { strips: WayStrip[]; pieces: Piece[] }
 
-function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, Device>, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>, joins: { left: boolean; right: boolean }, caps: CellCaps): Piece {
+function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, Device>, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>, joins: { left: boolean; right: boolean }, caps: RowCaps): Piece {
   const mark = Math.min(2, heightMm / 4);
   const name = `Row ${strip.row} way labels${strip.parts > 1 ? ` (part ${strip.part} of ${strip.parts})` : ''}`;
   const items: Item[] = [
