@@ -4,7 +4,7 @@
  */
 import { noticeKindList, type NoticeKind } from '../../../shared/schemas/print.js';
 import type { Schedule } from '../../../shared/schemas/schedule.js';
-import { rcdNames } from '../../../shared/schedule/derive.js';
+import { givesRcdProtection, hasOwnRcd, rcdNames } from '../../../shared/schedule/derive.js';
 import { supplyVoltages } from '../../../shared/schedule/voltage.js';
 import type { BoardMeta } from '../types.js';
 import { printedDate } from './dates.js';
@@ -25,7 +25,7 @@ const BLANK = '____________';
 /** The notices a board calls for when the user has not chosen. */
 export function noticesCalledFor(schedule: Schedule, earthingCount: number): NoticeKind[] {
   const b = schedule.board;
-  const hasRcd = schedule.devices.some((d) => d.kind === 'rcd' || d.kind === 'rcbo');
+  const hasRcd = schedule.devices.some(givesRcdProtection);
   const wanted: Record<NoticeKind, boolean> = {
     inspection: true, 'rcd-test': hasRcd, earthing: earthingCount > 0, 'mixed-colours': b.mixedWiringColours,
     'alternative-supply': b.alternativeSupply.present, voltage: b.phases === 3,
@@ -51,7 +51,8 @@ export function noticeContent(kind: NoticeKind, schedule: Schedule, board: Board
     };
     case 'rcd-test': {
       const names = [...rcdNames(schedule).values()];
-      const rcbos = schedule.devices.filter((d) => d.kind === 'rcbo').length;
+      // Combined AFDD/RCBOs have a test button too.
+      const rcbos = schedule.devices.filter(hasOwnRcd).length;
       const here = [...names, rcbos ? `${rcbos} RCBO${rcbos > 1 ? 's' : ''}` : ''].filter(Boolean).join(', ');
       return {
         kind, title: 'Test the RCDs every six months', symbol: null, regulation: 'BS 7671 514.12.2',

@@ -67,7 +67,7 @@ export function spareWays(schedule: Schedule, byDevice: Map<string, Circuit[]>):
   const out = new Map<string, string>();
   let last: Pick<Circuit, 'way' | 'phase'> | null = null;
   for (const d of [...schedule.devices].sort((a, b) => a.row - b.row)) {
-    if (d.kind !== 'mcb' && d.kind !== 'rcbo') continue;
+    if (d.kind !== 'mcb' && d.kind !== 'rcbo' && d.kind !== 'afdd') continue;
     const circuits = byDevice.get(d.id) ?? [];
     if (circuits.length) { last = circuitsSorted(circuits)[circuits.length - 1]; continue; }
     if (!last) continue;

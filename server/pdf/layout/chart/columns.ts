@@ -3,7 +3,7 @@
  * after). BS 7671 514.9.1 wants, per circuit, its type, points served, conductors and wiring type,
  * and how each protective device is identified: the columns follow that.
  */
-import { deviceKindName, rcdFor, rcdNames, wayText } from '../../../../shared/schedule/derive.js';
+import { deviceKindName, hasOwnRcd, rcdFor, rcdNames, wayText } from '../../../../shared/schedule/derive.js';
 import type { Circuit, Device, Schedule } from '../../../../shared/schemas/schedule.js';
 import { GREY, RED, type Color, type FontFace } from '../../model.js';
 
@@ -44,7 +44,7 @@ function deviceCell(c: Circuit, f: ChartFacts): Paragraph[] {
 function rcdCell(c: Circuit, f: ChartFacts): Paragraph[] {
   const rcd = c.deviceId ? f.rcds.get(c.deviceId) : null;
   if (!rcd) return [{ text: 'None', face: 'regular', color: GREY }];
-  const name = rcd.kind === 'rcbo' ? 'RCBO' : f.rcdNames.get(rcd.id) ?? 'RCD';
+  const name = hasOwnRcd(rcd) ? (rcd.kind === 'afdd' ? 'AFDD/RCBO' : 'RCBO') : f.rcdNames.get(rcd.id) ?? 'RCD';
   const details = [rcd.residualMa != null ? `${rcd.residualMa} mA` : '', rcd.rcdType ? `Type ${rcd.rcdType}` : ''].filter(Boolean);
   return [{ text: name, face: 'bold' }, ...details.map((text) => ({ text, face: 'regular' as const }))];
 }

@@ -3,7 +3,7 @@
  * code, the supply, inspection dates and what each RCD protects; on later pages one line naming
  * the board so a loose page is never anonymous.
  */
-import { rcdGroups, rcdFor, wayText, deviceShortText } from '../../../../shared/schedule/derive.js';
+import { rcdGroups, rcdFor, wayText, deviceShortText, hasOwnRcd } from '../../../../shared/schedule/derive.js';
 import type { Schedule } from '../../../../shared/schemas/schedule.js';
 import { GREY, type Box, type FontFace, type Item, type Color } from '../../model.js';
 import { qrItems, qrMinSideMm } from '../../qr.js';
@@ -54,7 +54,7 @@ export function rcdLines(s: Schedule): string[] {
   const ways = (cs: Schedule['circuits']) => waysText(cs.map((c) => `${wayText(c)} ${c.label}`));
   const lines = rcdGroups(s).map((g) => `${g.name} · ${deviceShortText(g.rcd).replace(/^RCD /, '')}${g.rcd.rcdType ? ` Type ${g.rcd.rcdType}` : ''}: ${g.circuits.length ? ways(g.circuits) : 'protects no recorded way'}`);
   const rcds = rcdFor(s);
-  const own = s.circuits.filter((c) => c.deviceId && rcds.get(c.deviceId)?.kind === 'rcbo');
+  const own = s.circuits.filter((c) => { const rcd = c.deviceId ? rcds.get(c.deviceId) : null; return rcd != null && hasOwnRcd(rcd); });
   if (own.length) lines.push(`RCBOs (own residual-current protection): ${waysText(own.map((c) => wayText(c)))}`);
   const none = s.circuits.filter((c) => !c.deviceId || !rcds.get(c.deviceId));
   if (none.length) lines.push(`No RCD protection: ${waysText(none.map((c) => wayText(c)))}`);
