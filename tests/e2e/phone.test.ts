@@ -67,14 +67,66 @@ describe('signed-in pages on a phone', { timeout: 240_000 }, () => {
     expect(app.pageErrors).toEqual([]);
   });
 
-  it('when a board\'s history is read, then the days in the differences are written as elsewhere and the table scrolls in its card', async () => {
+  it('when a board\'s history is read, then the days in the differences are written as elsewhere and every revision shows who and what changed on screen', async () => {
     const { page } = await signedInOwnerPage(app, 'Phone History Electrical', { viewport: PHONE });
     const id = await boardWithTwoRevisions(page);
     await page.goto(`/boards/${id}/history`);
     const diff = page.locator('.board-diff');
     await expect.poll(() => diff.textContent().catch(() => ''), { timeout: 30_000 }).toContain('14 May 2021 → 1 Jun 2025'); // the dates saved above
     expect(await diff.textContent()).not.toMatch(/\d{4}-\d{2}-\d{2}/);
-    expect(await page.getByTestId('revision-list').textContent()).not.toMatch(/\d{4}-\d{2}-\d{2}/);
+    const list = page.getByTestId('revision-list');
+    expect(await list.textContent()).not.toMatch(/\d{4}-\d{2}-\d{2}/);
+
+    // "By" and "What changed" of each revision lie inside the 390 px screen, each named, not off to the right.
+    const rows = list.locator('tbody tr.ant-table-row');
+    expect(await rows.count()).toBe(3); // created, then the two saves above
+    for (const column of ['By', 'What changed']) {
+      const cells = list.locator(`tbody td[data-label="${column}"]`);
+      expect(await cells.count()).toBe(3);
+      for (let i = 0; i < 3; i++) {
+        const box = await cells.nth(i).boundingBox();
+        expect(box, column).not.toBeNull();
+        expect(box!.x).toBeGreaterThanOrEqual(0);
+        expect(box!.x + box!.width).toBeLessThanOrEqual(PHONE.width);
+        expect(await cells.nth(i).evaluate((el) => (globalThis as unknown as { getComputedStyle(e: unknown, p: string): { content: string } }).getComputedStyle(el, '::before').content)).toBe(`"${column}"`);
+      }
+    }
+    expect(await list.locator('tbody td[data-label="By"]').first().textContent()).toContain('Test Owner');
+    expect(await list.locator('tbody td[data-label="What changed"]').first().textContent()).not.toBe('');
+    expect(await sidewaysOverflow(page)).toEqual({ page: 0, cards: [] });
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/phone-history.png`, fullPage: true });
+  });
+
+  it('when a circuit\'s or a device\'s drawer is opened at 390 px, then the whole drawer is on the screen', async () => {
+    const { page } = await signedInOwnerPage(app, 'Phone Drawer Electrical', { viewport: PHONE });
+    const id = await boardWithTwoRevisions(page);
+    await page.goto(`/boards/${id}`);
+    await page.getByRole('button', { name: 'Details of way 1' }).click();
+    const drawer = page.locator('.ant-drawer-open .ant-drawer-content-wrapper');
+    await page.getByLabel('Circuits grouped, this one included').waitFor();
+    const onScreen = async (what: string) => {
+      // Polled: the drawer slides in from the right before it settles.
+      await expect.poll(async () => {
+        const box = await drawer.boundingBox();
+        return { what, starts: box!.x >= 0, right: Math.round(box!.x + box!.width) };
+      }, { timeout: 5_000 }).toEqual({ what, starts: true, right: PHONE.width });
+      // Its fields too: the widest control ends inside the screen.
+      const field = await page.locator('.ant-drawer-open .ant-form-item').first().boundingBox();
+      expect(field!.x + field!.width).toBeLessThanOrEqual(PHONE.width);
+    };
+    await onScreen('circuit drawer');
+    expect(Math.round((await drawer.boundingBox())!.width)).toBe(PHONE.width); // 400 px wanted, the screen is all there is
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/phone-circuit-drawer.png` });
+    await page.goto(`/boards/${id}`);
+
+    await page.getByRole('tab', { name: /DIN rows/ }).click();
+    await page.getByRole('button', { name: 'Add device to row 1' }).click();
+    await page.getByRole('menuitem', { name: 'MCB' }).click();
+    await page.getByRole('button', { name: 'Edit', exact: true }).click();
+    await page.getByLabel('Rating (A)').waitFor();
+    await onScreen('device drawer');
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/phone-device-drawer.png` });
+    expect(app.pageErrors).toEqual([]);
   });
 
   it('when the print page is opened on a phone, then a button opens the same PDF the preview holds', async () => {
