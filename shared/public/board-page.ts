@@ -8,7 +8,7 @@ import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
 import type { PublicBoard, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
 import { circuitsInWayOrder, deviceKindName, deviceShortText, hasOwnRcd, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
 import { boardCautions } from './cautions.js';
-import { supplyVoltages, supplyVoltageText } from './voltage.js';
+import { supplyVoltages, supplyVoltageText } from '../schedule/voltage.js';
 
 /** What the server adds around the schedule; all of it is public by the organisation's choice. */
 export interface PublicBoardMeta {

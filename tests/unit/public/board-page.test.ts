@@ -3,7 +3,7 @@ import { scheduleSchema, type ScheduleInput } from '../../../shared/schemas/sche
 import { publicBoardSchema } from '../../../shared/schemas/public-board.js';
 import { toPublicBoard, type PublicBoardMeta } from '../../../shared/public/board-page.js';
 import { GENERAL_CAUTIONS, THREE_PHASE_CAUTION } from '../../../shared/public/cautions.js';
-import { supplyVoltages, supplyVoltageText } from '../../../shared/public/voltage.js';
+import { supplyVoltages, supplyVoltageText } from '../../../shared/schedule/voltage.js';
 import { isOverdue, localIsoDay } from '../../../shared/public/dates.js';
 import { listText, unprotectedText, wayProtectionText } from '../../../shared/public/way-text.js';
 import { nextInspectionDate } from '../../../shared/rules/index.js';
