@@ -130,6 +130,79 @@ describe('building a board in the editor', () => {
     expect(app.pageErrors).toEqual([]);
   }, 180_000);
 
+  it('when an installation condition is typed out of range, then the typed value stays with the schema message beside it until corrected', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const boardId = await boardWithCircuits(page, 2);
+    await page.goto(`/boards/${boardId}`);
+    await page.locator('td[data-cell="label-c1"] input').waitFor();
+    await page.getByRole('button', { name: 'Details of way 1' }).click();
+
+    // Each typed, then left (Tab): nothing is pulled back to the limit. The limits and messages are the schema's own.
+    const cases = [
+      ['Hottest air temperature along the route (°C)', 'cable.ambientC', '95', 'At most 90 °C'],
+      ['Circuits grouped, this one included', 'cable.groupedWith', '0', 'Count this circuit too: at least 1'],
+      ['Length surrounded by thermal insulation (mm)', 'cable.insulatedLengthMm', '-10', 'Length in insulation cannot be negative'],
+    ] as const;
+    for (const [label, field, typed, message] of cases) {
+      const input = page.getByLabel(label);
+      await input.fill(typed);
+      await input.press('Tab');
+      const beside = page.locator(`[data-field="circuits.0.${field}"]`);
+      await beside.getByText(message).waitFor();
+      expect(await input.inputValue()).toBe(typed);
+    }
+    if (process.env.WAYMARK_SHOTS) await page.screenshot({ path: `${process.env.WAYMARK_SHOTS}/editor-out-of-range.png` }); // for looking, not asserting
+    // Saving is refused while they are wrong; nothing reaches the server, and the typed values are still there after.
+    await page.keyboard.press('Escape');
+    await page.locator('.ant-drawer-open').waitFor({ state: 'detached' });
+    await page.getByTestId('save').click();
+    expect((await (await page.request.get(`/api/boards/${boardId}/schedule`)).json()).revision).toBe(2);
+    await page.getByRole('button', { name: 'Details of way 1' }).click();
+    for (const [label, , typed] of cases) expect(await page.getByLabel(label).inputValue()).toBe(typed);
+
+    // Corrected, the messages go and the board saves with the corrected values (rule findings may stay: they never block saving).
+    const corrected = ['40', '2', '0'];
+    for (const [i, [label, field, , message]] of cases.entries()) {
+      await page.getByLabel(label).fill(corrected[i]!);
+      await page.getByLabel(label).press('Tab');
+      await expect.poll(() => page.locator(`[data-field="circuits.0.${field}"]`).getByText(message).count()).toBe(0);
+      expect(await page.getByLabel(label).inputValue()).toBe(corrected[i]);
+    }
+    await page.keyboard.press('Escape');
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 3' }).waitFor();
+    const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    expect(saved.circuits[0].cable).toMatchObject({ ambientC: 40, groupedWith: 2, insulatedLengthMm: 0 });
+    expect(app.pageErrors).toEqual([]);
+  }, 180_000);
+
+  it('when an AFDD with an RCBO built in is recorded, then its drawer takes IΔn and RCD type, its face shows them, and they are saved', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const boardId = await boardWithCircuits(page, 1);
+    await page.goto(`/boards/${boardId}`);
+    await page.getByRole('tab', { name: /DIN rows/ }).click();
+    const faces30A = page.locator('.board-din-row svg text', { hasText: '30 mA A' });
+    await faces30A.first().waitFor();
+    const before = await faces30A.count(); // the fixture's RCBOs
+    await page.getByRole('button', { name: 'Add device to row 1' }).click();
+    await page.getByRole('menuitem', { name: 'AFDD' }).click();
+    await page.getByRole('button', { name: 'Edit', exact: true }).click();
+    await page.getByLabel('Rating (A)').fill('16');
+    // 30 mA: BS 7671:2018+A2 411.3.3 (additional protection); type A: common practice for final circuits
+    await page.getByLabel('IΔn (mA)').fill('30');
+    await page.locator('.ant-drawer [data-field$=".rcdType"] .ant-select-selector').click();
+    await page.locator('.ant-select-dropdown:not(.ant-select-dropdown-hidden) .ant-select-item-option[title="Type A"]').click();
+    await page.getByTestId('afdd-rcbo-note').waitFor();
+    await page.keyboard.press('Escape');
+    await expect.poll(() => faces30A.count()).toBe(before + 1);
+
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 3' }).waitFor();
+    const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    expect(saved.devices.filter((d: { kind: string }) => d.kind === 'afdd')).toMatchObject([{ rating: 16, residualMa: 30, rcdType: 'A' }]);
+    expect(app.pageErrors).toEqual([]);
+  }, 180_000);
+
   it('when someone else saved meanwhile, then Save offers to re-apply my edit onto their copy, and both edits are kept', async () => {
     const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
     const boardId = await boardWithCircuits(page, 3);

@@ -62,6 +62,10 @@ describe('the print page', { timeout: 180_000 }, () => {
     const tape6 = await previewFollows(page, () => pickMedium(page, 'Tape 6 mm'), 'way-labels', 'tape-6', tape12.src);
     expect(tape6.widthMm).toBeCloseTo(6, 6); // page width = 6 mm tape // common practice
     await expect.poll(() => page.getByTestId('print-warnings').textContent(), { timeout: 30_000 }).toContain(LONG_LABEL.slice(0, 10));
+    // The server's cut-short message already begins with its label ("Way 2 …: \"WWW…\" did not fit"): the list says the label once.
+    const items = await page.locator('.print-warning-list__item').allTextContents();
+    expect(items.some((t) => t.includes('did not fit and was cut short'))).toBe(true);
+    expect(items.filter((t) => /^\s*([^:]+): \1:/.test(t))).toEqual([]);
 
     await page.getByTestId('print-download').click();
     await expect.poll(() => page.getByTestId('print-history').textContent(), { timeout: 30_000 }).toContain('Way labels');
