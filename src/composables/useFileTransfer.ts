@@ -3,17 +3,22 @@
  * server produced as a download, and read a chosen file as text for an import.
  */
 
-/** Offers text as a file download under the given name. */
-export function downloadText(text: string, fileName: string, mime = 'application/json'): void {
-  const url = URL.createObjectURL(new Blob([text], { type: mime }));
+/** Saves a blob as a download under the given name. */
+export function saveBlob(blob: Blob, fileName: string): void {
+  const url = URL.createObjectURL(blob);
   const link = document.createElement('a');
   link.href = url;
   link.download = fileName;
-  document.body.appendChild(link);
+  document.body.append(link);
   link.click();
   link.remove();
-  // Revoke after the click has been handled, or some browsers cancel the download.
-  setTimeout(() => URL.revokeObjectURL(url), 1000);
+  // Revoke well after the click has been handled, or some browsers cancel the download.
+  setTimeout(() => URL.revokeObjectURL(url), 60_000);
+}
+
+/** Offers text as a file download under the given name. */
+export function downloadText(text: string, fileName: string, mime = 'application/json'): void {
+  saveBlob(new Blob([text], { type: mime }), fileName);
 }
 
 /** Reads a chosen file as UTF-8 text. */

@@ -1,19 +1,4 @@
-/**
- * Handing a fetched file to the browser: save it under the server's file name, or open the
- * browser's print dialog on it.
- */
-
-/** Saves a blob as a download. */
-export function saveBlob(blob: Blob, fileName: string): void {
-  const url = URL.createObjectURL(blob);
-  const a = document.createElement('a');
-  a.href = url;
-  a.download = fileName;
-  document.body.append(a);
-  a.click();
-  a.remove();
-  setTimeout(() => URL.revokeObjectURL(url), 60_000);
-}
+/** Opening the browser's print dialog on a fetched PDF (saving one is `saveBlob` in useFileTransfer). */
 
 /**
  * Opens the print dialog on a PDF through a hidden frame; where the browser will not print a
