@@ -46,8 +46,8 @@ export async function getSchedule(db: Db, organisationId: number, id: number): P
 
 /** `PUT /api/boards/:id/schedule` */
 export function saveSchedule(db: Db, actor: Actor, id: number, input: ScheduleSave): Promise<SaveOutcome> {
-  const { board, devices, circuits, baseRevision } = input;
-  return saveScheduleAt(db, actor, id, baseRevision, { board, devices, circuits });
+  const { board, devices, circuits, survey, baseRevision } = input;
+  return saveScheduleAt(db, actor, id, baseRevision, { board, devices, circuits, survey: survey ?? null });
 }
 
 /** Today's date on the server as YYYY-MM-DD (UTC), the only clock the rule checks see. */

@@ -15,6 +15,7 @@ export function deviceShortText(d: Device): string {
     case 'rcd': return ['RCD', rating && `${rating} A`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
     case 'main-switch': return ['Main switch', rating && `${rating} A`].filter(Boolean).join(' ');
     case 'afdd': return ['AFDD', rating && `${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
+    case 'fuse': return [rating && `${rating} A`, d.fuseStandard ?? 'fuse'].filter(Boolean).join(' ');
     case 'spd': return 'SPD';
     case 'isolator': return ['Isolator', rating && `${rating} A`].filter(Boolean).join(' ');
     case 'timer': return 'Timer';
@@ -25,7 +26,7 @@ export function deviceShortText(d: Device): string {
 /** Device kind as the trade names it. */
 export function deviceKindName(d: Device): string {
   const names: Record<Device['kind'], string> = {
-    'main-switch': 'Main switch', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', afdd: 'AFDD', spd: 'SPD',
+    'main-switch': 'Main switch', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', fuse: 'Fuse', afdd: 'AFDD', spd: 'SPD',
     isolator: 'Isolator', timer: 'Timer/contactor', blank: 'Blank',
   };
   return names[d.kind];

@@ -65,7 +65,7 @@ export const useBoardStore = defineStore('board', () => {
   });
 
   function adopt(fresh: Awaited<ReturnType<typeof getSchedule>>): void {
-    const schedule: Schedule = { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits };
+    const schedule: Schedule = { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits, survey: fresh.survey ?? null };
     loaded.value = clone(schedule);
     working.value = clone(schedule);
     baseRevision.value = fresh.revision;
@@ -121,7 +121,7 @@ export const useBoardStore = defineStore('board', () => {
   async function reloadAndReapply(): Promise<RebaseResult | null> {
     if (!working.value || !loaded.value || boardId.value === null) return null;
     const fresh = await getSchedule(boardId.value);
-    const result = rebaseSchedule(loaded.value, working.value, { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits });
+    const result = rebaseSchedule(loaded.value, working.value, { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits, survey: fresh.survey ?? null });
     adopt(fresh);
     working.value = result.schedule;
     conflict.value = null;

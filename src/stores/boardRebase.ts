@@ -31,7 +31,15 @@ export function rebaseSchedule(base: Schedule, mine: Schedule, theirs: Schedule)
   const devices = mergeItems(base.devices, mine.devices, theirs.devices, (d) => `Device ${d.label || d.kind} (${d.id})`, conflicts);
   const circuits = mergeItems(base.circuits, mine.circuits, theirs.circuits, (c) => `Way ${c.way} (${c.label})`, conflicts);
   applied += devices.applied + circuits.applied;
-  return { schedule: { board, devices: devices.items, circuits: circuits.items }, conflicts, applied };
+  // The survey is merged whole: mine wins when only I changed it, theirs stays when both did.
+  const surveyMine = !same(base.survey ?? null, mine.survey ?? null);
+  const surveyTheirs = !same(base.survey ?? null, theirs.survey ?? null);
+  if (surveyMine && surveyTheirs && !same(mine.survey ?? null, theirs.survey ?? null)) conflicts.push('Survey of the old board');
+  const survey = surveyMine && !surveyTheirs ? clone(mine.survey ?? null) : clone(theirs.survey ?? null);
+  if (surveyMine && !surveyTheirs) applied += 1;
+  const merged: Schedule = { board, devices: devices.items, circuits: circuits.items };
+  if (survey !== null || theirs.survey !== undefined) merged.survey = survey;
+  return { schedule: merged, conflicts, applied };
 }
 
 const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);

@@ -35,7 +35,7 @@ describe('board file export and import', () => {
     const exported = await viewer.get(`/api/boards/${id}/export`).expect(200);
     expect(exported.headers['content-disposition']).toMatch(/^attachment; filename="WM-[A-Z0-9]+-.*\.waymark\.json"$/);
     const file = boardFileSchema.parse(exported.body);
-    expect(exported.body).toMatchObject({ format: 1, kind: 'waymark-board' });
+    expect(exported.body).toMatchObject({ format: 2, kind: 'waymark-board' });
     expect(Date.parse(exported.body.exportedAt)).not.toBeNaN();
     const imported = await owner.post('/api/boards/import', exported.body).expect(201);
     expect(imported.body.id).not.toBe(id);
@@ -62,7 +62,7 @@ describe('board file export and import', () => {
     const file = (await owner.get(`/api/boards/${id}/export`).expect(200)).body;
     const before = await boardCount(owner);
     const bad = structuredClone(file);
-    bad.format = 2;
+    bad.format = 3; // formats 1 and 2 are readable; 3 is not
     bad.circuits[1].way = 0;
     bad.circuits[3].cable.liveCsa = -2.5;
     bad.devices[2].kind = 'fuse-wire';

@@ -23,7 +23,7 @@ export const cableTypeNames: Record<CableType, string> = {
   'twin-earth': 'Flat twin and earth', swa: 'SWA', 'singles-conduit': 'Singles in conduit', flex: 'Flex', other: 'Other',
 };
 export const deviceKindNames: Record<DeviceKind, string> = {
-  'main-switch': 'Main switch', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', afdd: 'AFDD', spd: 'SPD', isolator: 'Isolator', timer: 'Timer/contactor', blank: 'Blank',
+  'main-switch': 'Main switch', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', fuse: 'Fuse', afdd: 'AFDD', spd: 'SPD', isolator: 'Isolator', timer: 'Timer/contactor', blank: 'Blank',
 };
 const alternativeSupplyNames = { pv: 'Solar PV', battery: 'Battery storage', generator: 'Generator', wind: 'Wind turbine', other: 'Other' } as const;
 const referenceMethodNames: Record<(typeof referenceMethods)[number], string> = {

@@ -61,10 +61,11 @@ export function dropPosition(layout: RowLayout, id: string, dx: number): number 
 /** The short lines printed on a device's face: kind, rating and the residual current (an AFDD's too, when it has an RCBO built in). */
 export function deviceFace(d: Device): { kind: string; main: string; sub: string } {
   const kind: Record<Device['kind'], string> = {
-    'main-switch': 'MAIN', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', afdd: 'AFDD', spd: 'SPD', isolator: 'ISOL', timer: 'TIMER', blank: '',
+    'main-switch': 'MAIN', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', fuse: 'FUSE', afdd: 'AFDD', spd: 'SPD', isolator: 'ISOL', timer: 'TIMER', blank: '',
   };
   const breaker = d.kind === 'mcb' || d.kind === 'rcbo' || d.kind === 'afdd';
   const main = d.rating == null ? '' : breaker ? `${d.curve ?? ''}${d.rating}` : `${d.rating} A`;
+  // A fuse's face names its standard under the rating: the limits differ by standard.
   const sub = d.residualMa != null && (d.kind === 'rcd' || d.kind === 'rcbo' || d.kind === 'afdd') ? `${d.residualMa} mA${d.rcdType ? ` ${d.rcdType}` : ''}` : '';
-  return { kind: kind[d.kind], main, sub };
+  return { kind: kind[d.kind], main, sub: d.kind === 'fuse' ? d.fuseStandard ?? '' : sub };
 }
