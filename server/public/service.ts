@@ -4,6 +4,7 @@
  * page is switched off gives the same plain 404 as one that never existed.
  */
 import { createHash } from 'node:crypto';
+import { LRUCache } from 'lru-cache';
 import type { Db } from '../db/client.js';
 import type { ServerConfig } from '../config.js';
 import { notFound } from '../errors.js';
@@ -34,11 +35,25 @@ export async function boardForToken(db: Db, token: string) {
  * on every request (so a rotated token, a switched-off page or a save shows at once, on every
  * process); only fetching, parsing and projecting the schedule document is saved.
  */
-const projections = new Map<string, PublicBoardBody>();
-const PROJECTIONS_KEPT = 500;
-
 /** A board page serialised once per projection, with its entity tag. */
 export interface PublicBoardBody { page: PublicBoard; json: Buffer; etag: string }
+
+/**
+ * Bytes the projections may hold together. Bounded by size, not by count: one tenant's 2,000-way
+ * board is megabytes an entry, so a count bound would let a few such boards take the memory.
+ */
+export const PROJECTION_CACHE_BYTES = 64 * 1024 * 1024;
+
+/**
+ * A least-recently-used cache of projections bounded by their estimated size: the serialised JSON
+ * plus the parsed page object, which takes about twice the JSON's length in memory. An entry
+ * larger than the whole bound is simply not kept.
+ */
+export function createProjectionCache(maxBytes = PROJECTION_CACHE_BYTES): LRUCache<string, PublicBoardBody> {
+  return new LRUCache<string, PublicBoardBody>({ maxSize: maxBytes, sizeCalculation: (b) => Math.max(1, b.json.length * 3) });
+}
+
+const projections = createProjectionCache();
 
 /** `GET /api/public/boards/:token`. */
 export async function publicBoardPage(db: Db, token: string): Promise<PublicBoardBody> {
@@ -59,7 +74,6 @@ export async function publicBoardPage(db: Db, token: string): Promise<PublicBoar
   });
   const json = Buffer.from(JSON.stringify(page));
   const built = { page, json, etag: `"${createHash('sha1').update(json).digest('base64url')}"` };
-  if (projections.size >= PROJECTIONS_KEPT) projections.delete(projections.keys().next().value!);
   projections.set(key, built);
   return built;
 }
