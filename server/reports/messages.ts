@@ -18,7 +18,10 @@ export interface ReportMailInput {
 const quote = (text: string) => text.split(/\r?\n/).map((line) => `> ${line}`).join('\n');
 
 export function reportMail(input: ReportMailInput): { subject: string; text: string } {
-  const who = [input.reporterName, input.reporterContact].filter(Boolean).join(', ');
+  // Everything the visitor typed sits below a label, each line behind "> ", so none of it can pass
+  // for the app's own words (a fake "Review it in Waymark" link, say).
+  const visitor = (label: string, value: string) => (value ? [`${label} (as the visitor wrote it):`, quote(value)] : []);
+  const who = [...visitor('Name', input.reporterName), ...visitor('Contact', input.reporterContact)];
   const lines = [
     `Someone using the board page of "${input.boardName}" (${input.boardCode}) says the schedule does not match the board.`,
     '',
@@ -26,7 +29,7 @@ export function reportMail(input: ReportMailInput): { subject: string; text: str
     'Their words:',
     quote(input.message),
     '',
-    who ? `From: ${who}` : 'They left no name or contact details.',
+    ...(who.length ? who : ['They left no name or contact details.']),
     '',
     `Review it in Waymark: ${input.reviewUrl}`,
     'Check the board, correct the schedule if needed, then mark the report accepted or dismissed.',

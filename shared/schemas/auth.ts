@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { singleLine } from './fields.js';
 
 export const roleSchema = z.enum(['owner', 'electrician', 'viewer']);
 export type Role = z.infer<typeof roleSchema>;
@@ -6,10 +7,10 @@ export type Role = z.infer<typeof roleSchema>;
 const email = z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address');
 /** At least 10 characters (our policy); bcrypt reads at most 72 bytes, so cap the length. */
 export const passwordSchema = z.string().min(10, 'At least 10 characters').max(72, 'At most 72 characters');
-const personName = z.string().trim().min(1, 'Required').max(120, 'At most 120 characters');
+const personName = singleLine(120).min(1, 'Required');
 
 export const signupSchema = z.strictObject({
-  organisation: z.string().trim().min(1, 'Required').max(120, 'At most 120 characters'),
+  organisation: singleLine(120).min(1, 'Required'),
   name: personName,
   email,
   password: passwordSchema,
@@ -41,8 +42,8 @@ export const resetPasswordSchema = z.strictObject({ token: z.string().min(10).ma
 export const memberUpdateSchema = z.strictObject({ role: roleSchema.optional(), disabled: z.boolean().optional() });
 
 export const organisationSettingsSchema = z.strictObject({
-  name: z.string().trim().min(1, 'Required').max(120, 'At most 120 characters'),
-  contactPhone: z.string().trim().max(40, 'At most 40 characters'),
+  name: singleLine(120).min(1, 'Required'),
+  contactPhone: singleLine(40),
   contactEmail: z.union([email, z.literal('')]),
   printOffsetXMm: z.number().min(-10, 'At least −10 mm').max(10, 'At most 10 mm').optional(),
   printOffsetYMm: z.number().min(-10, 'At least −10 mm').max(10, 'At most 10 mm').optional(),

@@ -4,19 +4,21 @@
  */
 import { z } from 'zod';
 import { phases } from './schedule.js';
+import { singleLine, text } from './fields.js';
 
-const optionalText = (max: number) => z.string().trim().max(max, `At most ${max} characters`).optional();
+/** A visitor's name or contact: one line, so it can never add a line of its own to the e-mail it is quoted in. */
+const optionalLine = (max: number) => singleLine(max).optional();
 
 /**
  * `POST /api/public/boards/:token/reports`. `website` is a honeypot: people leave it empty.
  * On a three-phase board a way is one phase of a way number ("4 L2"), so `phase` may come with `way`.
  */
 export const reportSubmitSchema = z.strictObject({
-  message: z.string().trim().min(1, 'Please say what does not match').max(1000, 'At most 1000 characters'),
+  message: text(1000).min(1, 'Please say what does not match'),
   way: z.number({ error: 'Way must be a number' }).int('Whole way numbers only').min(1, 'Ways start at 1').max(999, 'At most 999').nullable().optional(),
   phase: z.enum(phases, { error: "Phase must be 'L1', 'L2' or 'L3'" }).nullable().optional(),
-  name: optionalText(120),
-  contact: optionalText(254),
+  name: optionalLine(120),
+  contact: optionalLine(254),
   website: z.string().max(500).optional(),
 }).refine((r) => r.phase == null || r.way != null, { path: ['phase'], message: 'Give the way number with the phase' });
 export type ReportSubmit = z.infer<typeof reportSubmitSchema>;
@@ -48,7 +50,7 @@ const email = z.string().trim().toLowerCase().max(254, 'At most 254 characters')
 /** `POST /api/boards/:id/handover`: the client's address and an optional personal line. */
 export const handoverSendSchema = z.strictObject({
   to: email,
-  message: optionalText(1000),
+  message: text(1000).optional(),
 });
 export type HandoverSend = z.infer<typeof handoverSendSchema>;
 

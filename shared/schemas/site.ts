@@ -4,19 +4,18 @@
  */
 import { z } from 'zod';
 import { boardListItemSchema } from './boards.js';
-
-const text = (max: number) => z.string().trim().max(max, `At most ${max} characters`);
+import { singleLine, text } from './fields.js';
 
 /** `POST /api/sites` and `PUT /api/sites/:id` (a PUT replaces every field; omitted ones become empty). */
 export const siteInputSchema = z.strictObject({
-  reference: text(60).min(1, 'Required'),
-  clientName: text(120).default(''),
+  reference: singleLine(60).min(1, 'Required'),
+  clientName: singleLine(120).default(''),
   address: text(1000).default(''),
   clientEmail: z.union([
     z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address'),
     z.literal(''),
   ]).default(''),
-  clientPhone: text(40).default(''),
+  clientPhone: singleLine(40).default(''),
   notes: text(4000).default(''),
 });
 export type SiteInput = z.infer<typeof siteInputSchema>;

@@ -34,7 +34,8 @@ describe('discrepancy reports from the board page', () => {
     expect(mail.subject).toContain('Hallway consumer unit');
     expect(mail.text).toContain('This also feeds the shed lights');
     expect(mail.text).toContain('Way: 3');
-    expect(mail.text).toContain('Ffion Marsh, 01632 960777');
+    expect(mail.text).toContain('Name (as the visitor wrote it):\n> Ffion Marsh');
+    expect(mail.text).toContain('Contact (as the visitor wrote it):\n> 01632 960777');
     expect(mail.text).toContain(`http://waymark.test/boards/${board.id}/page`);
 
     const list = reportListSchema.parse((await owner.get(`/api/boards/${board.id}/reports`).expect(200)).body);
