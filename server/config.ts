@@ -14,7 +14,7 @@ export interface ServerConfig {
   /** Directory holding the built client (vite build), or null to serve the API only. */
   clientDir: string | null;
   /** Rate limits can be raised for benchmarks; tests lower them to exercise 429. */
-  rateLimits: { loginPerAccount: number; loginPerIp: number; publicPerMinute: number; reportsPerHour: number };
+  rateLimits: { loginPerAccount: number; loginPerIp: number; publicPerMinute: number; reportsPerHour: number; sendsPerHour: number };
 }
 
 export function parseTrustProxy(value: string | undefined): boolean | number | string {
@@ -48,6 +48,8 @@ export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerCo
       loginPerIp: Number(env.RATE_LOGIN_IP ?? defaults.rateLimits?.loginPerIp ?? 50),
       publicPerMinute: Number(env.RATE_PUBLIC_MINUTE ?? defaults.rateLimits?.publicPerMinute ?? 120),
       reportsPerHour: Number(env.RATE_REPORTS_HOUR ?? defaults.rateLimits?.reportsPerHour ?? 10),
+      /** Sign-ups, resets, invitation accepts, invitations and handovers an hour, per address (and per organisation for members). */
+      sendsPerHour: Number(env.RATE_SENDS_HOUR ?? defaults.rateLimits?.sendsPerHour ?? 30),
     },
   };
 }

@@ -7,12 +7,13 @@ import { Router } from 'express';
 import type { AppContext } from '../context.js';
 import { canEdit, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
+import { perAddressAndOrganisation } from '../http/limits.js';
 import { handoverSendSchema } from '../../shared/schemas/reports.js';
 import { boardHandovers, sendHandover } from './service.js';
 
 export function handoverRoutes(ctx: AppContext): Router {
   const r = Router({ mergeParams: true });
-  r.post('/handover', canEdit, async (req, res) => {
+  r.post('/handover', canEdit, ...perAddressAndOrganisation(ctx.config.rateLimits.sendsPerHour, 'handover e-mails'), async (req, res) => {
     const boardId = idParam(req.params);
     const input = parse(handoverSendSchema, req.body);
     res.status(201).json(await sendHandover(ctx, req.user!, boardId, input));

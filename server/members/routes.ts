@@ -8,6 +8,7 @@ import type { AppContext } from '../context.js';
 import { ownerOnly, requireUser } from '../auth/guard.js';
 import { signIn } from '../auth/sign-in.js';
 import { idParam, parse } from '../http/parse.js';
+import { perAddress, perAddressAndOrganisation } from '../http/limits.js';
 import { acceptInvitation, invitationByToken, inviteMember, pendingInvitations, revokeInvitation } from './invitation-service.js';
 import { changeMember, membersOf } from './service.js';
 
@@ -22,7 +23,7 @@ export function membersRoutes(ctx: AppContext): Router {
     res.json({ invitations: await pendingInvitations(ctx.db, req.user!.organisationId) });
   });
 
-  r.post('/invitations', ownerOnly, async (req, res) => {
+  r.post('/invitations', ownerOnly, ...perAddressAndOrganisation(ctx.config.rateLimits.sendsPerHour, 'invitations'), async (req, res) => {
     const input = parse(inviteSchema, req.body);
     res.status(201).json(await inviteMember(ctx, req.user!, input));
   });
@@ -49,7 +50,7 @@ export function invitationRoutes(ctx: AppContext): Router {
     res.json(await invitationByToken(ctx.db, token));
   });
 
-  r.post('/accept', async (req, res) => {
+  r.post('/accept', perAddress(ctx.config.rateLimits.sendsPerHour, 'attempts to accept an invitation'), async (req, res) => {
     const input = parse(acceptInvitationSchema, req.body);
     const userId = await acceptInvitation(ctx.db, input);
     await signIn(req, userId);

@@ -18,7 +18,7 @@ let token: string;
 let memberId: number;
 
 beforeAll(async () => {
-  t = await startTestApp({ rateLimits: { loginPerAccount: 10_000, loginPerIp: 10_000, publicPerMinute: 10_000, reportsPerHour: 10_000 } });
+  t = await startTestApp({ rateLimits: { loginPerAccount: 10_000, loginPerIp: 10_000, publicPerMinute: 10_000, reportsPerHour: 10_000, sendsPerHour: 10_000 } });
   owner = await signupOwner(t.app, 'Hostile Routes Ltd');
   const me = (await owner.get('/api/auth/me').expect(200)).body;
   organisationId = me.organisation.id;

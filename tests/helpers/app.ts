@@ -28,7 +28,9 @@ export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promi
   if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the tests with `npm test`');
   const database = openDatabase(databaseUrl);
   const capture = await startCaptureServer(database.db);
-  const base = configFromEnv({ DATABASE_URL: databaseUrl, SESSION_SECRET: 'test-secret-not-for-production', PUBLIC_BASE_URL: 'http://waymark.test' }, {
+  const base = configFromEnv({ DATABASE_URL: databaseUrl, SESSION_SECRET: 'test-secret-not-for-production', PUBLIC_BASE_URL: 'http://waymark.test',
+    // Every test signs up and invites from one address; the send limits have their own test.
+    RATE_SENDS_HOUR: '100000' }, {
     smtp: { host: '127.0.0.1', port: capture.port, from: 'Waymark <no-reply@waymark.test>' },
     devMail: true,
   });

@@ -58,7 +58,7 @@ async function freePort(): Promise<number> {
 async function serverConfig(databaseUrl: string, smtpPort: number, overrides: Partial<ServerConfig>): Promise<ServerConfig> {
   const port = await freePort();
   const base = configFromEnv(
-    { DATABASE_URL: databaseUrl, SESSION_SECRET: 'browser-test-secret-not-for-production', PORT: String(port), PUBLIC_BASE_URL: `http://127.0.0.1:${port}` },
+    { DATABASE_URL: databaseUrl, SESSION_SECRET: 'browser-test-secret-not-for-production', PORT: String(port), PUBLIC_BASE_URL: `http://127.0.0.1:${port}`, RATE_SENDS_HOUR: '100000' },
     { clientDir, devMail: true, smtp: { host: '127.0.0.1', port: smtpPort, from: 'Waymark <no-reply@waymark.test>' } },
   );
   return { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
