@@ -10,6 +10,7 @@
  */
 import { scheduleSchema, type Schedule, type ScheduleInput } from '../../shared/schemas/schedule.js';
 import type { SiteInput } from '../../shared/schemas/site.js';
+import { bungalowBoard, bungalowSite } from './demo-bungalow.js';
 
 export interface DemoBoard {
   /** Stable key inside the demo, so a sub-board can name the board that feeds it. */
@@ -132,7 +133,7 @@ const workshop: ScheduleInput = {
   ],
 };
 
-/** The demo's two sites, each with its boards; the studio board is fed from the flat's way 8. */
+/** The demo's three sites, each with its boards (the bungalow's changeover is in demo-bungalow.ts); the studio board is fed from the flat's way 8. */
 export const demoSites: DemoSite[] = [
   {
     site: {
@@ -155,4 +156,5 @@ export const demoSites: DemoSite[] = [
     },
     boards: [{ key: 'workshop', schedule: scheduleSchema.parse(workshop) }],
   },
+  { site: bungalowSite, boards: [bungalowBoard] },
 ];

@@ -126,3 +126,12 @@ describe('ways without RCD protection', () => {
     expect(listText(['a'])).toBe('a');
   });
 });
+
+describe('the survey of an old board on the board page', () => {
+  it('when a board carries a survey, then nothing of it reaches the public projection', () => {
+    const bungalow = demo('bungalow');
+    expect(bungalow.survey?.ways.length).toBeGreaterThan(0);
+    const json = JSON.stringify(page(bungalow));
+    for (const secret of ['survey', 'JB1', 'Fuse 1', 'cable cut off', 'BS 3036', bungalow.survey!.notes]) expect(json).not.toContain(secret);
+  });
+});
