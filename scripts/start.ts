@@ -7,7 +7,7 @@ import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { randomBytes } from 'node:crypto';
 import { join } from 'node:path';
 import { startPrivateMariadb, type PrivateMariadb } from './mariadb.js';
-import { configFromEnv } from '../server/config.js';
+import { checkProductionMail, configFromEnv, demoWanted } from '../server/config.js';
 import { openDatabase } from '../server/db/client.js';
 import { migrateDatabase } from '../server/db/migrate.js';
 import { seedDemo, DEMO_USERS, DEMO_PASSWORD } from '../server/seed/index.js';
@@ -44,6 +44,7 @@ async function stopAll(code: number) {
 for (const sig of ['SIGINT', 'SIGTERM', 'SIGHUP'] as const) process.on(sig, () => void stopAll(0));
 
 try {
+  checkProductionMail(process.env);
   let databaseUrl = process.env.DATABASE_URL;
   if (!databaseUrl) {
     const port = Number(process.env.WAYMARK_DB_PORT ?? 3307);
@@ -53,7 +54,7 @@ try {
   }
   const database = openDatabase(databaseUrl);
   await migrateDatabase(database);
-  if (process.env.WAYMARK_DEMO !== 'off') {
+  if (demoWanted(process.env)) {
     const seeded = await seedDemo(database.db, seedDemoBoards);
     console.log(seeded === 'created' ? 'waymark: demo data created' : 'waymark: demo data already present');
   }
@@ -79,9 +80,7 @@ try {
   console.log(`
 Waymark is running: ${config.publicBaseUrl}
 ${useCapture ? `Outgoing mail is captured locally (owners: ${config.publicBaseUrl}/dev/mail).\n` : ''}
-Demo sign-ins (demo data only, password ${DEMO_PASSWORD}):
-${DEMO_USERS.map((u) => `  ${u.role.padEnd(12)} ${u.email}`).join('\n')}
-
+${demoWanted(process.env) ? `Demo sign-ins (demo data only, password ${DEMO_PASSWORD}):\n${DEMO_USERS.map((u) => `  ${u.role.padEnd(12)} ${u.email}`).join('\n')}\n` : ''}
 Press Ctrl-C to stop.`);
 } catch (err) {
   console.error('waymark: could not start:', err instanceof Error ? err.message : err);

@@ -24,7 +24,27 @@ export function parseTrustProxy(value: string | undefined): boolean | number | s
   return Number.isInteger(n) ? n : value;
 }
 
+/** True when the environment says this is a real deployment (`NODE_ENV=production`). */
+export const isProduction = (env: NodeJS.ProcessEnv) => env.NODE_ENV === 'production';
+
+/**
+ * Refuses a production start that would capture real users' mail: without a relay (`SMTP_HOST`)
+ * the local capture server would keep every reset link and invitation where owners can read them.
+ */
+export function checkProductionMail(env: NodeJS.ProcessEnv): void {
+  if (isProduction(env) && !env.SMTP_HOST) {
+    throw new Error('NODE_ENV=production needs a mail relay: set SMTP_HOST (and SMTP_PORT, MAIL_FROM). '
+      + 'Waymark does not capture mail in production.');
+  }
+}
+
+/** The demo (with its published password) is seeded by default, except in production, where only WAYMARK_DEMO=on asks for it. */
+export function demoWanted(env: NodeJS.ProcessEnv): boolean {
+  return isProduction(env) ? env.WAYMARK_DEMO === 'on' : env.WAYMARK_DEMO !== 'off';
+}
+
 export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerConfig> = {}): ServerConfig {
+  checkProductionMail(env);
   const port = Number(env.PORT ?? defaults.port ?? 3000);
   const databaseUrl = env.DATABASE_URL ?? defaults.databaseUrl;
   if (!databaseUrl) throw new Error('DATABASE_URL is not set');
@@ -41,7 +61,8 @@ export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerCo
       port: Number(env.SMTP_PORT ?? defaults.smtp?.port ?? 2525),
       from: env.MAIL_FROM ?? defaults.smtp?.from ?? 'Waymark <no-reply@waymark.invalid>',
     },
-    devMail: (env.WAYMARK_DEV_MAIL ?? (defaults.devMail ? 'on' : 'off')) === 'on',
+    // Never in production, whatever else is set.
+    devMail: !isProduction(env) && (env.WAYMARK_DEV_MAIL ?? (defaults.devMail ? 'on' : 'off')) === 'on',
     clientDir: env.WAYMARK_CLIENT_DIR ? resolve(env.WAYMARK_CLIENT_DIR) : defaults.clientDir ?? null,
     rateLimits: {
       loginPerAccount: Number(env.RATE_LOGIN_ACCOUNT ?? defaults.rateLimits?.loginPerAccount ?? 10),

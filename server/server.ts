@@ -10,7 +10,7 @@ export interface RunningServer { port: number; ctx: AppContext; stop(): Promise<
 /** Opens the database, builds the app and listens on `config.port` (0 picks a free port). */
 export async function startServer(config: ServerConfig): Promise<RunningServer> {
   const database = openDatabase(config.databaseUrl);
-  const mailer = smtpMailer(config.smtp);
+  const mailer = smtpMailer({ ...config.smtp, tagOrganisation: config.devMail });
   const ctx: AppContext = { config, database, db: database.db, mailer };
   const built = createApp(ctx);
   const server: Server = await new Promise((resolve) => {

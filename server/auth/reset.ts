@@ -25,7 +25,7 @@ async function sendResetLink(ctx: AppContext, email: string, now: Date): Promise
   const expiresAt = new Date(now.getTime() + RESET_LIFETIME_MS);
   await insertPasswordReset(ctx.db, { userId: user.id, tokenHash: token.hash, expiresAt });
   const link = `${ctx.config.publicBaseUrl}/reset/${token.raw}`;
-  await deliver(ctx.mailer, user.email, passwordResetMessage({ name: user.name, email: user.email, link, expiresAt }));
+  await deliver(ctx.mailer, user.email, user.organisationId, passwordResetMessage({ name: user.name, email: user.email, link, expiresAt }));
 }
 
 /**

@@ -78,6 +78,8 @@ export const capturedMail = mysqlTable('captured_mail', {
   envelopeTo: text('envelope_to').notNull(),
   subject: varchar('subject', { length: 500 }).notNull().default(''),
   raw: mediumText('raw').notNull(),
+  /** The organisation the message was sent for; null for mail that belongs to no organisation (shown to nobody). */
+  organisationId: int('organisation_id'),
   createdAt: now(),
 });
 

@@ -19,11 +19,11 @@ export function devRoutes(ctx: AppContext): Router {
 
   r.get('/mail', ownerOnly, async (req, res) => {
     const { to } = parse(capturedMailQuerySchema, req.query);
-    res.json({ messages: await capturedMailList(ctx.db, to) });
+    res.json({ messages: await capturedMailList(ctx.db, req.user!.organisationId, to) });
   });
 
   r.get('/mail/:id', ownerOnly, async (req, res) => {
-    res.json(await capturedMailMessage(ctx.db, idParam(req.params)));
+    res.json(await capturedMailMessage(ctx.db, req.user!.organisationId, idParam(req.params)));
   });
 
   return r;

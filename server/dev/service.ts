@@ -5,14 +5,14 @@ import { notFound } from '../errors.js';
 import { readMessage } from '../mail/read.js';
 import { findCapturedMail, listCapturedMail } from './repository.js';
 
-export async function capturedMailList(db: Db, to?: string) {
-  const rows = await listCapturedMail(db, to);
+export async function capturedMailList(db: Db, organisationId: number, to?: string) {
+  const rows = await listCapturedMail(db, organisationId, to);
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
 /** One message with its text decoded from the raw MIME source. */
-export async function capturedMailMessage(db: Db, id: number): Promise<CapturedMailMessage> {
-  const row = await findCapturedMail(db, id);
+export async function capturedMailMessage(db: Db, organisationId: number, id: number): Promise<CapturedMailMessage> {
+  const row = await findCapturedMail(db, organisationId, id);
   if (!row) throw notFound('No such captured message');
   const { raw, ...rest } = row;
   const read = await readMessage(raw);

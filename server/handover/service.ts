@@ -34,7 +34,7 @@ export async function sendHandover(ctx: AppContext, user: CurrentUser, boardId: 
   });
   try {
     await ctx.mailer.send({
-      to: input.to, ...mail,
+      to: input.to, organisationId: user.organisationId, ...mail,
       attachments: [{ filename: `${source.board.code}-circuit-chart.pdf`, content: Buffer.from(pdf), contentType: 'application/pdf' }],
     });
   } catch (err) {

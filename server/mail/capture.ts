@@ -5,6 +5,7 @@
 import { SMTPServer } from 'smtp-server';
 import type { Db } from '../db/client.js';
 import { capturedMail } from '../db/schema.js';
+import { ORGANISATION_HEADER } from './mailer.js';
 
 export interface CaptureServer { port: number; close(): Promise<void> }
 
@@ -27,7 +28,9 @@ export async function startCaptureServer(db: Db, port = 0): Promise<CaptureServe
       stream.on('end', async () => {
         try {
           const raw = Buffer.concat(chunks).toString('utf8');
+          const organisation = Number(header(raw, ORGANISATION_HEADER));
           await db.insert(capturedMail).values({
+            organisationId: Number.isInteger(organisation) && organisation > 0 ? organisation : null,
             envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
             envelopeTo: session.envelope.rcptTo.map((r) => r.address).join(', '),
             subject: header(raw, 'Subject').slice(0, 500),

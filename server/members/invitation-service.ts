@@ -36,7 +36,7 @@ export async function inviteMember(ctx: AppContext, owner: CurrentUser, input: I
   });
   const link = `${ctx.config.publicBaseUrl}/invite/${token.raw}`;
   try {
-    await deliver(ctx.mailer, input.email, invitationMessage({
+    await deliver(ctx.mailer, input.email, owner.organisationId, invitationMessage({
       organisationName: owner.organisationName, inviterName: owner.name, role: input.role, link, expiresAt,
     }));
   } catch (err) {

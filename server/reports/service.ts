@@ -36,10 +36,10 @@ function checkReportedWay(schedule: Schedule, input: ReportSubmit): void {
   }
 }
 
-async function notifyOrganisation(ctx: AppContext, to: string[], mail: { subject: string; text: string }): Promise<void> {
+async function notifyOrganisation(ctx: AppContext, organisationId: number, to: string[], mail: { subject: string; text: string }): Promise<void> {
   if (!to.length) return;
   try {
-    await ctx.mailer.send({ to: to.join(', '), ...mail });
+    await ctx.mailer.send({ to: to.join(', '), organisationId, ...mail });
   } catch (err) {
     // The report is stored and listed in the app; a mail relay hiccup must not lose it or fail the visitor.
     console.error('Report e-mail not sent:', err);
@@ -59,7 +59,7 @@ export async function submitReport(ctx: AppContext, token: string, input: Report
     boardId: board.id, message: storedMessage(input), reporterName: input.name ?? '', reporterContact: input.contact ?? '',
   });
   const to = board.organisation.contactEmail ? [board.organisation.contactEmail] : await repo.ownerEmails(ctx.db, board.organisationId);
-  await notifyOrganisation(ctx, to, reportMail({
+  await notifyOrganisation(ctx, board.organisationId, to, reportMail({
     boardName: board.name, boardCode: board.code, way: reportedWay(input), message: input.message,
     reporterName: input.name ?? '', reporterContact: input.contact ?? '',
     reviewUrl: `${ctx.config.publicBaseUrl}/boards/${board.id}/page`,

@@ -26,7 +26,8 @@ describe('dev-only captured mail, when it is on', () => {
     const to = uniqueEmail('reader');
     // Non-ASCII text and a long line make nodemailer encode the body (quoted-printable or base64).
     const text = `Zs measured 1.12 Ω on way 3 — under the 1.37 Ω limit. ${'Long line of notes '.repeat(8)}\nhttp://waymark.test/invite/${'t'.repeat(43)}`;
-    await t.ctx.mailer.send({ to, subject: 'Café test ½', text, attachments: [{ filename: 'chart.pdf', content: Buffer.from('%PDF-1.7\n'), contentType: 'application/pdf' }] });
+    const organisationId = (await owner.get('/api/auth/me').expect(200)).body.organisation.id as number;
+    await t.ctx.mailer.send({ to, organisationId, subject: 'Café test ½', text, attachments: [{ filename: 'chart.pdf', content: Buffer.from('%PDF-1.7\n'), contentType: 'application/pdf' }] });
     const row = await waitForMail(t.database, to);
     const res = await owner.get(`/api/dev/mail/${row.id}`).expect(200);
     const message = capturedMailMessageSchema.parse(res.body);

@@ -35,7 +35,7 @@ export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promi
     devMail: true,
   });
   const config: ServerConfig = { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
-  const mailer = smtpMailer(config.smtp);
+  const mailer = smtpMailer({ ...config.smtp, tagOrganisation: config.devMail });
   const ctx: AppContext = { config, database, db: database.db, mailer };
   const built = createApp(ctx);
   return {

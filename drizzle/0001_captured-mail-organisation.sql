@@ -1,0 +1,1 @@
+ALTER TABLE `captured_mail` ADD `organisation_id` int;
