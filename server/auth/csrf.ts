@@ -15,9 +15,11 @@ export function csrfToken(req: Request): string {
 
 export const requireCsrf: RequestHandler = (req, _res, next) => {
   if (SAFE.has(req.method)) return next();
-  const sent = req.get('x-csrf-token') ?? '';
-  const expected = req.session?.csrfToken ?? '';
-  const ok = expected.length > 0 && sent.length === expected.length && timingSafeEqual(Buffer.from(sent), Buffer.from(expected));
+  // Compared as bytes: a header of non-ASCII characters can match the token's length in characters
+  // but not in bytes, and timingSafeEqual throws on buffers of different lengths.
+  const sent = Buffer.from(req.get('x-csrf-token') ?? '', 'utf8');
+  const expected = Buffer.from(req.session?.csrfToken ?? '', 'utf8');
+  const ok = expected.length > 0 && sent.length === expected.length && timingSafeEqual(sent, expected);
   if (!ok) return next(new AppError(403, 'csrf', 'Missing or wrong X-CSRF-Token header: fetch one from GET /api/auth/csrf'));
   next();
 };

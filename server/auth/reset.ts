@@ -45,6 +45,10 @@ const linkNotValid = () => invalid('This reset link is not valid any more: ask f
 
 /** Sets the new password from a link; the session making the request (if any) stays signed in. */
 export async function resetPassword(db: Db, input: ResetPasswordInput, currentSessionId: string, now = new Date()): Promise<void> {
+  // The token is checked before the password is hashed, so a made-up token costs no hashing CPU;
+  // the transaction below checks it again under its lock.
+  const found = await lockPasswordReset(db, hashToken(input.token));
+  if (!found || found.usedAt || found.expiresAt.getTime() <= now.getTime() || found.userDisabled) throw linkNotValid();
   const passwordHash = await hashPassword(input.password);
   const userId = await db.transaction(async (txn) => {
     const tx = txn as unknown as Db;

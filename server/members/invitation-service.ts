@@ -73,14 +73,16 @@ const isDuplicateKey = (err: any) => err?.cause?.code === 'ER_DUP_ENTRY' || err?
 
 /** Creates the member from a link and uses the link up, in one transaction. Returns the new user's id. */
 export async function acceptInvitation(db: Db, input: AcceptInvitationInput, now = new Date()): Promise<number> {
+  const notValid = () => invalid('This invitation link is not valid any more: ask for a new invitation', { token: 'Unknown, already used or expired' });
+  // The token is checked before the password is hashed: hashing costs tens of milliseconds of CPU,
+  // which an anonymous request with a made-up token must not be able to spend. The transaction checks it again.
+  if (!usable(await findInvitationByTokenHash(db, hashToken(input.token), false), now)) throw notValid();
   const passwordHash = await hashPassword(input.password);
   try {
     return await db.transaction(async (txn) => {
       const tx = txn as unknown as Db;
       const row = await findInvitationByTokenHash(tx, hashToken(input.token), true);
-      if (!usable(row, now)) {
-        throw invalid('This invitation link is not valid any more: ask for a new invitation', { token: 'Unknown, already used or expired' });
-      }
+      if (!usable(row, now)) throw notValid();
       if (await findUserByEmail(tx, row.email)) throw alreadyMember();
       await markInvitationUsed(tx, row.id, now);
       return insertUser(tx, { organisationId: row.organisationId, email: row.email, name: input.name, passwordHash, role: row.role });

@@ -4,6 +4,7 @@
  * responses with them.
  */
 import { z } from 'zod';
+import { singleLine } from './fields.js';
 import { scheduleSchema } from './schedule.js';
 import { templateIdSchema } from '../schedule/templates.js';
 
@@ -45,8 +46,8 @@ export type BoardListResponse = z.infer<typeof boardListResponseSchema>;
 
 /** `POST /api/boards`: `template` is a starting layout id from `shared/schedule/templates.ts`; without one, an empty board. */
 export const boardCreateSchema = z.strictObject({
-  name: z.string().trim().min(1, 'Required').max(120, 'At most 120 characters'),
-  location: z.string().trim().max(200, 'At most 200 characters').optional(),
+  name: singleLine(120).min(1, 'Required'),
+  location: singleLine(200).optional(),
   siteId: id.nullable().optional(),
   template: templateIdSchema.optional(),
 });
