@@ -9,6 +9,7 @@ import { idParam, parse } from '../http/parse.js';
 import { photoCaptionSchema } from '../../shared/schemas/reports.js';
 import { LOGO_MAX_BYTES, PHOTO_MAX_BYTES, receiveOneFile, uploadedImage } from './receive.js';
 import type { StoredImage } from './repository.js';
+import { fitUpload, LOGO_STORED_SIDE_PX, PHOTO_STORED_SIDE_PX } from './pixels.js';
 import * as uploads from './service.js';
 
 /** Sends stored image bytes with the sniffed type; `cache` says who may keep a copy. */
@@ -24,7 +25,8 @@ export function logoRoutes(ctx: AppContext): Router {
     sendImage(res, await uploads.organisationLogo(ctx.db, req.user!.organisationId), 'private, no-cache');
   });
   r.put('/', ownerOnly, receiveOneFile(LOGO_MAX_BYTES, 'logo'), async (req, res) => {
-    const image = uploadedImage(req, 'logo');
+    const { mime, data } = await fitUpload(uploadedImage(req, 'logo'), 'logo', LOGO_STORED_SIDE_PX);
+    const image = { mime, data };
     await uploads.saveLogo(ctx.db, req.user!.organisationId, image);
     res.status(201).json({ mime: image.mime, size: image.data.length });
   });
@@ -45,7 +47,8 @@ export function photoRoutes(ctx: AppContext): Router {
   r.post('/', canEdit, receiveOneFile(PHOTO_MAX_BYTES, 'photo'), async (req, res) => {
     const boardId = idParam(req.params);
     const { caption } = parse(photoCaptionSchema, { ...req.body });
-    const image = uploadedImage(req, 'photo');
+    const { mime, data } = await fitUpload(uploadedImage(req, 'photo'), 'photo', PHOTO_STORED_SIDE_PX);
+    const image = { mime, data };
     res.status(201).json(await uploads.addPhoto(ctx.db, req.user!.organisationId, boardId, { ...image, caption }));
   });
   r.get('/:photoId', async (req, res) => {
