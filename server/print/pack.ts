@@ -57,8 +57,8 @@ function readMe(source: PrintSource, files: PackFile[], skipped: string[]): stri
   return lines.join('\r\n') + '\r\n';
 }
 
-/** Renders every board output, zips them and records each file as a print. */
-export async function printPack(ctx: AppContext, user: CurrentUser, boardId: number): Promise<{ zip: Buffer; filename: string }> {
+/** Renders every board output and zips them; with `record`, each file is recorded as a print. */
+export async function printPack(ctx: AppContext, user: CurrentUser, boardId: number, record: boolean): Promise<{ zip: Buffer; filename: string }> {
   const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
   const files: PackFile[] = [];
   const skipped: string[] = [];
@@ -69,6 +69,6 @@ export async function printPack(ctx: AppContext, user: CurrentUser, boardId: num
   }
   const entries: ZipEntry[] = [...files.map((f) => ({ name: f.name, data: f.pdf })), { name: 'READ-ME.txt', data: readMe(source, files, skipped) }];
   const zip = await zipEntries(entries);
-  await repo.insertPrints(ctx.db, files.map((f) => printRecordFor(user, source, f.output, f.media)));
+  if (record) await repo.insertPrints(ctx.db, files.map((f) => printRecordFor(user, source, f.output, f.media)));
   return { zip, filename: `${source.board.code}-pack-r${source.board.revision}.zip` };
 }

@@ -2,11 +2,13 @@
  * The print API, under `/api/boards/:id/…` and `/api/print-settings`. Every signed-in member
  * may print (viewers read and print); the printer offset is set by owners and electricians.
  *
- * Recording: a PDF is recorded in the print history only when asked with `record=1` (the print
- * page's download and print buttons), so the live preview, which renders on every change, does
- * not flood the history. A pack is always recorded, one row per file in it.
+ * Recording: a GET never writes (a cross-site link or an image tag can make a browser send one),
+ * so a print is recorded only by POST, which needs the CSRF token: `POST …/pdf/:output` (the print
+ * page's download and print buttons) and `POST …/pack` (one row per file). The live preview GETs,
+ * and so does a plain link to a PDF; neither fills the history.
  */
-import { Router, type Response } from 'express';
+import { Router, type Request, type Response } from 'express';
+import { invalid } from '../errors.js';
 import type { AppContext } from '../context.js';
 import { canEdit, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
@@ -45,23 +47,29 @@ function sendPdf(res: Response, pdf: Uint8Array, filename: string) {
 export function boardPrintRoutes(ctx: AppContext): Router {
   const r = Router();
 
-  r.get('/:id/pdf/:output', requireUser, async (req, res) => {
+  const pdfRoute = (record: boolean) => async (req: Request, res: Response) => {
     const boardId = idParam(req.params);
-    const printed = await printPdf(ctx, req.user!, boardId, parsePrintQuery(req.params, req.query));
+    const query = parsePrintQuery(req.params, req.query);
+    if (query.record && !record) throw invalid('A GET records nothing: send POST to record a print', { record: 'Use POST to record the print' });
+    const printed = await printPdf(ctx, req.user!, boardId, { ...query, record });
     res.set({ 'X-Waymark-Warnings': warningsHeader(printed.warnings), 'X-Waymark-Page-Count': String(printed.pageCount) });
     sendPdf(res, printed.pdf, printed.filename);
-  });
+  };
+  r.get('/:id/pdf/:output', requireUser, pdfRoute(false));
+  r.post('/:id/pdf/:output', requireUser, pdfRoute(true));
 
   r.get('/:id/pdf/:output/warnings', requireUser, async (req, res) => {
     const boardId = idParam(req.params);
     res.json(await checkPrint(ctx, req.user!, boardId, parsePrintQuery(req.params, req.query)));
   });
 
-  r.get('/:id/pack', requireUser, async (req, res) => {
-    const { zip, filename } = await printPack(ctx, req.user!, idParam(req.params));
+  const packRoute = (record: boolean) => async (req: Request, res: Response) => {
+    const { zip, filename } = await printPack(ctx, req.user!, idParam(req.params), record);
     res.set({ 'Content-Type': 'application/zip', 'Content-Disposition': `attachment; filename="${filename}"`, 'Cache-Control': 'private, no-store' });
     res.send(zip);
-  });
+  };
+  r.get('/:id/pack', requireUser, packRoute(false));
+  r.post('/:id/pack', requireUser, packRoute(true));
 
   r.get('/:id/prints', requireUser, async (req, res) => {
     res.json({ items: await printHistory(ctx, req.user!, idParam(req.params)) });

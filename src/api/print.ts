@@ -49,7 +49,8 @@ export function warningsFromHeader(value: string | null): PrintWarning[] {
 
 /** The real PDF for the preview (record off) or for a download or print (record on). */
 export async function fetchPdf(boardId: number, selection: PrintSelection, opts: { record?: boolean; signal?: AbortSignal } = {}): Promise<FetchedPdf> {
-  const res = await request('GET', pdfPath(boardId, selection, opts.record), { signal: opts.signal });
+  // Recording writes, so it is a POST (with the CSRF token); the preview is a GET that records nothing.
+  const res = await request(opts.record ? 'POST' : 'GET', pdfPath(boardId, selection), { signal: opts.signal });
   return {
     blob: await res.blob(),
     warnings: warningsFromHeader(res.headers.get('X-Waymark-Warnings')),
@@ -61,9 +62,9 @@ export async function fetchPdf(boardId: number, selection: PrintSelection, opts:
 export const checkPrint = (boardId: number, selection: PrintSelection) =>
   json(printCheckSchema, 'GET', `/api/boards/${boardId}/pdf/${selection.output}/warnings?${printQuery(selection)}`);
 
-/** Every output for the board in one ZIP; the server records each file as a print. */
+/** Every output for the board in one ZIP; the POST records each file as a print. */
 export async function fetchPack(boardId: number): Promise<{ blob: Blob; fileName: string }> {
-  const res = await request('GET', `/api/boards/${boardId}/pack`);
+  const res = await request('POST', `/api/boards/${boardId}/pack`);
   return { blob: await res.blob(), fileName: fileNameOf(res, `board-${boardId}-pack.zip`) };
 }
 

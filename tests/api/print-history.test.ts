@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { PDFParse } from 'pdf-parse';
 import { client, signupOwner, startTestApp, type Client, type TestApp } from '../helpers/app.js';
 import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
-import { getPdf } from './print-support.js';
+import { getPdf, postBinary } from './print-support.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 
 let t: TestApp;
@@ -35,14 +35,14 @@ async function renameWay(owner: Client, id: number, schedule: Schedule, baseRevi
 }
 
 describe('print records and history', () => {
-  it('when the preview renders, nothing is recorded; a download with record=1 is, with who, what, medium and revision', async () => {
+  it('when the preview renders, nothing is recorded; a download (POST) is, with who, what, medium and revision', async () => {
     const { owner, id, revision } = await ownerWithBoard();
     await getPdf(owner, `/api/boards/${id}/pdf/chart?media=a4`).expect(200);
     await owner.get(`/api/boards/${id}/pdf/chart/warnings?media=a4`).expect(200);
     expect((await owner.get(`/api/boards/${id}/prints`).expect(200)).body.items).toEqual([]);
 
-    await getPdf(owner, `/api/boards/${id}/pdf/chart?media=a5&record=1`).expect(200);
-    await getPdf(owner, `/api/boards/${id}/pdf/flags?media=tape-12&record=1`).expect(200);
+    await postBinary(owner, `/api/boards/${id}/pdf/chart?media=a5`).expect(200);
+    await postBinary(owner, `/api/boards/${id}/pdf/flags?media=tape-12`).expect(200);
     const { items } = (await owner.get(`/api/boards/${id}/prints`).expect(200)).body;
     expect(items.map((p: { output: string; media: string; revision: number; userName: string }) => [p.output, p.media, p.revision, p.userName]))
       .toEqual([['flags', 'tape-12', revision, 'Test Owner'], ['chart', 'a5', revision, 'Test Owner']]);
@@ -52,7 +52,7 @@ describe('print records and history', () => {
   it("when a viewer prints, then the print is recorded under the viewer's name", async () => {
     const { owner, id } = await ownerWithBoard();
     const viewer = await addMember(t, owner, 'viewer');
-    await getPdf(viewer, `/api/boards/${id}/pdf/tag?media=tape-24&record=1`).expect(200);
+    await postBinary(viewer, `/api/boards/${id}/pdf/tag?media=tape-24`).expect(200);
     const { items } = (await viewer.get(`/api/boards/${id}/prints`).expect(200)).body;
     expect(items).toHaveLength(1);
     expect(items[0]).toMatchObject({ output: 'tag', media: 'tape-24', userName: 'Test viewer' });
@@ -60,8 +60,8 @@ describe('print records and history', () => {
 
   it('when a print fails (bad option or too small a medium), then nothing is recorded', async () => {
     const { owner, id } = await ownerWithBoard();
-    await owner.get(`/api/boards/${id}/pdf/tag?media=tape-6&record=1`).expect(422);
-    await owner.get(`/api/boards/${id}/pdf/tag?copies=0&record=1`).expect(400);
+    await owner.post(`/api/boards/${id}/pdf/tag?media=tape-6`).expect(422);
+    await owner.post(`/api/boards/${id}/pdf/tag?copies=0`).expect(400);
     expect((await owner.get(`/api/boards/${id}/prints`).expect(200)).body.items).toEqual([]);
   });
 

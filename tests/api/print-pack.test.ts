@@ -3,7 +3,7 @@ import { inflateRawSync } from 'node:zlib';
 import { PDFParse } from 'pdf-parse';
 import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.js';
 import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
-import { getBinary } from './print-support.js';
+import { getBinary, postBinary } from './print-support.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });
@@ -76,7 +76,7 @@ describe('the print pack', () => {
   it('when a pack is made, then each file in it is recorded as a print', async () => {
     const owner = await signupOwner(t.app);
     const { id, revision } = await createBoardWith(owner, makeSchedule(2));
-    await getBinary(owner, `/api/boards/${id}/pack`).expect(200);
+    await postBinary(owner, `/api/boards/${id}/pack`).expect(200);
     const { items } = (await owner.get(`/api/boards/${id}/prints`).expect(200)).body;
     expect(items.map((p: { output: string }) => p.output).sort()).toEqual(['chart', 'flags', 'notices', 'tag', 'way-labels']);
     expect(new Set(items.map((p: { revision: number }) => p.revision))).toEqual(new Set([revision]));

@@ -21,6 +21,8 @@ export const binary = (res: Response, done: (err: Error | null, body: Buffer) =>
 /** A GET whose body (a PDF or a ZIP) comes back as a Buffer. */
 export const getBinary = (c: Client, path: string) => c.get(path).buffer(true).parse(binary as never);
 export const getPdf = getBinary;
+/** A POST (with the CSRF token): the only way a print is recorded. */
+export const postBinary = (c: Client, path: string) => c.post(path).buffer(true).parse(binary as never);
 
 export async function pdfPages(pdf: Buffer): Promise<string[]> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
