@@ -8,8 +8,9 @@ import type { CurrentUser } from '../http/context.js';
 import type { Medium, RenderResult } from '../pdf/types.js';
 import { LayoutError } from '../pdf/types.js';
 import { renderOutput, resolveMedium } from '../pdf/index.js';
-import { printOptionSchemas, type MediaId, type PrintWarning } from '../../shared/schemas/print.js';
+import { printOptionSchemas, type MediaId, type PrintOptions, type PrintWarning } from '../../shared/schemas/print.js';
 import type { PrintOffset, PrintRecord } from '../../shared/schemas/print-records.js';
+import { flagWorkProblem } from '../pdf/layout/work.js';
 import { waysChangedBetween } from '../../shared/schedule/diff.js';
 import { AppError, notFound } from '../errors.js';
 import { getLayout } from '../sheet-layouts/service.js';
@@ -60,6 +61,10 @@ async function onlyWaysFor(ctx: AppContext, source: PrintSource, query: PrintQue
 export async function renderWith(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderResult> {
   const medium = await mediumFor(ctx, user.organisationId, query.media);
   const onlyWays = await onlyWaysFor(ctx, source, query);
+  if (query.output === 'flags') {
+    const problem = flagWorkProblem(source.schedule, query.options as PrintOptions['flags'], onlyWays);
+    if (problem) throw new AppError(422, 'too_much_work', problem, { legs: problem });
+  }
   return engine(() => renderOutput({
     output: query.output,
     medium,

@@ -27,7 +27,7 @@ export function panelLengthFor(heightMm: number): number {
 }
 
 /** Legs of a circuit: the option, else the schedule (a ring final has at least two ends). */
-function legsOf(c: Circuit, override: number | undefined): number {
+export function legsOf(c: Circuit, override: number | undefined): number {
   if (override != null) return override;
   return c.kind === 'ring' ? Math.max(2, c.legs) : c.legs;
 }
