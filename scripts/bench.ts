@@ -27,7 +27,7 @@ try {
     const r = spawnSync(join(root, 'node_modules', '.bin', 'vite'), ['build', '--logLevel', 'warn'], { stdio: 'inherit', cwd: root });
     if (r.status !== 0) throw new Error('client build failed');
   }
-  mariadb = await startPrivateMariadb({ dataDir, dbName: 'waymark_bench' });
+  mariadb = await startPrivateMariadb({ dataDir, dbName: 'waymark_bench', durable: false });
   const database = openDatabase(mariadb.url);
   await migrateDatabase(database);
   await seedDemo(database.db, seedDemoBoards);

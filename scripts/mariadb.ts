@@ -61,7 +61,7 @@ async function waitForQuery(port: number, timeoutMs: number): Promise<void> {
  * Starts (initialising if needed) a MariaDB on `dataDir`. The database `dbName`
  * and a user `waymark` with a random password are created on first start.
  */
-export async function startPrivateMariadb(opts: { dataDir: string; port?: number; dbName?: string }): Promise<PrivateMariadb> {
+export async function startPrivateMariadb(opts: { dataDir: string; port?: number; dbName?: string; durable?: boolean }): Promise<PrivateMariadb> {
   const dataDir = opts.dataDir;
   const dbName = opts.dbName ?? 'waymark';
   const port = opts.port ?? (await freePort());
@@ -91,7 +91,9 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
       `--port=${port}`, '--bind-address=127.0.0.1', '--user=root',
       '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
       `--log-error=${logFile}`, '--skip-log-bin', '--innodb-buffer-pool-size=64M',
-      '--innodb-flush-log-at-trx-commit=2', '--max-connections=500',
+      // Full durability (flush the log at every commit) unless told otherwise: a power cut must not lose a save the
+      // app has acknowledged. Only the throw-away test and benchmark databases trade that for speed.
+      `--innodb-flush-log-at-trx-commit=${opts.durable === false ? 2 : 1}`, '--max-connections=500',
     ], { detached: true, stdio: 'ignore' });
     child.unref();
     pid = child.pid ?? 0;

@@ -40,7 +40,7 @@ try {
     if (!step('client build (for the browser tests)', bin('vite'), ['build', '--logLevel', 'warn'])) throw new Error('client build failed');
   }
   console.log('\n== throw-away MariaDB');
-  mariadb = await startPrivateMariadb({ dataDir, dbName: 'waymark_test' });
+  mariadb = await startPrivateMariadb({ dataDir, dbName: 'waymark_test', durable: false });
   const database = openDatabase(mariadb.url);
   await migrateDatabase(database);
   await database.close();

@@ -1,5 +1,6 @@
 import { Router, type Request } from 'express';
-import rateLimit from 'express-rate-limit';
+import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
+import { perAddress } from '../http/limits.js';
 import { forgotPasswordSchema, loginSchema, resetPasswordSchema, signupSchema } from '../../shared/schemas/auth.js';
 import type { AppContext } from '../context.js';
 import { tooMany, unauthorised } from '../errors.js';
@@ -18,9 +19,11 @@ function attemptLimiters(ctx: AppContext, what: string) {
   const handler = (_req: Request, _res: unknown, next: (e: unknown) => void) =>
     next(tooMany(`Too many ${what}; wait 15 minutes and try again`, windowMs / 1000));
   const perIp = rateLimit({ windowMs, limit: ctx.config.rateLimits.loginPerIp, standardHeaders: 'draft-7', legacyHeaders: false, handler: handler as any });
+  // Counted per account AND address: a stranger's wrong guesses from elsewhere can never lock the real owner out,
+  // while one address guessing at one account is still stopped (and the per-address limit bounds guessing across accounts).
   const perAccount = rateLimit({
     windowMs, limit: ctx.config.rateLimits.loginPerAccount, standardHeaders: 'draft-7', legacyHeaders: false,
-    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}`,
+    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}|${ipKeyGenerator(req.ip ?? '')}`,
     handler: handler as any,
   });
   return [perIp, perAccount];
@@ -36,7 +39,7 @@ export function authRoutes(ctx: AppContext): Router {
     res.json({ token });
   });
 
-  r.post('/signup', async (req, res) => {
+  r.post('/signup', perAddress(ctx.config.rateLimits.sendsPerHour, 'sign-ups'), async (req, res) => {
     const input = parse(signupSchema, req.body);
     const userId = await signup(ctx.db, input);
     await signIn(req, userId);
@@ -69,7 +72,7 @@ export function authRoutes(ctx: AppContext): Router {
     res.status(204).end();
   });
 
-  r.post('/reset', async (req, res) => {
+  r.post('/reset', perAddress(ctx.config.rateLimits.sendsPerHour, 'password resets'), async (req, res) => {
     const input = parse(resetPasswordSchema, req.body);
     await resetPassword(ctx.db, input, req.sessionID);
     res.status(204).end();
