@@ -17,6 +17,8 @@ export interface PrivateMariadb {
   stop(): Promise<void>;
   /** Starts the server again on the same data dir and port (used by the outage tests). */
   start(): Promise<void>;
+  /** The running server's process id; 0 while it is down. */
+  pid(): number;
 }
 
 export async function freePort(): Promise<number> {
@@ -61,7 +63,12 @@ async function waitForQuery(port: number, timeoutMs: number): Promise<void> {
  * Starts (initialising if needed) a MariaDB on `dataDir`. The database `dbName`
  * and a user `waymark` with a random password are created on first start.
  */
-export async function startPrivateMariadb(opts: { dataDir: string; port?: number; dbName?: string; durable?: boolean }): Promise<PrivateMariadb> {
+/**
+ * With `supervise`, a server that exits without being asked to (a crash, a kill) is started again with
+ * a back-off (0.5 s, 1 s, 2 s … at most 30 s; back to 0.5 s after a minute up), and each restart is logged.
+ * The app's pool makes new connections, so it serves again without a restart of its own.
+ */
+export async function startPrivateMariadb(opts: { dataDir: string; port?: number; dbName?: string; durable?: boolean; supervise?: boolean }): Promise<PrivateMariadb> {
   const dataDir = opts.dataDir;
   const dbName = opts.dbName ?? 'waymark';
   const port = opts.port ?? (await freePort());
@@ -80,7 +87,18 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
   }
 
   let pid = 0;
-  const start = async () => {
+  let wanted = true;
+  let restarts = 0;
+  let upSince = 0;
+  const restartLater = (why: string) => {
+    if (Date.now() - upSince > 60_000) restarts = 0;
+    const delay = Math.min(30_000, 500 * 2 ** restarts++);
+    console.error(`waymark: MariaDB exited (${why}); restarting in ${delay / 1000} s`);
+    setTimeout(() => {
+      if (wanted && !pid) start().catch((err) => console.error(`waymark: MariaDB did not come back: ${err instanceof Error ? err.message : err}`));
+    }, delay).unref();
+  };
+  const start = async (): Promise<void> => {
     // A server left over from a killed run would hold the data dir: stop it first.
     if (existsSync(pidFile)) {
       const old = Number(readFileSync(pidFile, 'utf8').trim());
@@ -97,7 +115,13 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
     ], { detached: true, stdio: 'ignore' });
     child.unref();
     pid = child.pid ?? 0;
+    child.on('exit', (code, signal) => {
+      if (pid !== child.pid) return;
+      pid = 0;
+      if (opts.supervise && wanted) restartLater(signal ?? `exit code ${code}`);
+    });
     await waitForQuery(port, 30_000);
+    upSince = Date.now();
   };
   await start();
 
@@ -106,6 +130,7 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
   await root.end();
 
   const stop = async () => {
+    wanted = false;
     if (!pid) return;
     const p = pid;
     pid = 0;
@@ -118,7 +143,8 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
     try { process.kill(p, 'SIGKILL'); } catch { /* already gone */ }
   };
 
-  return { url: `mysql://root@127.0.0.1:${port}/${dbName}`, port, socket, dataDir, stop, start };
+  const startAgain = () => { wanted = true; return start(); };
+  return { url: `mysql://root@127.0.0.1:${port}/${dbName}`, port, socket, dataDir, stop, start: startAgain, pid: () => pid };
 }
 
 export function removeDir(dir: string): void {

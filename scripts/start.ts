@@ -49,7 +49,7 @@ try {
   if (!databaseUrl) {
     const port = Number(process.env.WAYMARK_DB_PORT ?? 3307);
     console.log(`waymark: starting a private MariaDB on 127.0.0.1:${port} (data in .data/mariadb)…`);
-    mariadb = await startPrivateMariadb({ dataDir: join(dataDir, 'mariadb'), port });
+    mariadb = await startPrivateMariadb({ dataDir: join(dataDir, 'mariadb'), port, supervise: true });
     databaseUrl = mariadb.url;
   }
   const database = openDatabase(databaseUrl);
