@@ -5,40 +5,20 @@
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import request from 'supertest';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import { startPrivateMariadb, removeDir, type PrivateMariadb } from '../../scripts/mariadb.js';
-import { openDatabase, type Database } from '../../server/db/client.js';
-import { migrateDatabase } from '../../server/db/migrate.js';
-import { createApp } from '../../server/app.js';
-import { configFromEnv } from '../../server/config.js';
-import { smtpMailer } from '../../server/mail/mailer.js';
 import type { Express } from 'express';
+import type { PrivateMariadb } from '../../scripts/mariadb.js';
 import { TEST_PASSWORD, uniqueEmail } from '../helpers/app.js';
+import { startAppOnPrivateDb, type PrivateDbApp } from '../helpers/private-db-app.js';
 
+let running: PrivateDbApp;
 let mariadb: PrivateMariadb;
-let database: Database;
 let app: Express;
-let closeApp: () => Promise<void>;
-const dataDir = mkdtempSync(join(tmpdir(), 'waymark-outage-'));
 
 beforeAll(async () => {
-  mariadb = await startPrivateMariadb({ dataDir, dbName: 'waymark_outage' });
-  database = openDatabase(mariadb.url, { connectionLimit: 5 });
-  await migrateDatabase(database);
-  const config = configFromEnv({ DATABASE_URL: mariadb.url, SESSION_SECRET: 'outage-test' }, { smtp: { host: '127.0.0.1', port: 1, from: 'x@example.test' } });
-  const built = createApp({ config, database, db: database.db, mailer: smtpMailer(config.smtp) });
-  app = built.app;
-  closeApp = built.close;
+  running = await startAppOnPrivateDb('outage');
+  ({ mariadb, app } = running);
 });
-
-afterAll(async () => {
-  await closeApp?.().catch(() => {});
-  await database?.close().catch(() => {});
-  await mariadb?.stop();
-  removeDir(dataDir);
-});
+afterAll(async () => { await running?.close(); });
 
 async function signup(agent: ReturnType<typeof request.agent>, email: string) {
   const { body } = await agent.get('/api/auth/csrf');
