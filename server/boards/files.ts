@@ -45,7 +45,7 @@ export async function importBoardFile(db: Db, actor: Actor, input: BoardImport):
   const file = wrapped ? input.file : input;
   const siteId = wrapped ? input.siteId ?? null : null;
   await checkSiteField(db, actor.organisationId, siteId);
-  const schedule = { board: file.board, devices: file.devices, circuits: file.circuits, survey: file.survey ?? null };
+  const schedule = { board: file.board, devices: file.devices, circuits: file.circuits, ...(file.survey ? { survey: file.survey } : {}) };
   await checkFeedsBoardIds(db, actor.organisationId, schedule, null, (i) => `${wrapped ? 'file.' : ''}circuits.${i}.feedsBoardId`);
   return createBoardRecord(db, actor, schedule, siteId, 'Imported from a board file');
 }

@@ -47,7 +47,8 @@ export async function getSchedule(db: Db, organisationId: number, id: number): P
 /** `PUT /api/boards/:id/schedule` */
 export function saveSchedule(db: Db, actor: Actor, id: number, input: ScheduleSave): Promise<SaveOutcome> {
   const { board, devices, circuits, survey, baseRevision } = input;
-  return saveScheduleAt(db, actor, id, baseRevision, { board, devices, circuits, survey: survey ?? null });
+  // A board without a survey stores no survey key, so its documents read as they did before surveys existed.
+  return saveScheduleAt(db, actor, id, baseRevision, { board, devices, circuits, ...(survey ? { survey } : {}) });
 }
 
 /** Today's date on the server as YYYY-MM-DD (UTC), the only clock the rule checks see. */

@@ -260,7 +260,7 @@ describe('building a board in the editor', () => {
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('menuitem', { name: 'Export board file' }).click()]);
     const file = await download.path();
     const exported = JSON.parse(await readFile(file, 'utf8'));
-    expect(exported).toMatchObject({ format: 1, kind: 'waymark-board' });
+    expect(exported).toMatchObject({ format: 2, kind: 'waymark-board' });
 
     await page.goto('/boards');
     await page.getByRole('button', { name: 'Import board file' }).click();
