@@ -5,10 +5,10 @@
  */
 import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
-import type { Medium, RenderResult } from '../pdf/types.js';
+import type { Medium, RenderRequest, RenderResult } from '../pdf/types.js';
 import { LayoutError } from '../pdf/types.js';
-import { renderOutput, resolveMedium } from '../pdf/index.js';
-import { printOptionSchemas, type MediaId, type PrintOptions, type PrintWarning } from '../../shared/schemas/print.js';
+import { layoutOutput, renderOutput, resolveMedium } from '../pdf/index.js';
+import { printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput, type PrintWarning } from '../../shared/schemas/print.js';
 import type { PrintOffset, PrintRecord } from '../../shared/schemas/print-records.js';
 import { flagWorkProblem } from '../pdf/layout/work.js';
 import { waysChangedBetween } from '../../shared/schedule/diff.js';
@@ -57,15 +57,15 @@ async function onlyWaysFor(ctx: AppContext, source: PrintSource, query: PrintQue
   return ways;
 }
 
-/** Renders one output of a loaded board (the pack renders several from one source). */
-export async function renderWith(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderResult> {
+/** The engine's request for one output of a loaded board, after the work limit is checked. */
+async function renderRequestFor(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderRequest<PrintOutput>> {
   const medium = await mediumFor(ctx, user.organisationId, query.media);
   const onlyWays = await onlyWaysFor(ctx, source, query);
   if (query.output === 'flags') {
     const problem = flagWorkProblem(source.schedule, query.options as PrintOptions['flags'], onlyWays);
     if (problem) throw new AppError(422, 'too_much_work', problem, { legs: problem });
   }
-  return engine(() => renderOutput({
+  return {
     output: query.output,
     medium,
     options: query.options,
@@ -77,7 +77,13 @@ export async function renderWith(ctx: AppContext, user: CurrentUser, source: Pri
     maxZsByCircuit: source.maxZsByCircuit,
     onlyWays,
     today: today(),
-  }));
+  };
+}
+
+/** Renders one output of a loaded board (the pack renders several from one source). */
+export async function renderWith(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderResult> {
+  const req = await renderRequestFor(ctx, user, source, query);
+  return engine(() => renderOutput(req));
 }
 
 /** The history row for one printed file. */
@@ -100,10 +106,15 @@ export async function printCalibration(ctx: AppContext, user: CurrentUser, media
   return { ...result, filename: `calibration-${media}.pdf` };
 }
 
-/** What a print would warn about, for the print page's list (never recorded). */
+/**
+ * What a print would warn about, for the print page's list (never recorded). Laid out only, never
+ * drawn: the list is asked for at every change of an option, and drawing is most of a print's cost.
+ */
 export async function checkPrint(ctx: AppContext, user: CurrentUser, boardId: number, query: PrintQuery): Promise<{ warnings: PrintWarning[]; pageCount: number }> {
-  const { warnings, pageCount } = await printPdf(ctx, user, boardId, { ...query, record: false });
-  return { warnings, pageCount };
+  const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
+  const req = await renderRequestFor(ctx, user, source, query);
+  const layout = await engine(() => layoutOutput(req));
+  return { warnings: layout.warnings, pageCount: layout.pages.length };
 }
 
 export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: number): Promise<PrintRecord[]> {
