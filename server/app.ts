@@ -3,6 +3,7 @@
  */
 import express, { type Express } from 'express';
 import helmet from 'helmet';
+import cookieParser from 'cookie-parser';
 import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { AppContext } from './context.js';
@@ -35,7 +36,7 @@ export function createApp(ctx: AppContext): BuiltApp {
   // public route can serve. Every other API request, and every write, goes through the session.
   const withSession: express.RequestHandler = (req, res, next) =>
     (req.method === 'GET' && req.path.startsWith('/public/') ? next() : sessions.middleware(req, res, next));
-  app.use('/api', withSession, loadUser(ctx.db), requireCsrf, apiRoutes(ctx));
+  app.use('/api', cookieParser(), withSession, loadUser(ctx.db), requireCsrf(ctx.config.sessionSecret), apiRoutes(ctx));
   app.use('/api', (_req, _res, next) => next(notFound('No such API route')));
 
   const clientDir = ctx.config.clientDir;

@@ -8,7 +8,7 @@ import { parse } from '../http/parse.js';
 import { csrfToken } from './csrf.js';
 import { requestPasswordReset, resetPassword } from './reset.js';
 import { login, signup } from './service.js';
-import { saveSession, signIn } from './sign-in.js';
+import { signIn } from './sign-in.js';
 
 /**
  * Per-IP and per-account limits (each call makes its own counters). Sign-in uses them against
@@ -32,11 +32,8 @@ function attemptLimiters(ctx: AppContext, what: string) {
 export function authRoutes(ctx: AppContext): Router {
   const r = Router();
 
-  r.get('/csrf', async (req, res) => {
-    const token = csrfToken(req);
-    // Save before answering: a token the store never kept would fail every later write.
-    await saveSession(req);
-    res.json({ token });
+  r.get('/csrf', (req, res) => {
+    res.set('Cache-Control', 'no-store').json({ token: csrfToken(req, res, ctx.config.sessionSecret) });
   });
 
   r.post('/signup', perAddress(ctx.config.rateLimits.sendsPerHour, 'sign-ups'), async (req, res) => {

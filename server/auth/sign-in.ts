@@ -1,12 +1,10 @@
 /** Turning a checked identity into a signed-in session: shared by sign-up, sign-in and accepting an invitation. */
 import type { Request } from 'express';
 
-/** Starts a fresh session for the user (a new id stops session fixation) and keeps the CSRF token. */
+/** Starts a fresh session for the user (a new id stops session fixation). The CSRF token lives in its own cookie and stays valid. */
 export async function signIn(req: Request, userId: number): Promise<void> {
-  const token = req.session.csrfToken;
   await new Promise<void>((resolve, reject) => req.session.regenerate((err) => (err ? reject(err) : resolve())));
   req.session.userId = userId;
-  if (token) req.session.csrfToken = token;
   await saveSession(req);
 }
 

@@ -13,7 +13,6 @@ export interface CurrentUser {
 declare module 'express-session' {
   interface SessionData {
     userId?: number;
-    csrfToken?: string;
   }
 }
 

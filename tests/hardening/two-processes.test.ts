@@ -18,15 +18,18 @@ afterAll(() => { a?.child.kill('SIGTERM'); b?.child.kill('SIGTERM'); });
 
 /** A minimal cookie-keeping client over fetch, aimed at one process or the other. */
 function cookieJar() {
-  let cookie = '';
+  const cookies = new Map<string, string>();
   let csrf = '';
   const call = async (port: number, method: string, path: string, body?: unknown) => {
     const headers: Record<string, string> = { 'Content-Type': 'application/json' };
-    if (cookie) headers.Cookie = cookie;
+    if (cookies.size) headers.Cookie = [...cookies].map(([k, v]) => `${k}=${v}`).join('; ');
     if (csrf && method !== 'GET') headers['X-CSRF-Token'] = csrf;
     const res = await fetch(`http://127.0.0.1:${port}${path}`, { method, headers, body: body === undefined ? undefined : JSON.stringify(body) });
-    const set = res.headers.get('set-cookie');
-    if (set) cookie = set.split(';')[0];
+    for (const set of res.headers.getSetCookie()) {
+      const [pair] = set.split(';');
+      const at = pair.indexOf('=');
+      cookies.set(pair.slice(0, at), pair.slice(at + 1));
+    }
     const text = await res.text();
     return { status: res.status, body: text ? JSON.parse(text) : null };
   };

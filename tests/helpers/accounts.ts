@@ -4,6 +4,7 @@
  * invitation and reset e-mails. Mail is decoded with mailparser, independently of the app.
  */
 import type { Express } from 'express';
+import request from 'supertest';
 import { simpleParser } from 'mailparser';
 import type { Database } from '../../server/db/client.js';
 import type { Role } from '../../shared/schemas/auth.js';
@@ -47,11 +48,12 @@ export async function addMember(t: TestApp, owner: Client, role: Role, name = `T
   return Object.assign(c, { email, id: res.body.id as number });
 }
 
-/** The cookie header a supertest agent holds, to replay on another app instance. */
+/** The cookie header a signed-in browser holds (session and CSRF cookies), to replay on another app instance. */
 export async function sessionCookie(app: Express, email: string, password = TEST_PASSWORD): Promise<{ cookie: string; csrf: string }> {
-  const c = await client(app);
-  const res = await c.post('/api/auth/login', { email, password }).expect(200);
-  const setCookie = res.headers['set-cookie'] as unknown as string[];
-  const cookie = setCookie.map((s) => s.split(';')[0]).join('; ');
-  return { cookie, csrf: c.csrf };
+  const pairs = (res: request.Response) => ([] as string[]).concat(res.headers['set-cookie'] ?? []).map((s) => s.split(';')[0]);
+  const first = await request(app).get('/api/auth/csrf').expect(200);
+  const csrfCookie = pairs(first);
+  const res = await request(app).post('/api/auth/login').set('Cookie', csrfCookie.join('; ')).set('X-CSRF-Token', first.body.token)
+    .send({ email, password }).expect(200);
+  return { cookie: [...csrfCookie, ...pairs(res)].join('; '), csrf: first.body.token as string };
 }
