@@ -1,13 +1,14 @@
 import { Router, type Request } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { perAddress } from '../http/limits.js';
-import { forgotPasswordSchema, loginSchema, resetPasswordSchema, signupSchema } from '../../shared/schemas/auth.js';
+import { forgotPasswordSchema, linkTokenSchema, loginSchema, resetPasswordSchema, signupSchema } from '../../shared/schemas/auth.js';
 import type { AppContext } from '../context.js';
 import { tooMany, unauthorised } from '../errors.js';
 import { parse } from '../http/parse.js';
 import { csrfToken } from './csrf.js';
 import { requestPasswordReset, resetPassword } from './reset.js';
-import { login, signup } from './service.js';
+import { login } from './service.js';
+import { confirmSignup, requestSignup } from './signup.js';
 import { signIn } from './sign-in.js';
 
 /**
@@ -38,7 +39,14 @@ export function authRoutes(ctx: AppContext): Router {
 
   r.post('/signup', perAddress(ctx.config.rateLimits.sendsPerHour, 'sign-ups'), async (req, res) => {
     const input = parse(signupSchema, req.body);
-    const userId = await signup(ctx.db, input);
+    // The same answer for a new and a registered address: the e-mail says which it was.
+    requestSignup(ctx, input);
+    res.status(202).json({ email: input.email });
+  });
+
+  r.post('/signup/confirm', perAddress(ctx.config.rateLimits.sendsPerHour, 'sign-ups'), async (req, res) => {
+    const { token } = parse(linkTokenSchema, req.body);
+    const userId = await confirmSignup(ctx.db, token);
     await signIn(req, userId);
     res.status(201).json({ id: userId });
   });

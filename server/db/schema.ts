@@ -64,6 +64,22 @@ export const passwordResets = mysqlTable('password_resets', {
   createdAt: now(),
 }, (t) => [uniqueIndex('password_resets_token_unique').on(t.tokenHash)]);
 
+/**
+ * A sign-up waiting for its e-mail link: nothing of the account exists until the link is used, so the
+ * sign-up answer is the same whether or not the address already has an account.
+ */
+export const signupRequests = mysqlTable('signup_requests', {
+  id: int('id').autoincrement().primaryKey(),
+  email: varchar('email', { length: 254 }).notNull(),
+  name: varchar('name', { length: 120 }).notNull(),
+  organisationName: varchar('organisation_name', { length: 120 }).notNull(),
+  passwordHash: varchar('password_hash', { length: 100 }).notNull(),
+  tokenHash: varchar('token_hash', { length: 64 }).notNull(),
+  expiresAt: datetime('expires_at', { mode: 'date', fsp: 3 }).notNull(),
+  usedAt: datetime('used_at', { mode: 'date', fsp: 3 }),
+  createdAt: now(),
+}, (t) => [uniqueIndex('signup_requests_token_unique').on(t.tokenHash)]);
+
 /** The table express-mysql-session reads and writes (its default column names). */
 export const sessions = mysqlTable('sessions', {
   sessionId: varchar('session_id', { length: 128 }).primaryKey(),

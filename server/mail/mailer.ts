@@ -3,8 +3,8 @@ import { unavailable } from '../errors.js';
 
 export interface OutgoingMail {
   to: string;
-  /** The organisation the message is sent for: its members, invitees, clients or board reports. */
-  organisationId: number;
+  /** The organisation the message is sent for (its members, invitees, clients or board reports); null before one exists (a sign-up link). */
+  organisationId: number | null;
   subject: string;
   text: string;
   html?: string;
@@ -34,7 +34,7 @@ export function smtpMailer(opts: { host: string; port: number; from: string; tag
   });
   return {
     async send({ organisationId, ...mail }) {
-      const headers = opts.tagOrganisation ? { [ORGANISATION_HEADER]: String(organisationId) } : undefined;
+      const headers = opts.tagOrganisation && organisationId !== null ? { [ORGANISATION_HEADER]: String(organisationId) } : undefined;
       await transport.sendMail({ from: opts.from, ...mail, headers });
     },
     close: () => transport.close(),
@@ -42,7 +42,7 @@ export function smtpMailer(opts: { host: string; port: number; from: string; tag
 }
 
 /** Sends one message; a relay that refuses or cannot be reached answers 503 (logged here with its cause), not 500. */
-export async function deliver(mailer: Mailer, to: string, organisationId: number, message: { subject: string; text: string }): Promise<void> {
+export async function deliver(mailer: Mailer, to: string, organisationId: number | null, message: { subject: string; text: string }): Promise<void> {
   try {
     await mailer.send({ to, organisationId, ...message });
   } catch (err) {

@@ -71,3 +71,50 @@ export function passwordResetMessage(input: PasswordResetMessageInput): MessageT
     ].join('\n'),
   };
 }
+
+export interface SignupLinkMessageInput { name: string; organisationName: string; link: string; expiresAt: Date }
+
+/** The link that finishes a sign-up: the account exists only once it is opened. */
+export function signupLinkMessage(input: SignupLinkMessageInput): MessageText {
+  return {
+    subject: 'Finish opening your Waymark account',
+    text: [
+      `Hello ${input.name},`,
+      '',
+      `To finish opening the Waymark account for ${input.organisationName}, open this link:`,
+      input.link,
+      '',
+      `The link can be used once and stops working at ${formatUtc(input.expiresAt)}.`,
+      'If you did not sign up, ignore this e-mail: no account is made unless the link is used.',
+      '',
+      '— Waymark',
+    ].join('\n'),
+  };
+}
+
+export interface AlreadyRegisteredMessageInput { name: string; email: string; link: string; because: 'signup' | 'invitation'; organisationName?: string }
+
+/**
+ * Sent instead of a link when the address already has an account: the answer on screen is the same
+ * as for a new address (it must not tell a stranger who has an account), so the owner of the address hears it here.
+ */
+export function alreadyRegisteredMessage(input: AlreadyRegisteredMessageInput): MessageText {
+  const what = input.because === 'signup'
+    ? `Someone asked to open a new Waymark account with this address (${input.email}).`
+    : `${input.organisationName ?? 'An organisation'} invited this address (${input.email}) to join them on Waymark.`;
+  return {
+    subject: input.because === 'signup' ? 'Your address already has a Waymark account' : 'An invitation to an address that already has a Waymark account',
+    text: [
+      `Hello ${input.name},`,
+      '',
+      what,
+      'This address already has an account, and an address can belong to one organisation only, so nothing was changed.',
+      '',
+      'If it was you and you have forgotten the password, choose a new one here:',
+      input.link,
+      input.because === 'invitation' ? 'To join the other organisation, ask them to invite a different address.' : 'If it was not you, you can ignore this e-mail.',
+      '',
+      '— Waymark',
+    ].join('\n'),
+  };
+}

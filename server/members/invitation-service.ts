@@ -8,7 +8,7 @@ import type { AcceptInvitationInput, InvitationInfo, InviteInput, PendingInvitat
 import type { CurrentUser } from '../http/context.js';
 import { conflict, invalid, notFound } from '../errors.js';
 import { deliver } from '../mail/mailer.js';
-import { invitationMessage } from '../mail/messages.js';
+import { alreadyRegisteredMessage, invitationMessage } from '../mail/messages.js';
 import { hashPassword, hashToken, newLinkToken } from '../auth/passwords.js';
 import { findUserByEmail, insertUser } from '../auth/repository.js';
 import {
@@ -19,13 +19,21 @@ import {
 /** Seven days, as the invitation e-mail says. */
 export const INVITATION_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 
-const alreadyMember = () => conflict('This address already has a Waymark account', {
-  email: 'Already has an account: ask them to sign in',
+const alreadyMember = () => conflict('This address is already a member of your organisation', {
+  email: 'Already a member: see the members list',
+});
+
+/** Said only to the holder of the link, who owns the address. */
+const alreadyRegistered = () => conflict('This address already has a Waymark account: sign in instead', {
+  email: 'Already has an account',
 });
 
 /** Records the invitation and sends its link; if the mail cannot be sent, the invitation is withdrawn. */
 export async function inviteMember(ctx: AppContext, owner: CurrentUser, input: InviteInput, now = new Date()): Promise<PendingInvitation> {
-  if (await findUserByEmail(ctx.db, input.email)) throw alreadyMember();
+  const existing = await findUserByEmail(ctx.db, input.email);
+  // One's own members are no secret to an owner; another organisation's are, so that invitation is
+  // answered and listed like any other, and the address's owner is told by e-mail instead of getting a link.
+  if (existing?.organisationId === owner.organisationId) throw alreadyMember();
   const token = newLinkToken();
   const expiresAt = new Date(now.getTime() + INVITATION_LIFETIME_MS);
   // Not one transaction: its gap locks deadlock with other organisations' invitations, and two
@@ -36,9 +44,9 @@ export async function inviteMember(ctx: AppContext, owner: CurrentUser, input: I
   });
   const link = `${ctx.config.publicBaseUrl}/invite/${token.raw}`;
   try {
-    await deliver(ctx.mailer, input.email, owner.organisationId, invitationMessage({
-      organisationName: owner.organisationName, inviterName: owner.name, role: input.role, link, expiresAt,
-    }));
+    await deliver(ctx.mailer, input.email, owner.organisationId, existing
+      ? alreadyRegisteredMessage({ name: existing.name, email: existing.email, link: `${ctx.config.publicBaseUrl}/forgot`, because: 'invitation', organisationName: owner.organisationName })
+      : invitationMessage({ organisationName: owner.organisationName, inviterName: owner.name, role: input.role, link, expiresAt }));
   } catch (err) {
     await deleteUnusedInvitation(ctx.db, owner.organisationId, created.id);
     throw err;
@@ -83,12 +91,12 @@ export async function acceptInvitation(db: Db, input: AcceptInvitationInput, now
       const tx = txn as unknown as Db;
       const row = await findInvitationByTokenHash(tx, hashToken(input.token), true);
       if (!usable(row, now)) throw notValid();
-      if (await findUserByEmail(tx, row.email)) throw alreadyMember();
+      if (await findUserByEmail(tx, row.email)) throw alreadyRegistered();
       await markInvitationUsed(tx, row.id, now);
       return insertUser(tx, { organisationId: row.organisationId, email: row.email, name: input.name, passwordHash, role: row.role });
     });
   } catch (err) {
-    if (isDuplicateKey(err)) throw alreadyMember();
+    if (isDuplicateKey(err)) throw alreadyRegistered();
     throw err;
   }
 }

@@ -38,6 +38,8 @@ export const invitationTokenParamSchema = z.object({
 export const inviteSchema = z.strictObject({ email, role: roleSchema });
 export const acceptInvitationSchema = z.strictObject({ token: z.string().min(10).max(200), name: personName, password: passwordSchema });
 export const forgotPasswordSchema = z.strictObject({ email });
+/** The token of a sign-up link (`/signup/<token>`), sent back to open the account. */
+export const linkTokenSchema = z.strictObject({ token: z.string().min(10, 'Too short to be a link token').max(200, 'Too long to be a link token') });
 export const resetPasswordSchema = z.strictObject({ token: z.string().min(10).max(200), password: passwordSchema });
 export const memberUpdateSchema = z.strictObject({ role: roleSchema.optional(), disabled: z.boolean().optional() });
 

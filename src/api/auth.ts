@@ -22,9 +22,14 @@ export async function signIn(input: LoginInput): Promise<void> {
   await send('POST', '/api/auth/login', { body: input });
 }
 
-/** Creates a new organisation with the signer as its owner, and signs them in. */
+/** Asks for a sign-up link by e-mail (the same answer whether or not the address has an account). */
 export async function signUp(input: SignupInput): Promise<void> {
   await send('POST', '/api/auth/signup', { body: input });
+}
+
+/** Opens the account from the e-mailed link: a new organisation with the signer as its owner, signed in. */
+export async function confirmSignUp(token: string): Promise<void> {
+  await send('POST', '/api/auth/signup/confirm', { body: { token } });
 }
 
 export async function signOut(): Promise<void> {

@@ -10,6 +10,7 @@ const routes: RouteRecordRaw[] = [
   { path: '/b/:token', name: 'board-page', component: () => import('../views/public/BoardPageView.vue'), props: true },
   { path: '/signin', name: 'signin', component: () => import('../views/auth/SignInView.vue') },
   { path: '/signup', name: 'signup', component: () => import('../views/auth/SignUpView.vue') },
+  { path: '/signup/:token', name: 'confirm-signup', component: () => import('../views/auth/ConfirmSignUpView.vue'), props: true },
   { path: '/invite/:token', name: 'accept-invitation', component: () => import('../views/auth/AcceptInvitationView.vue'), props: true },
   { path: '/forgot', name: 'forgot-password', component: () => import('../views/auth/ForgotPasswordView.vue') },
   { path: '/reset/:token', name: 'reset-password', component: () => import('../views/auth/ResetPasswordView.vue'), props: true },

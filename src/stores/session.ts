@@ -59,8 +59,13 @@ export const useSessionStore = defineStore('session', () => {
     await load();
   }
 
+  /** Asks for the sign-up link; nothing is signed in until the link is opened. */
   async function signUp(input: SignupInput): Promise<void> {
     await authApi.signUp(input);
+  }
+
+  async function confirmSignUp(token: string): Promise<void> {
+    await authApi.confirmSignUp(token);
     await load();
   }
 
@@ -93,6 +98,6 @@ export const useSessionStore = defineStore('session', () => {
 
   return {
     status, me, error, notice, role, signedIn, isOwner, canEdit,
-    hasRole, load, ensureLoaded, signIn, signUp, acceptInvitation, signOut, expire, renameOrganisation,
+    hasRole, load, ensureLoaded, signIn, signUp, confirmSignUp, acceptInvitation, signOut, expire, renameOrganisation,
   };
 });

@@ -1,5 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { client, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../helpers/app.js';
+import { simpleParser } from 'mailparser';
+import { client, linkToken, mailText, mailTo, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../helpers/app.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });
@@ -53,10 +54,36 @@ describe('sign up, sign in, me, sign out', () => {
     expect(res.status).toBe(400);
   });
 
-  it('when the e-mail is already registered, then 409 on the email field', async () => {
+  it('when the e-mail is already registered, then the answer is the same as for a new address and the address\'s owner is told by mail', async () => {
     const owner = await signupOwner(t.app);
     const c = await client(t.app);
-    const res = await c.post('/api/auth/signup', { organisation: 'B', name: 'B', email: owner.email, password: TEST_PASSWORD }).expect(409);
-    expect(res.body.error.fields.email).toBeTruthy();
+    const fresh = uniqueEmail('fresh');
+    const taken = await c.post('/api/auth/signup', { organisation: 'B', name: 'B', email: owner.email, password: TEST_PASSWORD }).expect(202);
+    const free = await c.post('/api/auth/signup', { organisation: 'B', name: 'B', email: fresh, password: TEST_PASSWORD }).expect(202);
+    expect(Object.keys(taken.body)).toEqual(Object.keys(free.body));
+    expect(taken.headers['set-cookie']).toBeUndefined();
+    // The stranger is not signed in either way; the owner's mail says what happened and links no new account.
+    await c.get('/api/auth/me').expect(401);
+    const notice = await mailText(t.database, owner.email, 2);
+    expect(notice.subject).toMatch(/already has a Waymark account/);
+    expect(notice.text).not.toMatch(/\/signup\//);
+    const link = await mailText(t.database, fresh);
+    expect(link.text).toMatch(/\/signup\/[A-Za-z0-9_-]{43}/);
+  });
+
+  it('when a sign-up link is used twice, made up, or its address registered meanwhile, then 400 on the token and no second account', async () => {
+    const c = await client(t.app);
+    const email = uniqueEmail('twice');
+    await c.post('/api/auth/signup', { organisation: 'Twice Ltd', name: 'Tam', email, password: TEST_PASSWORD }).expect(202);
+    await c.post('/api/auth/signup', { organisation: 'Twice Again Ltd', name: 'Tam', email, password: TEST_PASSWORD }).expect(202);
+    const second = linkToken((await mailText(t.database, email, 2)).text, t.ctx.config.publicBaseUrl, 'signup');
+    const [older] = await mailTo(t.database, email).then((m) => m.slice(1));
+    const first = linkToken((await simpleParser(older.raw)).text ?? '', t.ctx.config.publicBaseUrl, 'signup');
+    await c.post('/api/auth/signup/confirm', { token: second }).expect(201);
+    expect((await c.get('/api/auth/me').expect(200)).body.organisation.name).toBe('Twice Again Ltd');
+    const again = await (await client(t.app)).post('/api/auth/signup/confirm', { token: second }).expect(400);
+    expect(again.body.error.fields.token).toBeTruthy();
+    await (await client(t.app)).post('/api/auth/signup/confirm', { token: first }).expect(400);
+    await (await client(t.app)).post('/api/auth/signup/confirm', { token: 'x'.repeat(43) }).expect(400);
   });
 });

@@ -113,13 +113,23 @@ describe('inviting a member', () => {
     expect(list.body.invitations).toHaveLength(1);
   });
 
-  it('when the address already has an account, then 409 on the email field and no mail is sent', async () => {
+  it('when the address has an account in another organisation, then the answer is as for a new address, and its owner is mailed a note, not a link', async () => {
     const owner = await signupOwner(t.app);
     const other = await signupOwner(t.app);
-    const res = await owner.post('/api/members/invitations', { email: other.email, role: 'viewer' }).expect(409);
+    const taken = await owner.post('/api/members/invitations', { email: other.email, role: 'viewer' }).expect(201);
+    const free = await owner.post('/api/members/invitations', { email: uniqueEmail('free'), role: 'viewer' }).expect(201);
+    expect(Object.keys(taken.body).sort()).toEqual(Object.keys(free.body).sort());
+    expect((await owner.get('/api/members/invitations').expect(200)).body.invitations).toHaveLength(2);
+    const notice = await mailText(t.database, other.email, 2);
+    expect(notice.text).toMatch(/already has an account/);
+    expect(notice.text).not.toMatch(/\/invite\//);
+  });
+
+  it('when the address is already a member of the same organisation, then 409: the owner can see the members list anyway', async () => {
+    const owner = await signupOwner(t.app);
+    const res = await owner.post('/api/members/invitations', { email: owner.email, role: 'viewer' }).expect(409);
     expect(res.body.error.fields.email).toBeTruthy();
-    expect(await t.database.db.select().from(invitations).where(eq(invitations.email, other.email))).toHaveLength(0);
-    expect(await mailTo(t.database, other.email)).toHaveLength(0);
+    expect(await t.database.db.select().from(invitations).where(eq(invitations.email, owner.email))).toHaveLength(0);
   });
 
   it('when the invite body is bad, then 400 names each field', async () => {

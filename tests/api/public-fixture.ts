@@ -4,7 +4,7 @@
  * JSON for "zqpriv"), stored through the sites and boards API as a user would.
  */
 import type { ScheduleInput } from '../../shared/schemas/schedule.js';
-import { client, TEST_PASSWORD, uniqueEmail, type Client } from '../helpers/app.js';
+import { signupOwner, uniqueEmail, type Client } from '../helpers/app.js';
 import type { Express } from 'express';
 
 /** Every private value below contains this; none may reach the public JSON. */
@@ -58,12 +58,10 @@ export function markedSchedule(): ScheduleInput {
 
 /** Signs up an organisation whose owner's name carries the marker, with a public contact set. */
 export async function signupMarkedOwner(app: Express, withContactEmail = true): Promise<Client & { email: string; contactEmail: string }> {
-  const c = await client(app);
-  const email = uniqueEmail('zqpriv-owner');
+  const c = await signupOwner(app, 'Lanternfield Electrical', 'Zqpriv Owner Name');
   const contactEmail = withContactEmail ? uniqueEmail('office') : '';
-  await c.post('/api/auth/signup', { organisation: 'Lanternfield Electrical', name: 'Zqpriv Owner Name', email, password: TEST_PASSWORD }).expect(201);
   await c.put('/api/organisation', { name: 'Lanternfield Electrical', contactPhone: '01632 960123', contactEmail }).expect(200);
-  return Object.assign(c, { email, contactEmail });
+  return Object.assign(c, { contactEmail });
 }
 
 export interface StoredBoard { id: number; token: string; code: string; revision: number }

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loginSchema } from '../../shared/schemas/auth.js';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
-import { uniqueEmail, waitForMail } from '../helpers/app.js';
+import { mailText, uniqueEmail, waitForMail } from '../helpers/app.js';
 
 let app: BrowserApp;
 beforeAll(async () => { app = await startBrowserApp(); });
@@ -33,6 +33,13 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
     await page.getByLabel('E-mail').fill(email);
     await page.getByLabel('Password', { exact: true }).fill(password);
     await page.getByRole('button', { name: 'Create account' }).click();
+    await page.getByText('Check your e-mail').waitFor();
+    expect((await page.request.get('/api/auth/me')).status()).toBe(401); // nothing opened until the link is used
+
+    const link = (await mailText(app.database, email, 1, 30_000)).text.match(/https?:\/\/\S+\/signup\/[\w-]+/)?.[0];
+    expect(link).toMatch(new RegExp(`^${app.baseUrl}/signup/`));
+    await page.goto(link!);
+    await page.getByRole('button', { name: 'Open my account' }).click();
     await page.waitForURL('**/boards');
 
     const account = page.getByRole('button', { name: 'Account menu for Ada Fenwick' });
@@ -112,7 +119,7 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
     await page.getByText('Check your e-mail').waitFor();
 
     // The link as the captured-mail API reads it (the owner's old session can still ask).
-    const captured = await waitForMail(app.database, owner.email, 30_000);
+    const captured = (await mailText(app.database, owner.email, 2, 30_000)).row; // after the sign-up link
     const message = await (await owner.page.request.get(`/api/dev/mail/${captured.id}`)).json() as { text: string };
     const link = message.text.match(/https?:\/\/\S+\/reset\/[\w-]+/)?.[0];
     expect(link).toMatch(new RegExp(`^${app.baseUrl}/reset/`));

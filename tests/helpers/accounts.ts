@@ -5,32 +5,11 @@
  */
 import type { Express } from 'express';
 import request from 'supertest';
-import { simpleParser } from 'mailparser';
 import type { Database } from '../../server/db/client.js';
 import type { Role } from '../../shared/schemas/auth.js';
-import { client, mailTo, TEST_PASSWORD, uniqueEmail, type Client, type TestApp } from './app.js';
+import { client, linkToken, mailText, TEST_PASSWORD, uniqueEmail, type Client, type TestApp } from './app.js';
 
-/** The decoded text of the newest message to an address, once at least `count` have arrived. */
-export async function mailText(database: Database, address: string, count = 1, timeoutMs = 5000) {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const messages = await mailTo(database, address);
-    if (messages.length >= count) {
-      const parsed = await simpleParser(messages[0].raw);
-      return { subject: parsed.subject ?? '', text: parsed.text ?? '', row: messages[0] };
-    }
-    if (Date.now() > deadline) throw new Error(`fewer than ${count} mail(s) to ${address} within ${timeoutMs} ms`);
-    await new Promise((r) => setTimeout(r, 50));
-  }
-}
-
-/** The token of the first `${base}/${kind}/<token>` link in a text. */
-export function linkToken(text: string, base: string, kind: 'invite' | 'reset'): string {
-  const escaped = base.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&');
-  const m = text.match(new RegExp(`${escaped}/${kind}/([A-Za-z0-9_-]+)`));
-  if (!m) throw new Error(`no ${kind} link in: ${text}`);
-  return m[1];
-}
+export { linkToken, mailText } from './app.js';
 
 /** Invites an address as `owner` and returns the token from the e-mail it received. */
 export async function inviteAndReadToken(t: TestApp, owner: Client, email: string, role: Role, count = 1): Promise<string> {

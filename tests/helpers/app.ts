@@ -6,12 +6,15 @@
 import request from 'supertest';
 import { randomUUID } from 'node:crypto';
 import { desc, like } from 'drizzle-orm';
+import { simpleParser } from 'mailparser';
 import { createApp } from '../../server/app.js';
 import { configFromEnv, type ServerConfig } from '../../server/config.js';
 import { openDatabase, type Database } from '../../server/db/client.js';
 import { smtpMailer } from '../../server/mail/mailer.js';
 import { startCaptureServer, type CaptureServer } from '../../server/mail/capture.js';
 import { capturedMail } from '../../server/db/schema.js';
+import { hashPassword } from '../../server/auth/passwords.js';
+import { insertOrganisation, insertUser } from '../../server/auth/repository.js';
 import type { AppContext } from '../../server/context.js';
 import type { Express } from 'express';
 
@@ -22,6 +25,9 @@ export interface TestApp {
   capture: CaptureServer;
   close(): Promise<void>;
 }
+
+/** The database and context behind each app this harness started, for helpers given only the app. */
+const startedApps = new WeakMap<Express, { database: Database; ctx: AppContext; capturesMail: boolean }>();
 
 export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promise<TestApp> {
   const databaseUrl = process.env.DATABASE_URL;
@@ -38,6 +44,7 @@ export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promi
   const mailer = smtpMailer({ ...config.smtp, tagOrganisation: config.devMail });
   const ctx: AppContext = { config, database, db: database.db, mailer };
   const built = createApp(ctx);
+  startedApps.set(built.app, { database, ctx, capturesMail: config.smtp.port === capture.port });
   return {
     app: built.app,
     ctx,
@@ -81,13 +88,54 @@ export async function client(app: Express): Promise<Client> {
   };
 }
 
-/** Signs up a new organisation and returns its owner's signed-in client. */
-export async function signupOwner(app: Express, organisation = 'Test Electrical'): Promise<Client & { email: string }> {
+/** An owner account made straight in the database, as a used sign-up link makes it (for apps that cannot mail). */
+export async function insertOwnerAccount(database: Database, email: string, organisation = 'Test Electrical', name = 'Test Owner'): Promise<number> {
+  const passwordHash = await hashPassword(TEST_PASSWORD);
+  const organisationId = await insertOrganisation(database.db, organisation);
+  return insertUser(database.db, { organisationId, email, name, passwordHash, role: 'owner' });
+}
+
+/** Signs up a new organisation through its e-mail link and returns its owner's signed-in client. */
+export async function signupOwner(app: Express, organisation = 'Test Electrical', name = 'Test Owner'): Promise<Client & { email: string }> {
   const c = await client(app);
   const email = uniqueEmail('owner');
-  await c.post('/api/auth/signup', { organisation, name: 'Test Owner', email, password: TEST_PASSWORD }).expect(201);
+  const started = startedApps.get(app);
+  if (!started) throw new Error('signupOwner needs an app from startTestApp (it reads the sign-up link from its captured mail)');
+  if (!started.capturesMail) {
+    // An app whose relay is down on purpose cannot mail the link: make the account as the link would, then sign in.
+    await insertOwnerAccount(started.database, email, organisation, name);
+    await c.post('/api/auth/login', { email, password: TEST_PASSWORD }).expect(200);
+    return Object.assign(c, { email });
+  }
+  await c.post('/api/auth/signup', { organisation, name, email, password: TEST_PASSWORD }).expect(202);
+  const mail = await mailText(started.database, email);
+  await c.post('/api/auth/signup/confirm', { token: linkToken(mail.text, started.ctx.config.publicBaseUrl, 'signup') }).expect(201);
   return Object.assign(c, { email });
 }
+
+/** The decoded text of the newest message to an address, once at least `count` have arrived. */
+export async function mailText(database: Database, address: string, count = 1, timeoutMs = 5000) {
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const messages = await mailTo(database, address);
+    if (messages.length >= count) {
+      const parsed = await simpleParser(messages[0].raw);
+      return { subject: parsed.subject ?? '', text: parsed.text ?? '', row: messages[0] };
+    }
+    if (Date.now() > deadline) throw new Error(`fewer than ${count} mail(s) to ${address} within ${timeoutMs} ms`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+/** The token of the first `${base}/${kind}/<token>` link in a text. */
+export function linkToken(text: string, base: string, kind: 'invite' | 'reset' | 'signup'): string {
+  const escaped = base.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&');
+  const m = text.match(new RegExp(`${escaped}/${kind}/([A-Za-z0-9_-]+)`));
+  if (!m) throw new Error(`no ${kind} link in: ${text}`);
+  return m[1];
+}
+
+
 
 /** Messages the capture server stored for an address, newest first. */
 export async function mailTo(database: Database, address: string) {

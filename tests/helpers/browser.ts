@@ -11,6 +11,7 @@ import { join } from 'node:path';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import { configFromEnv, type ServerConfig } from '../../server/config.js';
 import { openDatabase, type Database } from '../../server/db/client.js';
+import { linkToken, mailText } from './app.js';
 import { startCaptureServer, type CaptureServer } from '../../server/mail/capture.js';
 import { startServer, type RunningServer } from '../../server/server.js';
 
@@ -121,6 +122,11 @@ export async function signedInOwnerPage(app: BrowserApp, organisation = 'Test El
     headers: { 'X-CSRF-Token': token },
     data: { organisation, name: 'Test Owner', email, password },
   });
-  if (res.status() !== 201) throw new Error(`sign-up failed: ${res.status()} ${await res.text()}`);
+  if (res.status() !== 202) throw new Error(`sign-up failed: ${res.status()} ${await res.text()}`);
+  const mail = await mailText(app.database, email);
+  const confirm = await page.request.post('/api/auth/signup/confirm', {
+    headers: { 'X-CSRF-Token': token }, data: { token: linkToken(mail.text, app.baseUrl, 'signup') },
+  });
+  if (confirm.status() !== 201) throw new Error(`sign-up link failed: ${confirm.status()} ${await confirm.text()}`);
   return { page, email, password, organisation };
 }
