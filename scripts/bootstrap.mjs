@@ -45,7 +45,7 @@ function hasMariadb() {
 function ensureDebianPackages() {
   // An external database needs no local server.
   const wanted = Object.entries(needs[task] ?? {})
-    .filter(([bin, pkg]) => !(pkg === 'mariadb-server' && (process.env.DATABASE_URL || hasMariadb())))
+    .filter(([, pkg]) => !(pkg === 'mariadb-server' && (process.env.DATABASE_URL || hasMariadb())))
     .filter(([bin]) => !existsSync(bin))
     .map(([, pkg]) => pkg);
   if (wanted.length === 0) return;

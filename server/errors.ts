@@ -2,6 +2,7 @@
  * The one error path. Use-cases throw these; the error middleware turns them and zod
  * errors into `{error: {code, message, fields?}}` with the right status.
  */
+import { causes } from './db/errors.js';
 import type { ErrorRequestHandler } from 'express';
 import { ZodError } from 'zod';
 import { fieldErrors } from '../shared/schemas/errors.js';
@@ -31,7 +32,7 @@ const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'PROTOCOL_CONNECTION_LOST', 'ETIM
 
 /** True when an error means the database cannot be reached (so the answer is 503, not 500). */
 export function isDatabaseDown(err: unknown): boolean {
-  for (let e: any = err; e; e = e.cause) {
+  for (const e of causes(err)) {
     if (typeof e.code === 'string' && DB_DOWN_CODES.has(e.code)) return true;
     if (typeof e.message === 'string' && /connect ECONNREFUSED|Connection lost|closed state|Pool is closed/i.test(e.message)) return true;
   }

@@ -1,4 +1,4 @@
-import { Router, type Request } from 'express';
+import { Router, type RequestHandler } from 'express';
 import rateLimit, { ipKeyGenerator } from 'express-rate-limit';
 import { perAddress } from '../http/limits.js';
 import { forgotPasswordSchema, linkTokenSchema, loginSchema, resetPasswordSchema, signupSchema } from '../../shared/schemas/auth.js';
@@ -17,15 +17,14 @@ import { signIn } from './sign-in.js';
  */
 function attemptLimiters(ctx: AppContext, what: string) {
   const windowMs = 15 * 60 * 1000;
-  const handler = (_req: Request, _res: unknown, next: (e: unknown) => void) =>
-    next(tooMany(`Too many ${what}; wait 15 minutes and try again`, windowMs / 1000));
-  const perIp = rateLimit({ windowMs, limit: ctx.config.rateLimits.loginPerIp, standardHeaders: 'draft-7', legacyHeaders: false, handler: handler as any });
+  const handler: RequestHandler = (_req, _res, next) => next(tooMany(`Too many ${what}; wait 15 minutes and try again`, windowMs / 1000));
+  const perIp = rateLimit({ windowMs, limit: ctx.config.rateLimits.loginPerIp, standardHeaders: 'draft-7', legacyHeaders: false, handler });
   // Counted per account AND address: a stranger's wrong guesses from elsewhere can never lock the real owner out,
   // while one address guessing at one account is still stopped (and the per-address limit bounds guessing across accounts).
   const perAccount = rateLimit({
     windowMs, limit: ctx.config.rateLimits.loginPerAccount, standardHeaders: 'draft-7', legacyHeaders: false,
     keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}|${ipKeyGenerator(req.ip ?? '')}`,
-    handler: handler as any,
+    handler,
   });
   return [perIp, perAccount];
 }

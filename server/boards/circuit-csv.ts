@@ -32,12 +32,15 @@ const BY_NAME = new Map(CIRCUIT_CSV_COLUMNS.map((c) => [c.name, c]));
 /** Separates the locations inside one cell: "Kitchen; Utility". */
 export const LOCATION_SEPARATOR = ';';
 
-function getPath(obj: any, path: string[]): unknown {
-  return path.reduce((o, k) => (o == null ? undefined : o[k]), obj);
+/** A loose object being built from CSV cells, checked by the circuit schema once complete. */
+type Loose = Record<string, unknown>;
+
+function getPath(obj: Loose, path: string[]): unknown {
+  return path.reduce<unknown>((o, k) => (o == null ? undefined : (o as Loose)[k]), obj);
 }
-function setPath(obj: any, path: string[], value: unknown): void {
+function setPath(obj: Loose, path: string[], value: unknown): void {
   let o = obj;
-  for (const k of path.slice(0, -1)) o = o[k] ??= {};
+  for (const k of path.slice(0, -1)) o = (o[k] ??= {}) as Loose;
   o[path[path.length - 1]] = value;
 }
 
@@ -104,14 +107,16 @@ interface Matching { byId: Map<string, Circuit>; byWay: Map<string, Circuit>; ta
 
 /** One data row as a checked circuit, or its faults keyed by column name. */
 function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Circuit } | { faults: Record<string, string> } {
-  const input: Record<string, any> = {};
+  const input: Loose = {};
   columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
-  const match = (input.id ? m.byId.get(input.id) : undefined) ?? m.byWay.get(`${input.way}/${input.phase ?? ''}`);
+  const match = (typeof input.id === 'string' ? m.byId.get(input.id) : undefined) ?? m.byWay.get(`${input.way}/${input.phase ?? ''}`);
   // Only `cable` is nested (locations are replaced whole), so copying it is a deep enough copy.
-  const merged: Record<string, any> = match ? { ...match, cable: { ...match.cable } } : {};
+  const merged: Loose = match ? { ...match, cable: { ...match.cable } } : {};
   for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
   // A second row on a matched way (without an id of its own) is a new circuit, not the same one twice.
-  if (merged.id === undefined || (!input.id && m.taken.has(merged.id))) merged.id = newCircuitId(merged.way, merged.phase, (id) => m.taken.has(id) || m.byId.has(id));
+  if (merged.id === undefined || (!input.id && m.taken.has(String(merged.id)))) {
+    merged.id = newCircuitId(merged.way as number, merged.phase as Circuit['phase'], (id) => m.taken.has(id) || m.byId.has(id));
+  }
   const parsed = circuitSchema.safeParse(merged);
   if (parsed.success) return { circuit: parsed.data };
   const faults: Record<string, string> = {};

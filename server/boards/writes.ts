@@ -3,6 +3,7 @@
  * revision 1, and a save against a base revision. Create, duplicate, import, the CSV import and
  * the demo seed all use these, so the revision rules hold everywhere.
  */
+import { isDuplicateKey } from '../db/errors.js';
 import type { Db } from '../db/client.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import { diffSchedules } from '../../shared/schedule/diff.js';
@@ -20,7 +21,6 @@ export function inTransaction<T>(db: Db, work: (tx: Db) => Promise<T>): Promise<
   return db.transaction((tx) => work(tx as unknown as Db));
 }
 
-const isDuplicate = (err: any) => err?.code === 'ER_DUP_ENTRY' || err?.cause?.code === 'ER_DUP_ENTRY';
 
 /** A site id given in a request body must be one of the organisation's sites: else 400 on that field. */
 export async function checkSiteField(db: Db, organisationId: number, siteId: number | null | undefined, field = 'siteId'): Promise<void> {
@@ -60,7 +60,7 @@ export async function createBoardRecord(db: Db, actor: Actor, schedule: Schedule
         return id;
       });
     } catch (err) {
-      if (!isDuplicate(err) || attempt >= 5) throw err;
+      if (!isDuplicateKey(err) || attempt >= 5) throw err;
     }
   }
 }

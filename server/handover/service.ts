@@ -5,12 +5,12 @@
  */
 import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
-import { notFound, unavailable } from '../errors.js';
+import { unavailable } from '../errors.js';
 import type { Handover, HandoverSend } from '../../shared/schemas/reports.js';
 import { printOptionSchemas } from '../../shared/schemas/print.js';
 import { loadPrintSource, type PrintSource } from '../print/source.js';
 import { renderWith, today } from '../print/service.js';
-import { findMemberBoard } from '../public/repository.js';
+import { requireMemberBoard } from '../boards/member-board.js';
 import { handoverMail } from './messages.js';
 import * as repo from './repository.js';
 
@@ -47,7 +47,7 @@ export async function sendHandover(ctx: AppContext, user: CurrentUser, boardId: 
 
 /** `GET /api/boards/:id/handovers`, newest first. */
 export async function boardHandovers(ctx: AppContext, organisationId: number, boardId: number): Promise<Handover[]> {
-  if (!(await findMemberBoard(ctx.db, organisationId, boardId))) throw notFound('No such board');
+  await requireMemberBoard(ctx.db, organisationId, boardId);
   const rows = await repo.listHandovers(ctx.db, boardId);
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }

@@ -2,6 +2,7 @@
  * Invitations: an owner invites an address with a role; the e-mail carries a single-use link
  * valid for 7 days; opening it lets the invitee choose a name and password and join.
  */
+import { isDuplicateKey } from '../db/errors.js';
 import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import type { AcceptInvitationInput, InvitationInfo, InviteInput, PendingInvitation } from '../../shared/schemas/auth.js';
@@ -77,7 +78,6 @@ export async function invitationByToken(db: Db, rawToken: string, now = new Date
   return { email: row.email, role: row.role, organisation: { name: row.organisationName }, expiresAt: row.expiresAt.toISOString() };
 }
 
-const isDuplicateKey = (err: any) => err?.cause?.code === 'ER_DUP_ENTRY' || err?.code === 'ER_DUP_ENTRY';
 
 /** Creates the member from a link and uses the link up, in one transaction. Returns the new user's id. */
 export async function acceptInvitation(db: Db, input: AcceptInvitationInput, now = new Date()): Promise<number> {

@@ -81,7 +81,7 @@ const advanceCache = new Map<FontFace, Map<number, number>>();
 const shapedCache = new Map<string, number>();
 const SHAPED_CACHE_MAX = 5000;
 
-function advance(face: FontFace, font: FontkitFont, cp: number, cache: Map<number, number>): number {
+function advance(font: FontkitFont, cp: number, cache: Map<number, number>): number {
   let a = cache.get(cp);
   if (a === undefined) {
     a = font.glyphForCodePoint(cp).advanceWidth / font.unitsPerEm;
@@ -100,7 +100,7 @@ function emWidth(text: string, face: FontFace): number {
     const cp = text.codePointAt(i)!;
     if (cp > 0xffff) i++;
     if (!isSimple(cp)) return shapedWidth(text, face, font);
-    sum += advance(face, font, cp, cache);
+    sum += advance(font, cp, cache);
   }
   return sum;
 }

@@ -125,26 +125,3 @@ export async function findPublicBoard(db: Db, token: string): Promise<PublicBoar
   return head && body ? { ...head, ...body } : null;
 }
 
-export interface MemberBoardRow {
-  id: number;
-  organisationId: number;
-  name: string;
-  code: string;
-  publicToken: string;
-  publicEnabled: boolean;
-  revision: number;
-  schedule: unknown;
-}
-
-/** A live board of the member's organisation, or null (unknown, deleted or another organisation's). */
-export async function findMemberBoard(db: Db, organisationId: number, boardId: number): Promise<MemberBoardRow | null> {
-  const [row] = await db
-    .select({
-      id: boards.id, organisationId: boards.organisationId, name: boards.name, code: boards.code,
-      publicToken: boards.publicToken, publicEnabled: boards.publicEnabled, revision: boards.revision, schedule: boards.schedule,
-    })
-    .from(boards)
-    .where(and(eq(boards.id, boardId), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
-    .limit(1);
-  return row ?? null;
-}

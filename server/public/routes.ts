@@ -12,8 +12,8 @@ import { tooMany } from '../errors.js';
 import { idParam, parse } from '../http/parse.js';
 import { reportSubmitSchema } from '../../shared/schemas/reports.js';
 import { submitReport } from '../reports/service.js';
-import { sendImage } from '../uploads/routes.js';
-import { publicBoardPage, publicLogo, sharingState } from './service.js';
+import { sendImage } from '../http/images.js';
+import { boardForToken, publicBoardPage, publicLogo, sharingState } from './service.js';
 
 const MINUTE = 60_000;
 const HOUR = 60 * MINUTE;
@@ -63,7 +63,7 @@ export function publicRoutes(ctx: AppContext): Router {
     limiter(HOUR, limits.reportsPerHour * BOARD_REPORTS_FACTOR, 'This board has had many reports recently; try again later', (req) => `board:${token(req)}`),
     async (req, res) => {
       const input = parse(reportSubmitSchema, req.body);
-      await submitReport(ctx, token(req), input);
+      await submitReport(ctx, await boardForToken(ctx.db, token(req)), input);
       res.status(202).json({ received: true });
     });
   return r;

@@ -15,7 +15,8 @@ import type { Sharing } from '../../shared/schemas/reports.js';
 import { nextInspectionDate } from '../../shared/rules/index.js';
 import { findLogo, type StoredImage } from '../uploads/repository.js';
 import { countOpenReports } from '../reports/repository.js';
-import { findMemberBoard, findPublicBoard, findPublicBoardBody, findPublicBoardHead } from './repository.js';
+import { findPublicBoard, findPublicBoardBody, findPublicBoardHead } from './repository.js';
+import { requireMemberBoard } from '../boards/member-board.js';
 
 /** Tokens are base64url; anything else cannot be one, so it is not looked up. */
 const TOKEN_SHAPE = /^[A-Za-z0-9_-]{16,64}$/;
@@ -95,8 +96,7 @@ export function publicUrlFor(config: Pick<ServerConfig, 'publicBaseUrl'>, token:
 
 /** `GET /api/boards/:id/sharing`. */
 export async function sharingState(db: Db, config: ServerConfig, organisationId: number, boardId: number): Promise<Sharing> {
-  const board = await findMemberBoard(db, organisationId, boardId);
-  if (!board) throw notFound('No such board');
+  const board = await requireMemberBoard(db, organisationId, boardId);
   return {
     boardId: board.id,
     name: board.name,

@@ -9,8 +9,7 @@ import { readStoredSchedule } from '../boards/stored.js';
 import { wayText } from '../../shared/schedule/derive.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import type { Report, ReportResolve, ReportSubmit } from '../../shared/schemas/reports.js';
-import { findMemberBoard } from '../public/repository.js';
-import { boardForToken } from '../public/service.js';
+import { requireMemberBoard } from '../boards/member-board.js';
 import { reportMail } from './messages.js';
 import * as repo from './repository.js';
 
@@ -46,13 +45,18 @@ async function notifyOrganisation(ctx: AppContext, organisationId: number, to: s
   }
 }
 
+/** What a report needs of the board it is sent from (the board page resolves its token to it). */
+export interface ReportedBoard {
+  id: number; organisationId: number; name: string; code: string; schedule: unknown;
+  organisation: { contactEmail: string | null };
+}
+
 /**
- * `POST /api/public/boards/:token/reports`. A filled honeypot is accepted silently and
- * nothing is stored, so a bot learns nothing from the answer.
+ * `POST /api/public/boards/:token/reports`, once the board page's token is resolved. A filled
+ * honeypot is accepted silently and nothing is stored, so a bot learns nothing from the answer.
  */
-export async function submitReport(ctx: AppContext, token: string, input: ReportSubmit): Promise<void> {
+export async function submitReport(ctx: AppContext, board: ReportedBoard, input: ReportSubmit): Promise<void> {
   if (input.website) return;
-  const board = await boardForToken(ctx.db, token);
   const schedule = readStoredSchedule(board.schedule);
   checkReportedWay(schedule, input);
   await repo.insertReport(ctx.db, {
@@ -70,9 +74,7 @@ const toReport = (row: repo.ReportRow): Report => ({
   ...row, resolvedAt: row.resolvedAt ? row.resolvedAt.toISOString() : null, createdAt: row.createdAt.toISOString(),
 });
 
-async function requireBoard(db: Db, organisationId: number, boardId: number): Promise<void> {
-  if (!(await findMemberBoard(db, organisationId, boardId))) throw notFound('No such board');
-}
+const requireBoard = async (db: Db, organisationId: number, boardId: number) => { await requireMemberBoard(db, organisationId, boardId); };
 
 export async function boardReports(db: Db, organisationId: number, boardId: number): Promise<Report[]> {
   await requireBoard(db, organisationId, boardId);

@@ -1,4 +1,5 @@
 /** Use-cases on sites: the organisation's private record of where its boards are and whose they are. */
+import { isStillReferenced } from '../db/errors.js';
 import type { Db } from '../db/client.js';
 import type { Site, SiteDetail, SiteInput } from '../../shared/schemas/site.js';
 import { conflict, notFound } from '../errors.js';
@@ -35,9 +36,9 @@ export async function deleteSite(db: Db, organisationId: number, id: number): Pr
       await detachDeletedBoards(tx, organisationId, id);
       await deleteSiteRow(tx, organisationId, id);
     });
-  } catch (err: any) {
+  } catch (err) {
     // A board put on the site since the count above: the foreign key keeps the site, and so do we.
-    if (err?.cause?.code === 'ER_ROW_IS_REFERENCED_2' || err?.code === 'ER_ROW_IS_REFERENCED_2') throw conflict('This site has boards: move or delete them first');
+    if (isStillReferenced(err)) throw conflict('This site has boards: move or delete them first');
     throw err;
   }
 }

@@ -2,21 +2,16 @@
  * Upload routes: the organisation logo (`/api/organisation/logo`) and board photos
  * (`/api/boards/:id/photos`). Uploads are multipart with one file in the field `file`.
  */
-import { Router, type Response } from 'express';
+import { Router } from 'express';
+import { sendImage } from '../http/images.js';
 import type { AppContext } from '../context.js';
 import { canEdit, ownerOnly, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
 import { photoCaptionSchema } from '../../shared/schemas/reports.js';
 import { LOGO_MAX_BYTES, PHOTO_MAX_BYTES, receiveOneFile, uploadedImage } from './receive.js';
-import type { StoredImage } from './repository.js';
 import { fitUpload, LOGO_STORED_SIDE_PX, PHOTO_STORED_SIDE_PX } from './pixels.js';
 import * as uploads from './service.js';
 
-/** Sends stored image bytes with the sniffed type; `cache` says who may keep a copy. */
-export function sendImage(res: Response, image: StoredImage, cache: string): void {
-  res.set({ 'Content-Type': image.mime, 'Content-Length': String(image.data.length), 'Cache-Control': cache, 'Content-Disposition': 'inline' });
-  res.end(image.data);
-}
 
 /** Mounted at `/organisation/logo`. */
 export function logoRoutes(ctx: AppContext): Router {

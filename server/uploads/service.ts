@@ -6,7 +6,7 @@
 import type { Db } from '../db/client.js';
 import { notFound } from '../errors.js';
 import type { Photo } from '../../shared/schemas/reports.js';
-import { findMemberBoard } from '../public/repository.js';
+import { requireMemberBoard } from '../boards/member-board.js';
 import type { ImageMime } from './sniff.js';
 import * as files from './repository.js';
 
@@ -25,7 +25,7 @@ export async function removeLogo(db: Db, organisationId: number): Promise<void> 
 }
 
 async function requireBoard(db: Db, organisationId: number, boardId: number): Promise<void> {
-  if (!(await findMemberBoard(db, organisationId, boardId))) throw notFound('No such board');
+  await requireMemberBoard(db, organisationId, boardId);
 }
 
 const toPhoto = (row: files.PhotoRow): Photo => ({ ...row, size: Number(row.size), createdAt: row.createdAt.toISOString() });

@@ -8,6 +8,7 @@ import { z } from 'zod';
 /** A UTF-16 high surrogate not followed by a low one, or a low one not preceded by a high one. */
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 /** C0 and C1 controls, DEL, and the Unicode line and paragraph separators. */
+// eslint-disable-next-line no-control-regex -- matching control characters is the point
 const CONTROL = /[\u0000-\u001F\u007F-\u009F\u2028\u2029]/;
 
 export const WELL_FORMED_MESSAGE = 'Contains a broken character (a lone UTF-16 surrogate)';

@@ -3,7 +3,7 @@ import { eq } from 'drizzle-orm';
 import request from 'supertest';
 import { invitations, users } from '../../server/db/schema.js';
 import { hashToken } from '../../server/auth/passwords.js';
-import { client, mailTo, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../helpers/app.js';
+import { client, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../helpers/app.js';
 import { addMember, inviteAndReadToken, linkToken, mailText } from '../helpers/accounts.js';
 
 let t: TestApp;

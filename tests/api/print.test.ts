@@ -6,7 +6,7 @@ import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.
 import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { scheduleSchema, type Schedule } from '../../shared/schemas/schedule.js';
 import { files } from '../../server/db/schema.js';
-import { getPdf, inkBox, MM, pdfPages, renderPage } from './print-support.js';
+import { getPdf, MM, pdfPages, renderPage } from './print-support.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { loginSchema } from '../../shared/schemas/auth.js';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
-import { mailText, uniqueEmail, waitForMail } from '../helpers/app.js';
+import { mailText, uniqueEmail } from '../helpers/app.js';
 
 let app: BrowserApp;
 beforeAll(async () => { app = await startBrowserApp(); });

@@ -5,7 +5,6 @@
  */
 import type { Express } from 'express';
 import request from 'supertest';
-import type { Database } from '../../server/db/client.js';
 import type { Role } from '../../shared/schemas/auth.js';
 import { client, linkToken, mailText, TEST_PASSWORD, uniqueEmail, type Client, type TestApp } from './app.js';
 

@@ -11,7 +11,7 @@ import { BLACK, WHITE, type Box, type FontFace, type Item, type LayoutDoc, type 
 import { narrowestTapeFor, TAPE_MAX_LENGTH_MM } from '../media.js';
 import { LayoutError } from '../types.js';
 import type { LayoutContext } from './context.js';
-import { overdueInspection, printedDate } from './dates.js';
+import { overdueInspection } from './dates.js';
 import { blockHeight, fitText, runsForLines, wrapText, type FitStyle } from './fit.js';
 import { noticeContent, noticesCalledFor, type NoticeContent } from './notice-content.js';
 import { placePieces, slotFor, type Piece, type Slot } from './place.js';

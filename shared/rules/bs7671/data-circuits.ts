@@ -27,7 +27,7 @@ function duplicateWays(view: ScheduleView): Finding[] {
   return out;
 }
 
-function deviceProblems(view: ScheduleView, f: CircuitFacts): Finding[] {
+function deviceProblems(f: CircuitFacts): Finding[] {
   const { circuit, device } = f;
   const name = circuitName(circuit);
   if (circuit.deviceId == null) {
@@ -87,6 +87,6 @@ export function checkCircuitData(view: ScheduleView): Finding[] {
   return [
     ...duplicateWays(view),
     ...duplicateIds(view),
-    ...view.circuits.flatMap((f) => [...deviceProblems(view, f), ...cableProblems(f), ...linkProblems(view, f)]),
+    ...view.circuits.flatMap((f) => [...deviceProblems(f), ...cableProblems(f), ...linkProblems(view, f)]),
   ];
 }

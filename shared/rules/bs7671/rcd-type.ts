@@ -35,7 +35,7 @@ function name(d: Device): string {
   return `${d.label ? `${d.label} (${plain})` : plain}, Type AC`;
 }
 
-function finding(d: Device, index: number, circuits: CircuitFacts[], severity: Severity, message: string): Finding {
+function finding(index: number, circuits: CircuitFacts[], severity: Severity, message: string): Finding {
   const ways = [...new Set(circuits.map((f) => f.circuit.way))].sort((a, b) => a - b);
   return { severity, code: 'rcd-type-ac', rule: RULE, ways, field: `devices.${index}.rcdType`, message };
 }
@@ -49,11 +49,11 @@ function checkDevice(view: ScheduleView, d: Device, index: number): Finding[] {
     const sockets = general.some((f) => f.circuit.kind !== 'sub-main');
     const subMain = general.some((f) => f.circuit.kind === 'sub-main');
     const what = [sockets ? 'socket-outlets' : '', subMain ? 'a sub-main' : ''].filter(Boolean).join(' and ');
-    return [finding(d, index, circuits, 'warning',
+    return [finding(index, circuits, 'warning',
       `${name(d)}: since A2:2022 Type AC may only serve fixed equipment whose load current is known to contain no DC components, but it protects ${what} (${texts(general)}); fit Type A (or F or B where the equipment needs it)`)];
   }
   if (fixed.length) {
-    return [finding(d, index, circuits, 'info',
+    return [finding(index, circuits, 'info',
       `${name(d)}: Type AC may only serve fixed equipment whose load current is known to contain no DC components; confirm that for ${texts(fixed)} (LED drivers, induction hobs and inverters often have them) or fit Type A`)];
   }
   return [];
