@@ -3,6 +3,7 @@
  * the same and comes before any lookup. The link is single use, lasts an hour, and using it
  * ends the account's other sessions (someone who knew the old password is signed out).
  */
+import { inTransaction } from '../db/client.js';
 import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import type { ResetPasswordInput } from '../../shared/schemas/auth.js';
@@ -50,8 +51,7 @@ export async function resetPassword(db: Db, input: ResetPasswordInput, currentSe
   const found = await lockPasswordReset(db, hashToken(input.token));
   if (!found || found.usedAt || found.expiresAt.getTime() <= now.getTime() || found.userDisabled) throw linkNotValid();
   const passwordHash = await hashPassword(input.password);
-  const userId = await db.transaction(async (txn) => {
-    const tx = txn as unknown as Db;
+  const userId = await inTransaction(db, async (tx) => {
     const reset = await lockPasswordReset(tx, hashToken(input.token));
     if (!reset || reset.usedAt || reset.expiresAt.getTime() <= now.getTime() || reset.userDisabled) throw linkNotValid();
     await setPasswordHash(tx, reset.userId, passwordHash);

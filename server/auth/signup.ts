@@ -4,6 +4,7 @@
  * a registered one gets a note saying so (with the way to reset its password). Nothing of the
  * account exists until the link is used, so a stranger cannot open an account on someone else's address.
  */
+import { inTransaction } from '../db/client.js';
 import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import type { SignupInput } from '../../shared/schemas/auth.js';
@@ -47,8 +48,7 @@ const linkNotValid = () => invalid('This sign-up link is not valid any more: sig
 /** Opens the account from a link: a new organisation with the signer as its owner. Returns the user's id. */
 export async function confirmSignup(db: Db, rawToken: string, now = new Date()): Promise<number> {
   const tokenHash = hashToken(rawToken);
-  return db.transaction(async (txn) => {
-    const tx = txn as unknown as Db;
+  return inTransaction(db, async (tx) => {
     const request = await lockSignupRequest(tx, tokenHash);
     if (!request || request.usedAt || request.expiresAt.getTime() <= now.getTime()) throw linkNotValid();
     // Registered meanwhile (an invitation, or a second link used first): this link cannot open another account.

@@ -3,6 +3,7 @@
  * revision 1, and a save against a base revision. Create, duplicate, import, the CSV import and
  * the demo seed all use these, so the revision rules hold everywhere.
  */
+import { inTransaction } from '../db/client.js';
 import { isDuplicateKey } from '../db/errors.js';
 import type { Db } from '../db/client.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
@@ -16,10 +17,6 @@ import { sameSchedule, searchTextOf } from './stored.js';
 /** Who is writing: the signed-in member (or the demo owner when seeding). */
 export interface Actor { id: number; name: string; organisationId: number }
 
-/** Runs a use-case in one transaction; the callback gets the transaction as a `Db`. */
-export function inTransaction<T>(db: Db, work: (tx: Db) => Promise<T>): Promise<T> {
-  return db.transaction((tx) => work(tx as unknown as Db));
-}
 
 
 /** A site id given in a request body must be one of the organisation's sites: else 400 on that field. */

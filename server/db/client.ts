@@ -41,3 +41,11 @@ export function openDatabase(url: string, opts: { connectionLimit?: number } = {
     close: () => pool.end(),
   };
 }
+
+/**
+ * Runs work in one transaction; the callback gets the transaction as a `Db` (drizzle types it as its own
+ * transaction class, which has every query method a `Db` has). The one place that cast is made.
+ */
+export function inTransaction<T>(db: Db, work: (tx: Db) => Promise<T>): Promise<T> {
+  return db.transaction((tx) => work(tx as unknown as Db));
+}

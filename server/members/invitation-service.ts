@@ -2,6 +2,7 @@
  * Invitations: an owner invites an address with a role; the e-mail carries a single-use link
  * valid for 7 days; opening it lets the invitee choose a name and password and join.
  */
+import { inTransaction } from '../db/client.js';
 import { isDuplicateKey } from '../db/errors.js';
 import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
@@ -87,8 +88,7 @@ export async function acceptInvitation(db: Db, input: AcceptInvitationInput, now
   if (!usable(await findInvitationByTokenHash(db, hashToken(input.token), false), now)) throw notValid();
   const passwordHash = await hashPassword(input.password);
   try {
-    return await db.transaction(async (txn) => {
-      const tx = txn as unknown as Db;
+    return await inTransaction(db, async (tx) => {
       const row = await findInvitationByTokenHash(tx, hashToken(input.token), true);
       if (!usable(row, now)) throw notValid();
       if (await findUserByEmail(tx, row.email)) throw alreadyRegistered();

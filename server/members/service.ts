@@ -1,4 +1,5 @@
 /** Use-cases of the members list: reading it, and an owner changing a member's role or access. */
+import { inTransaction } from '../db/client.js';
 import type { Db } from '../db/client.js';
 import type { Member, MemberUpdate } from '../../shared/schemas/auth.js';
 import { conflict, notFound } from '../errors.js';
@@ -23,8 +24,7 @@ function lastOwnerRefusal(change: MemberUpdate) {
  * their next request (the session's user is re-read every time). The last active owner is kept.
  */
 export async function changeMember(db: Db, organisationId: number, memberId: number, change: MemberUpdate): Promise<Member> {
-  return db.transaction(async (txn) => {
-    const tx = txn as unknown as Db;
+  return inTransaction(db, async (tx) => {
     const activeOwners = await lockActiveOwnerIds(tx, organisationId);
     const member = await findMember(tx, organisationId, memberId);
     if (!member) throw notFound('No such member in this organisation');

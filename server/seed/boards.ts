@@ -9,7 +9,8 @@ import { users } from '../db/schema.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import type { DemoBoardsSeeder } from './index.js';
 import { demoSites, type DemoBoard } from './demo-data.js';
-import { createBoardRecord, inTransaction, type Actor } from '../boards/writes.js';
+import { createBoardRecord, type Actor } from '../boards/writes.js';
+import { inTransaction } from '../db/client.js';
 import { insertSite, listSites } from '../sites/repository.js';
 
 /** The schedule with the sub-main circuits pointing at the boards they feed, now that those have ids. */

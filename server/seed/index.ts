@@ -2,7 +2,7 @@
  * The demo: an invented contractor, its members and boards. Idempotent: if the demo
  * organisation's owner exists, nothing is touched (a second start neither duplicates nor resets).
  */
-import type { Db } from '../db/client.js';
+import { inTransaction, type Db } from '../db/client.js';
 import { hashPassword } from '../auth/passwords.js';
 import { findUserByEmail, insertOrganisation, insertUser } from '../auth/repository.js';
 import { organisations } from '../db/schema.js';
@@ -18,16 +18,22 @@ export const DEMO_USERS: Array<{ email: string; name: string; role: Role }> = [
 
 export type DemoBoardsSeeder = (db: Db, organisationId: number, ownerId: number) => Promise<void>;
 
+/** Plainly invented, and says it is the demo wherever the name is printed. */
+export const DEMO_CONTRACTOR = 'Quillmarsh Electrical (demo)';
+
+/** All of it in one transaction: a start that fails half-way leaves no half-seeded demo that reads as present. */
 export async function seedDemo(db: Db, seedBoards?: DemoBoardsSeeder): Promise<'created' | 'present'> {
   if (await findUserByEmail(db, DEMO_USERS[0].email)) return 'present';
-  const organisationId = await insertOrganisation(db, 'Brightwire Electrical Ltd');
-  await db.update(organisations).set({ contactPhone: '01632 960 418', contactEmail: 'office@brightwire.example' }).where(eq(organisations.id, organisationId));
   const passwordHash = await hashPassword(DEMO_PASSWORD);
-  let ownerId = 0;
-  for (const u of DEMO_USERS) {
-    const id = await insertUser(db, { organisationId, email: u.email, name: u.name, role: u.role, passwordHash });
-    if (u.role === 'owner') ownerId = id;
-  }
-  if (seedBoards) await seedBoards(db, organisationId, ownerId);
-  return 'created';
+  return inTransaction(db, async (tx) => {
+    const organisationId = await insertOrganisation(tx, DEMO_CONTRACTOR);
+    await tx.update(organisations).set({ contactPhone: '01632 960 418', contactEmail: 'office@quillmarsh.example' }).where(eq(organisations.id, organisationId));
+    let ownerId = 0;
+    for (const u of DEMO_USERS) {
+      const id = await insertUser(tx, { organisationId, email: u.email, name: u.name, role: u.role, passwordHash });
+      if (u.role === 'owner') ownerId = id;
+    }
+    if (seedBoards) await seedBoards(tx, organisationId, ownerId);
+    return 'created' as const;
+  });
 }

@@ -3,7 +3,7 @@ import { isStillReferenced } from '../db/errors.js';
 import type { Db } from '../db/client.js';
 import type { Site, SiteDetail, SiteInput } from '../../shared/schemas/site.js';
 import { conflict, notFound } from '../errors.js';
-import { inTransaction } from '../boards/writes.js';
+import { inTransaction } from '../db/client.js';
 import { deleteSiteRow, detachDeletedBoards, findSite, insertSite, listSites, siteBoards, updateSite } from './repository.js';
 
 export async function listOrganisationSites(db: Db, organisationId: number, q?: string): Promise<{ items: Site[] }> {

@@ -131,10 +131,19 @@ export const scheduleResponseSchema = scheduleSchema.extend({
 });
 export type ScheduleResponse = z.infer<typeof scheduleResponseSchema>;
 
-/** `PUT /api/boards/:id/schedule`: the whole schedule and the revision it was edited from. */
+/**
+ * `PUT /api/boards/:id/schedule`: the whole schedule and the revision it was edited from. What GET
+ * answered can be sent back as it is: its read-only members (id, revision, updatedAt, code, siteId)
+ * are accepted and ignored, since the board's id is in the path and the rest is the server's to set.
+ */
 export const scheduleSaveSchema = scheduleSchema.extend({
   baseRevision: z.number({ error: 'baseRevision is required' }).int().min(1),
-});
+  id: z.unknown().optional(),
+  revision: z.unknown().optional(),
+  updatedAt: z.unknown().optional(),
+  code: z.unknown().optional(),
+  siteId: z.unknown().optional(),
+}).transform(({ id: _id, revision: _revision, updatedAt: _updatedAt, code: _code, siteId: _siteId, ...save }) => save);
 export type ScheduleSave = z.infer<typeof scheduleSaveSchema>;
 
 /**

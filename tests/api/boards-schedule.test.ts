@@ -11,6 +11,17 @@ afterAll(async () => { await t.close(); });
 const withoutMeta = ({ board, devices, circuits }: any) => ({ board, devices, circuits });
 
 describe('reading and saving a schedule', () => {
+  it('when what GET answered is sent back to PUT as it is, then it saves, and its read-only members are ignored', async () => {
+    const { id } = await createBoardWith(owner, makeSchedule(3));
+    const read = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
+    read.circuits[0].label = 'Kitchen sockets';
+    const res = await owner.put(`/api/boards/${id}/schedule`, { ...read, baseRevision: read.revision, code: 'WM-FORGED', siteId: 999999, id: 1 }).expect(200);
+    expect(res.body.revision).toBe(read.revision + 1);
+    const after = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
+    expect(after.circuits[0].label).toBe('Kitchen sockets');
+    expect([after.id, after.code, after.siteId]).toEqual([id, read.code, read.siteId]);
+  });
+
   it('when a schedule is saved, then it reads back identically with the next revision and a summary', async () => {
     const schedule = makeSchedule(6);
     const { id, revision } = await createBoardWith(owner, schedule);

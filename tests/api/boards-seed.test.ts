@@ -6,6 +6,7 @@ import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '../../server/seed/index.js'
 import { seedDemoBoards } from '../../server/seed/boards.js';
 import { demoSites } from '../../server/seed/demo-data.js';
 import { readStoredSchedule } from '../../server/boards/stored.js';
+import { isDuplicateKey } from '../../server/db/errors.js';
 
 let t: TestApp;
 beforeAll(async () => { t = await startTestApp(); });
@@ -15,8 +16,8 @@ afterAll(async () => { await t.close(); });
 async function seedOnce(): Promise<void> {
   try {
     await seedDemo(t.database.db, seedDemoBoards);
-  } catch (err: any) {
-    if (err?.cause?.code !== 'ER_DUP_ENTRY' && err?.code !== 'ER_DUP_ENTRY') throw err;
+  } catch (err) {
+    if (!isDuplicateKey(err)) throw err;
   }
 }
 

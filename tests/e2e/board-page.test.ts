@@ -39,7 +39,7 @@ async function storeDemoBoard(page: Page, contactEmail = uniqueEmail('office'), 
   const current = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as { revision: number };
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: current.revision } });
   expect(saved.status()).toBe(200);
-  await page.request.put('/api/organisation', { headers, data: { name: 'Brightwire Test Electrical', contactPhone: '01632 960418', contactEmail } });
+  await page.request.put('/api/organisation', { headers, data: { name: 'Quillmarsh Test Electrical', contactPhone: '01632 960418', contactEmail } });
   return id;
 }
 
@@ -61,7 +61,7 @@ function decodeTagQr(pdf: Buffer): string {
 
 describe('the board page on a phone, opened from the printed tag', { timeout: 180_000 }, () => {
   it('when the QR code of a generated tag is opened at 390×844, then the page loads small, searches "studio" to the right way and passes axe', async () => {
-    const { page: owner } = await signedInOwnerPage(app, 'Brightwire Test Electrical');
+    const { page: owner } = await signedInOwnerPage(app, 'Quillmarsh Test Electrical');
     const boardId = await storeDemoBoard(owner);
     const tag = await owner.request.get(`/api/boards/${boardId}/pdf/tag`);
     expect(tag.status()).toBe(200);
@@ -120,14 +120,14 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
   });
 
   it('when a visitor sends a report from the page, then the contractor gets it by e-mail', async () => {
-    const { page: owner } = await signedInOwnerPage(app, 'Brightwire Test Electrical');
+    const { page: owner } = await signedInOwnerPage(app, 'Quillmarsh Test Electrical');
     const contactEmail = uniqueEmail('office');
     const boardId = await storeDemoBoard(owner, contactEmail);
     const token = ((await (await owner.request.get(`/api/boards/${boardId}`)).json()) as { publicToken: string }).publicToken;
     const page = await app.newPage({ viewport: PHONE });
     page.setDefaultTimeout(60_000);
     await page.goto(`/b/${token}`);
-    await page.getByRole('button', { name: 'Tell Brightwire Test Electrical' }).click();
+    await page.getByRole('button', { name: 'Tell Quillmarsh Test Electrical' }).click();
     const message = page.getByLabel('What does not match? (required)');
     await message.waitFor();
     const axe = await new AxeBuilder({ page }).analyze();
@@ -135,14 +135,14 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     await message.fill('Way 8 also feeds the shed lights');
     await page.getByLabel('Which way? (optional)').selectOption('8');
     await page.getByRole('button', { name: 'Send report' }).click();
-    await page.getByText(/Your report has gone to Brightwire Test Electrical/).waitFor();
+    await page.getByText(/Your report has gone to Quillmarsh Test Electrical/).waitFor();
     const mail = await simpleParser((await waitForMail(app.database, contactEmail, 10_000)).raw);
     expect(mail.text).toContain('Way 8 also feeds the shed lights');
     expect(mail.text).toContain('Way: 8');
   });
 
   it('when the three-phase workshop board is opened at 390×844, then the 400 V caution, 400/230 V and "overdue" show in words, and a report names 4 L2', async () => {
-    const { page: owner } = await signedInOwnerPage(app, 'Brightwire Test Electrical');
+    const { page: owner } = await signedInOwnerPage(app, 'Quillmarsh Test Electrical');
     const contactEmail = uniqueEmail('office');
     const boardId = await storeDemoBoard(owner, contactEmail, workshop);
     const token = ((await (await owner.request.get(`/api/boards/${boardId}`)).json()) as { publicToken: string }).publicToken;
@@ -174,7 +174,7 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     await page.getByLabel('Find a way by room, place or name').fill('');
 
     // Each phase of way 4 can be picked in the report, and the contractor's e-mail names it.
-    await page.getByRole('button', { name: 'Tell Brightwire Test Electrical' }).click();
+    await page.getByRole('button', { name: 'Tell Quillmarsh Test Electrical' }).click();
     const wayPicker = page.getByLabel('Which way? (optional)');
     await wayPicker.waitFor();
     const choices = await wayPicker.locator('option').allTextContents();
@@ -182,7 +182,7 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     await page.getByLabel('What does not match? (required)').fill('Bench sockets moved to the east wall');
     await wayPicker.selectOption({ label: 'Way 4 L2' });
     await page.getByRole('button', { name: 'Send report' }).click();
-    await page.getByText(/Your report has gone to Brightwire Test Electrical/).waitFor();
+    await page.getByText(/Your report has gone to Quillmarsh Test Electrical/).waitFor();
     const mail = await simpleParser((await waitForMail(app.database, contactEmail, 10_000)).raw);
     expect(mail.text).toContain('Way: 4 L2');
 
