@@ -36,10 +36,10 @@ const oldWays: SurveyWayInput[] = [
   {
     id: 'old2', reference: 'Fuse 2', device: rewireable(30), feeds: 'Sockets, back of house: kitchen-diner side wall, back bedroom',
     identifiedBy: 'fuse-withdrawn', kind: 'ring', socketOutlets: true, cable: te(2.5, 1.5, 64), legs: 2,
-    readings: { insulation: insulation(40, 35), ring: { r1: 0.74, rn: 0.75, r2: 1.24 }, r1PlusR2: 0.5, polarity: 'correct', zs: 1.52 },
+    readings: { insulation: insulation(40, 35), ring: { r1: 0.74, rn: 0.75, r2: 1.24 }, r1PlusR2: 1.28, polarity: 'correct', zs: 1.52 },
     action: 'keep',
     targets: [{ circuitId: 'sockets-back', way: 4, label: 'Sockets back', kind: 'ring', device: rcbo(32), legs: [{ leg: 1 }, { leg: 2 }] }],
-    notes: 'Long ring with a spur to the garage; measured Zs is high for a B32.',
+    notes: 'Long ring with a spur to the garage; R1+R2 and Zs taken at the garage socket, the far end of the spur. Zs is high for a B32.',
   },
   {
     id: 'old3', reference: 'Fuse 3', device: rewireable(20), feeds: 'Kitchen: washing machine and worktop sockets (radial)',

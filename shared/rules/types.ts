@@ -20,6 +20,9 @@ export interface Finding {
   field?: string;
 }
 
+/** A before-you-swap finding about the old board's survey, not the board itself (its field starts `survey.`). */
+export const isSurveyFinding = (f: Pick<Finding, 'field'>): boolean => f.field?.startsWith('survey.') ?? false;
+
 export interface CheckContext {
   /** Today's date as YYYY-MM-DD: passed in, never read from a clock inside shared/. */
   today: string;

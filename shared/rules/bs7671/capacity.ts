@@ -10,6 +10,7 @@ import type { Cable } from '../../schemas/schedule.js';
 import type { Finding } from '../types.js';
 import { correctedIz, strongestFactor, type AppliedFactor } from './correction-factors.js';
 import { RING_FINAL, TABLE_4D5, type TwinEarthMethod, type TwinEarthRow } from './tables.js';
+import { BS3036_OVERLOAD_FACTOR, RING_RULE_FUSES } from './tables-fuses.js';
 import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
 
 /** A corrected capacity as printed: to 0.1 A, rounded down so a message never overstates it. */
@@ -67,6 +68,17 @@ function checkRing(f: CircuitFacts, cap: Capacity, tabulated: number): Finding[]
     `${circuitName(circuit)}: a 2.5 mm² ring final on a ${deviceName(device!)} ${message}`)];
 }
 
+/** 433.1.202: a BS 3036 fuse's rating may be at most 0.725 of the cable's Iz. */
+function checkSemiEnclosed(f: CircuitFacts, cap: Capacity, tabulated: number): Finding[] {
+  const { circuit, device } = f;
+  const rating = device!.rating!;
+  const allowed = BS3036_OVERLOAD_FACTOR * cap.iz;
+  if (rating <= allowed + 1e-9) return [];
+  const cable = circuit.cable;
+  return [circuitFinding(f, 'error', 'rating-over-0725-iz', 'BS 7671 433.1.202', blamedField(cap, rating <= BS3036_OVERLOAD_FACTOR * tabulated, 'cable.liveCsa'),
+    `${circuitName(circuit)}: a ${num(rating)} A BS 3036 rewireable fuse needs In ≤ 0.725 × Iz, but 0.725 × ${amps(cap.iz)} A = ${amps(allowed)} A for ${num(cable.liveCsa!)} mm² twin-and-earth ${cap.basis}; a larger cable, or a lower rating, is needed`)];
+}
+
 function checkCircuit(f: CircuitFacts): Finding[] {
   const { circuit, device } = f;
   if (!device || !isOvercurrentDevice(device) || device.rating == null) return [];
@@ -82,8 +94,11 @@ function checkCircuit(f: CircuitFacts): Finding[] {
       ? circuitFinding(f, 'error', 'ambient-over-cable-limit', 'BS 7671 Table 4B1', cap.field, `${circuitName(circuit)}: ${cap.why}`)
       : unchecked(f, cap.field, cap.why)];
   }
-  const isRecognisedRing = circuit.kind === 'ring' && cable.liveCsa === RING_FINAL.liveCsa && (RING_FINAL.ratings as readonly number[]).includes(device.rating);
+  // 433.1.204 names breakers and BS 88 fuses; a rewireable fuse's ring is checked by 0.725 below.
+  const ringDevice = device.kind !== 'fuse' || (device.fuseStandard != null && RING_RULE_FUSES.includes(device.fuseStandard));
+  const isRecognisedRing = ringDevice && circuit.kind === 'ring' && cable.liveCsa === RING_FINAL.liveCsa && (RING_FINAL.ratings as readonly number[]).includes(device.rating);
   if (isRecognisedRing) return checkRing(f, cap, tabulated);
+  if (device.kind === 'fuse' && device.fuseStandard === 'BS 3036') return checkSemiEnclosed(f, cap, tabulated);
   if (device.rating <= cap.iz) return [];
   return [circuitFinding(f, 'error', 'rating-over-iz', 'BS 7671 433.1.1', blamedField(cap, device.rating <= tabulated, 'cable.liveCsa'),
     `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${amps(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`)];

@@ -4,16 +4,18 @@
  */
 import type { Circuit, Device, Schedule } from '../../schemas/schedule.js';
 import type { Finding } from '../types.js';
+import type { FuseStandard } from '../../schemas/survey.js';
+import { TABLE_41_2, TABLE_41_4 } from './tables-fuses.js';
 import { AMBIENT_RULE_OF_THUMB, CMIN, FINAL_CIRCUIT_0_4S, INSTANT_TRIP_MULTIPLE, TABLE_41_3, table41_5MaxZs } from './tables.js';
 import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, ohms, type CircuitFacts, type ScheduleView } from './view.js';
 
 /** The maximum Zs for a circuit and where it comes from, as the chart and the findings quote it. */
 export interface ZsLimit {
   ohms: number;
-  table: 'Table 41.3' | 'Table 41.5';
+  table: 'Table 41.2' | 'Table 41.3' | 'Table 41.4' | 'Table 41.5';
   /** Disconnection time the limit is for; null for Table 41.5 (RCD operation). */
   seconds: 0.4 | 5 | null;
-  /** What the limit is for, e.g. "B32" or "30 mA RCD". */
+  /** What the limit is for, e.g. "B32", "30 A BS 3036 fuse" or "30 mA RCD". */
   basis: string;
   /** True when the rating is not printed in the table and the value comes from the table's formula. */
   derived: boolean;
@@ -35,11 +37,23 @@ export function disconnectionSeconds(circuit: Circuit, device: Device): 0.4 | 5 
  * so the chart can print it beside the circuit. Null when the device is not a breaker with curve and rating.
  */
 export function maxZs(device: Device, circuit: Circuit): ZsLimit | null {
+  if (device.kind === 'fuse') return fuseMaxZs(device.fuseStandard ?? null, device.rating, disconnectionSeconds(circuit, device));
   if (!isOvercurrentDevice(device) || device.curve == null || device.rating == null) return null;
   const printed = TABLE_41_3[device.curve][device.rating];
   // Ratings the table does not print: its own formula, to three significant figures (the table's precision at common sizes).
   const value = printed ?? Number(((CMIN * 230) / (INSTANT_TRIP_MULTIPLE[device.curve] * device.rating)).toPrecision(3));
   return { ohms: value, table: 'Table 41.3', seconds: disconnectionSeconds(circuit, device), basis: `${device.curve}${device.rating}`, derived: printed == null };
+}
+
+/**
+ * Table 41.2 (0.4 s) or Table 41.4 (5 s) maximum Zs for a fuse, by its standard and rating; null when the
+ * standard or rating is unknown, or the table is not held for it (the caller reports it unchecked).
+ */
+export function fuseMaxZs(standard: FuseStandard | null, rating: number | null, seconds: 0.4 | 5): ZsLimit | null {
+  if (standard == null || rating == null) return null;
+  const value = (seconds === 0.4 ? TABLE_41_2 : TABLE_41_4)[standard]?.[rating];
+  if (value == null) return null;
+  return { ohms: value, table: seconds === 0.4 ? 'Table 41.2' : 'Table 41.4', seconds, basis: `${rating} A ${standard} fuse`, derived: false };
 }
 
 /**
@@ -70,13 +84,16 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   }
   const limit = zsLimit(view.schedule, f);
   if (!limit) {
-    const what = f.device ? `its device (${deviceName(f.device)}) has no recorded curve and rating` : 'it has no protective device recorded';
-    out.push(circuitFinding(f, 'info', 'zs-not-checked', 'BS 7671 Table 41.3', 'measuredZs',
+    const fuse = f.device?.kind === 'fuse';
+    const what = !f.device ? 'it has no protective device recorded'
+      : fuse ? `its fuse (${deviceName(f.device)}) has no recorded standard and rating, or one our copy of the table does not hold`
+        : `its device (${deviceName(f.device)}) has no recorded curve and rating`;
+    out.push(circuitFinding(f, 'info', 'zs-not-checked', fuse ? 'BS 7671 Tables 41.2 and 41.4' : 'BS 7671 Table 41.3', 'measuredZs',
       `${name}: measured Zs ${ohms(measured)} not checked because ${what}`));
   } else if (measured > limit.ohms) {
     out.push(circuitFinding(f, 'error', 'zs-over-max', `BS 7671 ${limit.table}`, 'measuredZs',
       `${name}: measured Zs ${ohms(measured)} exceeds the ${limitText(limit)}`));
-  } else if (f.circuit.zsAtAmbient && limit.table === 'Table 41.3' && measured > limit.ohms * AMBIENT_RULE_OF_THUMB) {
+  } else if (f.circuit.zsAtAmbient && limit.table !== 'Table 41.5' && measured > limit.ohms * AMBIENT_RULE_OF_THUMB) {
     out.push(circuitFinding(f, 'warning', 'zs-over-rule-of-thumb', 'IET guidance: 80 % rule of thumb', 'measuredZs',
       `${name}: measured Zs ${ohms(measured)} is within the ${limitText(limit)} but above 80 % of it (${ohms(limit.ohms * AMBIENT_RULE_OF_THUMB)}), the rule of thumb in IET guidance for a reading taken cold; conductors warm in use and Zs rises`));
   }

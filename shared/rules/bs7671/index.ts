@@ -14,9 +14,12 @@ import { checkInspection, nextInspectionOn } from './inspection.js';
 import { checkLightingSpread } from './lighting-spread.js';
 import { checkRcdType } from './rcd-type.js';
 import { viewOf } from './view.js';
+import { checkReadings } from './readings-check.js';
+import { checkChangeover } from './changeover.js';
 import { checkVoltageDrop } from './voltage-drop.js';
 
-export { maxZs, zsLimit, disconnectionSeconds, type ZsLimit } from './earth-fault-loop.js';
+export { maxZs, fuseMaxZs, zsLimit, disconnectionSeconds, type ZsLimit } from './earth-fault-loop.js';
+export { checkChangeover, oldWayName } from './changeover.js';
 export { twinEarthIz } from './capacity.js';
 export { estimatedVoltageDrop } from './voltage-drop.js';
 export { waysText } from './view.js';
@@ -40,6 +43,8 @@ export const bs7671: RuleSet = {
       ...checkVoltageDrop(view),
       ...checkLightingSpread(view),
       ...checkInspection(schedule.board, context, nextInspectionOn(schedule.board)),
+      ...checkReadings(view),
+      ...checkChangeover(schedule),
     ];
   },
   nextInspectionDate: nextInspectionOn,

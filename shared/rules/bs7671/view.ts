@@ -80,5 +80,5 @@ export function waysOfDevice(view: ScheduleView, deviceId: string): number[] {
 
 /** Devices that can give overcurrent protection to a circuit (an AFDD counts when it carries a breaker rating). */
 export function isOvercurrentDevice(d: Device): boolean {
-  return d.kind === 'mcb' || d.kind === 'rcbo' || (d.kind === 'afdd' && d.rating != null);
+  return d.kind === 'mcb' || d.kind === 'rcbo' || d.kind === 'fuse' || (d.kind === 'afdd' && d.rating != null);
 }

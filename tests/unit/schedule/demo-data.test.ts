@@ -14,9 +14,16 @@ describe('demo data', () => {
     for (const s of demoSites) expect(siteInputSchema.parse(s.site)).toEqual(s.site);
   });
 
-  it('when the boards are checked, then the only error is the deliberate old radial on flat way 5', () => {
-    const errors = boards.flatMap((b) => checkSchedule(b.schedule, { today: TODAY }).filter((f) => f.severity === 'error').map((f) => `${b.key} ${f.code} ${f.ways}`));
-    expect(errors).toEqual(['flat-main rating-over-iz 5']); // 32 A on 2.5 mm² at method 103, Iz 13.5 A (BS 7671 Table 4D5, from memory)
+  it('when the boards are checked, then the only errors are the deliberate old radial on flat way 5 and the bungalow\'s two before-you-swap failures', () => {
+    const errors = boards.flatMap((b) => checkSchedule(b.schedule, { today: TODAY }).filter((f) => f.severity === 'error').map((f) => `${b.key} ${f.code} ${f.field ?? f.ways}`));
+    expect(errors).toEqual([
+      'flat-main rating-over-iz circuits.4.cable.liveCsa', // 32 A on 2.5 mm² at method 103, Iz 13.5 A (BS 7671 Table 4D5, from memory)
+      // The back ring's 1.52 Ω is over the 1.37 Ω of the B32 it is planned onto (BS 7671:2018+A2 Table 41.3, found)
+      'bungalow swap-zs-over-new-limit survey.ways.1.readings.zs',
+      // The kitchen radial's N–E 0.4 MΩ at 500 V is below Table 64's 1 MΩ (from memory) and will trip its new RCBO
+      'bungalow insulation-below-table-64 survey.ways.2.readings.insulation.neutralEarth',
+      'bungalow swap-insulation-will-trip-rcd survey.ways.2.readings.insulation.neutralEarth',
+    ]);
     const warnings = checkSchedule(byKey.get('flat-main')!.schedule, { today: TODAY }).filter((f) => f.severity === 'warning');
     expect(warnings.map((f) => f.code)).toEqual(['zs-over-rule-of-thumb']); // 1.21 Ω > 0.8 × 1.37 Ω (Table 41.3, IET rule of thumb)
     // The workshop's 6 kA RCBOs sit below its 6.4 kA PFC: a warning to confirm the board's conditional rating (BS 7671 434.5.1, from memory)

@@ -3,6 +3,7 @@
  * the way table running over as many pages as it needs with its header row repeated, the
  * findings, and on every page the caution, the revision and the page number.
  */
+import { isSurveyFinding } from '../../../../shared/rules/types.js';
 import { circuitsInWayOrder, wayText } from '../../../../shared/schedule/derive.js';
 import { waysText } from '../../../../shared/rules/index.js';
 import { BLACK, GREY, RED, type Box, type LayoutDoc, type LayoutPage } from '../../model.js';
@@ -33,9 +34,11 @@ function footerLines(ctx: LayoutContext<'chart'>, k: number, page: number, pages
 
 function findingParagraphs(ctx: LayoutContext<'chart'>): Paragraph[] {
   if (!ctx.options.showFindings) return [];
-  if (ctx.req.findings.length === 0) return [{ text: 'None from the wiring-rule checks.', face: 'regular' }];
+  // The survey's findings are about the old board: they go on the changeover sheet, not this board's chart.
+  const findings = ctx.req.findings.filter((f) => !isSurveyFinding(f));
+  if (findings.length === 0) return [{ text: 'None from the wiring-rule checks.', face: 'regular' }];
   const word = { error: 'Must fix', warning: 'Check', info: 'Note' } as const;
-  return ctx.req.findings.map((f) => ({
+  return findings.map((f) => ({
     text: `${word[f.severity]} · ${f.ways.length ? `${waysText(f.ways)} · ` : ''}${f.rule}: ${f.message}`,
     face: f.severity === 'info' ? 'regular' : 'bold', color: f.severity === 'error' ? RED : BLACK,
   }));
