@@ -7,7 +7,7 @@ import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import { scheduleSaveSchema } from '../../shared/schemas/schedule.js';
 import {
-  baseRevisionQuerySchema, boardCreateSchema, boardListQuerySchema, boardPatchSchema, boardPublicSchema, circuitCsvImportSchema, diffQuerySchema,
+  baseRevisionQuerySchema, boardCreateSchema, changeoverApplySchema, boardListQuerySchema, boardPatchSchema, boardPublicSchema, circuitCsvImportSchema, diffQuerySchema,
 } from '../../shared/schemas/boards.js';
 import { canEdit, ownerOnly, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
@@ -16,12 +16,13 @@ import { deleteBoard, duplicateBoard, patchBoard, restoreBoard, rotatePublicToke
 import { boardRevision, boardRevisions, diffRevisions } from './history.js';
 import { exportBoardFile, exportCircuitsCsv, importBoardFile, importCircuitsCsv, parseBoardImport } from './files.js';
 import type { SaveOutcome } from './writes.js';
+import { applyChangeover, type ApplyOutcome } from './changeover.js';
 
 const actor = (req: Request) => ({ id: req.user!.id, name: req.user!.name, organisationId: req.user!.organisationId });
 const org = (req: Request) => req.user!.organisationId;
 
 /** 200 with the new revision, or 409 `stale` carrying the board's current revision so the editor can reload. */
-function sendSave(res: Response, outcome: SaveOutcome): void {
+function sendSave(res: Response, outcome: SaveOutcome | ApplyOutcome): void {
   if (outcome.status === 'stale') {
     res.status(409).json({
       error: {
@@ -33,7 +34,8 @@ function sendSave(res: Response, outcome: SaveOutcome): void {
     });
     return;
   }
-  res.json({ revision: outcome.revision, summary: outcome.summary, changed: outcome.changed });
+  const { created, updated } = outcome as ApplyOutcome;
+  res.json({ revision: outcome.revision, summary: outcome.summary, changed: outcome.changed, ...(created ? { created, updated } : {}) });
 }
 
 const attachment = (res: Response, name: string) => res.set('Content-Disposition', `attachment; filename="${name}"`);
@@ -81,6 +83,10 @@ function mountSchedule(r: Router, db: Db): void {
   r.put('/:id/schedule', canEdit, async (req, res) => {
     const id = idParam(req.params);
     sendSave(res, await saveSchedule(db, actor(req), id, parse(scheduleSaveSchema, req.body)));
+  });
+  r.post('/:id/changeover/apply', canEdit, async (req, res) => {
+    const id = idParam(req.params);
+    sendSave(res, await applyChangeover(db, actor(req), id, parse(changeoverApplySchema, req.body).baseRevision));
   });
   r.get('/:id/check', async (req, res) => {
     res.json(await checkBoard(db, org(req), idParam(req.params)));

@@ -68,7 +68,7 @@ const oldWays: SurveyWayInput[] = [
     kind: 'lighting', cable: te(1, 1, 24), legs: 1,
     readings: { insulation: insulation(180, 160), r1PlusR2: 0.8, polarity: 'correct', zs: 1.14 },
     action: 'join',
-    targets: [{ circuitId: 'lights', way: 6, label: 'Lights', kind: 'lighting', device: rcbo(6), legs: [{ leg: 2 }] }],
+    targets: [{ circuitId: 'lights', way: 6, label: 'Lights', kind: 'lighting', device: rcbo(6), legs: [{ leg: 1 }] }],
   },
   {
     id: 'old7', reference: 'Fuse 7 (no label)', device: rewireable(15), feeds: 'Nothing found: cable cut off in the loft',

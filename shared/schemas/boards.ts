@@ -125,3 +125,17 @@ export const circuitCsvImportSchema = z.strictObject({
   baseRevision: z.number({ error: 'baseRevision is required' }).int().min(1),
 });
 export const baseRevisionQuerySchema = z.object({ baseRevision: queryInt(1, 2_147_483_647) });
+
+/** `POST /api/boards/:id/changeover/apply`: make the new board's circuits and devices from the survey's plan. */
+export const changeoverApplySchema = z.strictObject({
+  baseRevision: z.number({ error: 'baseRevision is required' }).int().min(1),
+});
+/** Its answer: the save's outcome and the circuits the plan made or updated, by id. */
+export const changeoverApplyResponseSchema = z.object({
+  revision: z.number().int(),
+  summary: z.string(),
+  changed: z.boolean(),
+  created: z.array(z.string()),
+  updated: z.array(z.string()),
+});
+export type ChangeoverApplyResponse = z.infer<typeof changeoverApplyResponseSchema>;

@@ -108,7 +108,7 @@ export type PlannedDevice = z.infer<typeof plannedDeviceSchema>;
 
 /** One cable leg of an old way as it reaches the new board: direct, or through a junction box. */
 export const plannedLegSchema = z.strictObject({
-  /** 1 and 2 for the legs of a ring. */
+  /** Which of the old way's legs this is (1 and 2 for a ring's); a target naming no legs takes them all when it is the only one. */
   leg: z.number().int().min(1, 'Legs start at 1').max(8, 'At most 8 legs'),
   /** The junction box the leg is extended through; null when the old cable reaches the new board. */
   junctionBoxId: key.nullable().default(null),

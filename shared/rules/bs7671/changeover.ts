@@ -14,6 +14,7 @@ import { judgeRcdTrip, judgeReadings } from './readings.js';
 import { AMBIENT_RULE_OF_THUMB, RING_FINAL } from './tables.js';
 import { BS3036_OVERLOAD_FACTOR, LOW_INSULATION_MEGOHMS, RING_RULE_FUSES } from './tables-fuses.js';
 import { num, ohms } from './view.js';
+import { legsOf } from '../../schedule/apply-plan.js';
 
 /** "Old Fuse 2 (sockets, back of house…)": how every survey finding opens. */
 export function oldWayName(w: SurveyWay): string {
@@ -149,9 +150,9 @@ function judgePlan(c: Ctx, known: Set<string>) {
     });
   });
   // Every leg of the old cable ends on a new way: a ring's two legs both land, or the plan says otherwise.
-  const landed = new Set(w.targets.flatMap((t) => (t.legs.length ? t.legs.map((l) => l.leg) : [1])));
+  const landed = new Set(w.targets.flatMap((t) => legsOf(w, t)));
   const missing = Array.from({ length: w.legs }, (_, i) => i + 1).filter((leg) => !landed.has(leg));
-  if (w.action !== 'join' && missing.length) {
+  if (missing.length) {
     push(c, 'warning', 'swap-leg-not-planned', 'Common practice', 'targets', w.targets.map((t) => t.way),
       `leg${missing.length > 1 ? 's' : ''} ${missing.join(' and ')} of ${w.legs} ${missing.length > 1 ? 'are' : 'is'} not planned onto a new way: every leg must end on a new way, or the way be marked retired`);
   }
