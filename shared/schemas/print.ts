@@ -31,6 +31,11 @@ const flagOptions = z.strictObject({
   /** Only the ways whose label content changed since this revision. */
   changedSince: z.coerce.number().int().min(1).optional(),
   ways: z.string().regex(/^\d+(,\d+)*$/, 'Comma-separated way numbers').optional(),
+  /**
+   * Where the flags go: at the board (each leg of each circuit), or at the junction boxes of a
+   * changeover (one flag per planned leg through a box, naming the old way and the new way).
+   */
+  at: z.enum(['board', 'junction-boxes']).default('board'),
 });
 
 const wayLabelOptions = z.strictObject({

@@ -13,6 +13,7 @@ import { cablePerimeter, DEFAULT_CSA } from './cable.js';
 import { wayFilter, type LayoutContext } from './context.js';
 import { fitText, type FitStyle } from './fit.js';
 import { placePieces, slotFor, type Piece, type Slot } from './place.js';
+import { junctionBoxFlagTexts } from './junction-flags.js';
 
 /** Flag height when tiled on a plain sheet (mm). // common practice */
 const PAGE_FLAG_HEIGHT_MM = 15;
@@ -20,6 +21,12 @@ const PAGE_FLAG_HEIGHT_MM = 15;
 const MIN_PANEL_MM = 12;
 
 export interface FlagSpec { circuit: Circuit; leg: number; legs: number; end: 'board' | 'far'; wrapMm: number }
+
+/**
+ * What one flag says and how far it wraps, whatever it marks (a circuit's leg at the board, a leg
+ * at a junction box): the big cell (`way`), the label, the small info line, and the name warnings use.
+ */
+export interface FlagText { name: string; way: string; label: string; info: string; wrapMm: number }
 
 /** Panel length for a band height: long enough for the way number and a 24-character label. */
 export function panelLengthFor(heightMm: number): number {
@@ -57,7 +64,12 @@ function infoText(spec: FlagSpec, ctx: LayoutContext<'flags'>): string {
     .filter(Boolean).join(' · ');
 }
 
-interface PanelText { way: string; label: string; info: string }
+type PanelText = Pick<FlagText, 'way' | 'label' | 'info'>;
+
+/** The text of a flag at the board: way number, circuit label, device, board code and leg. */
+export function boardFlagText(spec: FlagSpec, ctx: LayoutContext<'flags'>): FlagText {
+  return { name: `Way ${wayText(spec.circuit)} flag`, way: wayText(spec.circuit), label: spec.circuit.label, info: infoText(spec, ctx), wrapMm: spec.wrapMm };
+}
 
 /** Points of size whose line (ascender + descender) fills `heightMm`. // DejaVu: 1.164 em */
 const ptFilling = (heightMm: number) => heightMm / (1.164 * (25.4 / 72));
@@ -137,27 +149,35 @@ function foldTicks(x: number, heightMm: number): Item[] {
 }
 
 /** One flag as a piece sized for the slot. */
-export function flagPiece(spec: FlagSpec, slot: Slot, ctx: LayoutContext<'flags'>): Piece {
-  const name = `Way ${wayText(spec.circuit)} flag`;
-  const text: PanelText = { way: wayText(spec.circuit), label: spec.circuit.label, info: infoText(spec, ctx) };
+export function flagPiece(flag: FlagText, slot: Slot, ctx: LayoutContext<'flags'>): Piece {
+  const { name, wrapMm } = flag;
+  const text: PanelText = { way: flag.way, label: flag.label, info: flag.info };
   const h = slot.heightMm;
   let panel = neededPanel(text, h, slot.endMarginMm, ctx);
   if (slot.kind === 'fixed') {
-    panel = (slot.widthMm - spec.wrapMm) / 2;
-    if (panel < MIN_PANEL_MM) throw new LayoutError(`${name} needs labels at least ${(spec.wrapMm + 2 * MIN_PANEL_MM).toFixed(0)} mm long (wrap ${spec.wrapMm.toFixed(1)} mm round the cable plus two panels); these are ${slot.widthMm} mm`, 'media');
+    panel = (slot.widthMm - wrapMm) / 2;
+    if (panel < MIN_PANEL_MM) throw new LayoutError(`${name} needs labels at least ${(wrapMm + 2 * MIN_PANEL_MM).toFixed(0)} mm long (wrap ${wrapMm.toFixed(1)} mm round the cable plus two panels); these are ${slot.widthMm} mm`, 'media');
   }
-  const length = 2 * panel + spec.wrapMm;
+  const length = 2 * panel + wrapMm;
   if (slot.kind === 'free' && length > slot.maxLengthMm + 1e-6) throw new LayoutError(`${name} is ${length.toFixed(0)} mm long and does not fit across ${ctx.req.medium.id}: use a wider page or tape`, 'media');
   const a = panelItems(text, name, panel, h, slot.endMarginMm, ctx);
-  const b = mapItems(a, placeFrame(panel, h, { x: panel + spec.wrapMm, y: 0, w: panel, h }, 180));
-  return { name, widthMm: length, heightMm: h, items: [...a, ...b, ...foldTicks(panel, h), ...foldTicks(panel + spec.wrapMm, h)] };
+  const b = mapItems(a, placeFrame(panel, h, { x: panel + wrapMm, y: 0, w: panel, h }, 180));
+  return { name, widthMm: length, heightMm: h, items: [...a, ...b, ...foldTicks(panel, h), ...foldTicks(panel + wrapMm, h)] };
 }
 
-/** Cable flags for the circuits asked for, on tape (page per flag or one strip) or tiled on sheets. */
+/**
+ * Cable flags on tape (page per flag or one strip) or tiled on sheets: for the circuits asked for at
+ * the board, or (`at=junction-boxes`) for each planned leg extended through a junction box.
+ */
 export function layoutFlags(ctx: LayoutContext<'flags'>): LayoutDoc {
   const slot = slotFor(ctx.req.medium, PAGE_FLAG_HEIGHT_MM);
-  const pieces = flagSpecs(ctx).map((s) => flagPiece(s, slot, ctx));
-  if (pieces.length === 0) ctx.warnings.add({ code: 'nothing-to-print', message: 'No circuits match: there are no cable flags to print' });
+  const atBoxes = ctx.options.at === 'junction-boxes';
+  const flags = atBoxes ? junctionBoxFlagTexts(ctx) : flagSpecs(ctx).map((s) => boardFlagText(s, ctx));
+  const pieces = flags.map((f) => flagPiece(f, slot, ctx));
+  if (pieces.length === 0) {
+    const message = atBoxes ? 'No planned leg goes through a junction box: there are no junction-box flags to print' : 'No circuits match: there are no cable flags to print';
+    ctx.warnings.add({ code: 'nothing-to-print', message });
+  }
   const pages = placePieces(pieces, ctx.req.medium, ctx.tm, ctx.options.layout === 'strip');
   return { title: `${ctx.req.board.code} cable flags`, pages, warnings: ctx.warnings.list };
 }

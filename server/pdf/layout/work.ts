@@ -13,15 +13,21 @@ import { wayFilter } from './context.js';
  */
 export const MAX_FLAGS_PER_PRINT = 2000;
 
-/** Flags a flags print would make: each leg of each wanted circuit, at one end or both. */
-export function flagCount(schedule: Schedule, options: { legs?: number; bothEnds: boolean; ways?: string }, onlyWays?: number[]): number {
+type FlagWork = { legs?: number; bothEnds: boolean; ways?: string; at?: 'board' | 'junction-boxes' };
+
+/** Flags a flags print would make: each leg of each wanted circuit, at one end or both; at junction boxes, each planned leg through one. */
+export function flagCount(schedule: Schedule, options: FlagWork, onlyWays?: number[]): number {
   const wanted = wayFilter(onlyWays, options.ways);
+  if (options.at === 'junction-boxes') {
+    const targets = (schedule.survey?.ways ?? []).flatMap((w) => w.targets).filter(wanted);
+    return targets.reduce((n, t) => n + t.legs.filter((l) => l.junctionBoxId != null).length, 0);
+  }
   const perEnd = schedule.circuits.filter(wanted).reduce((n, c) => n + legsOf(c, options.legs), 0);
   return perEnd * (options.bothEnds ? 2 : 1);
 }
 
 /** Null when the print fits one request, else the sentence saying what would fit. */
-export function flagWorkProblem(schedule: Schedule, options: { legs?: number; bothEnds: boolean; ways?: string }, onlyWays?: number[]): string | null {
+export function flagWorkProblem(schedule: Schedule, options: FlagWork, onlyWays?: number[]): string | null {
   const count = flagCount(schedule, options, onlyWays);
   if (count <= MAX_FLAGS_PER_PRINT) return null;
   const oneEnd = options.bothEnds ? flagCount(schedule, { ...options, bothEnds: false }, onlyWays) : count;
