@@ -67,7 +67,7 @@ export function resolveMedium(mediaId: string, sheetLayouts?: SheetLayouts, tape
 /** The medium each output goes on unless the user picks another. */
 export function defaultMediumFor(output: PrintOutput): string {
   const defaults: Record<PrintOutput, string> = {
-    flags: 'tape-12', 'way-labels': 'tape-12', chart: 'a4', notices: 'a4', tag: 'tape-24', calibration: 'a4',
+    flags: 'tape-12', 'way-labels': 'tape-12', chart: 'a4', notices: 'a4', tag: 'tape-24', calibration: 'a4', changeover: 'a4',
   };
   return defaults[output];
 }

@@ -14,11 +14,12 @@ import { layoutChart } from './layout/chart/index.js';
 import { layoutNotices } from './layout/notices.js';
 import { layoutTag } from './layout/tag.js';
 import { layoutCalibration } from './layout/calibration.js';
+import { layoutChangeover } from './layout/changeover/index.js';
 import { emptyDoc } from './layout/empty.js';
 
 type Layouts = { [O in PrintOutput]: (ctx: LayoutContext<O>) => LayoutDoc };
 const layouts: Layouts = {
-  flags: layoutFlags, 'way-labels': layoutWayLabels, chart: layoutChart, notices: layoutNotices, tag: layoutTag, calibration: layoutCalibration,
+  flags: layoutFlags, 'way-labels': layoutWayLabels, chart: layoutChart, notices: layoutNotices, tag: layoutTag, calibration: layoutCalibration, changeover: layoutChangeover,
 };
 
 /** The output laid out in mm, without drawing: what tests and previews measure. */

@@ -14,7 +14,8 @@ import { printRecordFor, renderWith, today } from './service.js';
 import * as repo from './repository.js';
 import { zipEntries, type ZipEntry } from './zip.js';
 
-export const packOutputs = ['chart', 'flags', 'way-labels', 'notices', 'tag'] as const satisfies readonly PrintOutput[];
+/** Every board output; the changeover schedule only for a board with a survey of the old board it replaces. */
+export const packOutputs = ['chart', 'flags', 'way-labels', 'notices', 'tag', 'changeover'] as const satisfies readonly PrintOutput[];
 
 /** Media tried in turn: a tag whose QR does not fit the usual tape goes on the next wider one. */
 const packMedia: Record<(typeof packOutputs)[number], MediaId[]> = {
@@ -23,6 +24,7 @@ const packMedia: Record<(typeof packOutputs)[number], MediaId[]> = {
   'way-labels': [defaultMedia['way-labels']],
   notices: [defaultMedia.notices],
   tag: [defaultMedia.tag, 'tape-36', 'a4'],
+  changeover: [defaultMedia.changeover],
 };
 
 interface PackFile { output: PrintOutput; media: MediaId; name: string; pdf: Uint8Array; pageCount: number; warnings: string[] }
@@ -62,7 +64,8 @@ export async function printPack(ctx: AppContext, user: CurrentUser, boardId: num
   const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
   const files: PackFile[] = [];
   const skipped: string[] = [];
-  for (const output of packOutputs) {
+  const surveyed = (source.schedule.survey?.ways.length ?? 0) > 0;
+  for (const output of packOutputs.filter((o) => o !== 'changeover' || surveyed)) {
     const made = await renderFirstFitting(ctx, user, source, output);
     if (typeof made === 'string') skipped.push(made);
     else files.push(made);

@@ -12,7 +12,8 @@ import { printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput, 
 import type { PrintOffset, PrintRecord } from '../../shared/schemas/print-records.js';
 import { flagWorkProblem } from '../pdf/layout/work.js';
 import { waysChangedBetween } from '../../shared/schedule/diff.js';
-import { AppError, notFound } from '../errors.js';
+import { AppError, invalid, notFound } from '../errors.js';
+import { NO_SURVEY } from '../pdf/layout/changeover/index.js';
 import { getLayout } from '../sheet-layouts/service.js';
 import { loadCalibrationSource, loadPrintSource, scheduleAtRevision, type PrintSource } from './source.js';
 import { sheetLayoutId, type PrintQuery } from './query.js';
@@ -59,6 +60,8 @@ async function onlyWaysFor(ctx: AppContext, source: PrintSource, query: PrintQue
 
 /** The engine's request for one output of a loaded board, after the work limit is checked. */
 async function renderRequestFor(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderRequest<PrintOutput>> {
+  // A changeover schedule of a board with no survey is the caller's mistake, not a layout the medium cannot take.
+  if (query.output === 'changeover' && !source.schedule.survey?.ways.length) throw invalid(NO_SURVEY, { survey: NO_SURVEY });
   const medium = await mediumFor(ctx, user.organisationId, query.media);
   const onlyWays = await onlyWaysFor(ctx, source, query);
   if (query.output === 'flags') {

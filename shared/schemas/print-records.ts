@@ -18,6 +18,7 @@ export const defaultMedia: Record<PrintOutput, MediaId> = {
   notices: 'a4',
   tag: 'tape-24',
   calibration: 'a4',
+  changeover: 'a4',
 };
 
 /** One recorded print: who printed which output on which medium, from which revision. */

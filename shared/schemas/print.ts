@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 
-export const printOutputs = ['flags', 'way-labels', 'chart', 'notices', 'tag', 'calibration'] as const;
+export const printOutputs = ['flags', 'way-labels', 'chart', 'notices', 'tag', 'calibration', 'changeover'] as const;
 export type PrintOutput = (typeof printOutputs)[number];
 
 /** Continuous tape widths in mm (common practice). */
@@ -63,6 +63,11 @@ const noticeOptions = z.strictObject({
 const tagOptions = z.strictObject({ copies: z.coerce.number().int().min(1).max(20).default(1) });
 const calibrationOptions = z.strictObject({});
 
+const changeoverOptions = z.strictObject({
+  /** The old ways' readings in short form; off, the table has room for longer descriptions. */
+  showReadings: z.stringbool().default(true),
+});
+
 export const printOptionSchemas = {
   flags: flagOptions,
   'way-labels': wayLabelOptions,
@@ -70,6 +75,7 @@ export const printOptionSchemas = {
   notices: noticeOptions,
   tag: tagOptions,
   calibration: calibrationOptions,
+  changeover: changeoverOptions,
 } as const;
 export type PrintOptions = { [K in PrintOutput]: z.infer<(typeof printOptionSchemas)[K]> };
 export const noticeKindList = noticeKinds;

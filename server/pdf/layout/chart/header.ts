@@ -16,13 +16,16 @@ import { waysText } from '../../../../shared/rules/index.js';
 
 export interface Line { text: string; face: FontFace; sizePt: number; color?: Color; maxLines?: number }
 
-/** Lines stacked from `y` in a column `w` wide, wrapped; returns the items and where they end. */
-export function stack(lines: Line[], x: number, y: number, w: number, ctx: LayoutContext<'chart'>, align: FitStyle['align'] = 'left'): { items: Item[]; bottom: number } {
+/**
+ * Lines stacked from `y` in a column `w` wide, wrapped; returns the items and where they end.
+ * Any page output may use it; `label` names the output in a cut-text warning.
+ */
+export function stack(lines: Line[], x: number, y: number, w: number, ctx: Pick<LayoutContext, 'tm' | 'warnings'>, align: FitStyle['align'] = 'left', label = 'Circuit chart header'): { items: Item[]; bottom: number } {
   const items: Item[] = [];
   for (const l of lines) {
     const style: FitStyle = { face: l.face, maxPt: l.sizePt, minPt: l.sizePt, lineSpacing: 1.2, align, color: l.color };
     const wrapped = wrapText(l.text, w, l.face, l.sizePt, ctx.tm, l.maxLines ?? 3);
-    if (wrapped.cut) ctx.warnings.cut('Circuit chart header', l.text);
+    if (wrapped.cut) ctx.warnings.cut(label, l.text);
     const h = blockHeight(wrapped.lines.length, l.sizePt, style, ctx.tm);
     items.push(...runsForLines(wrapped.lines, { x, y, w, h }, style, l.sizePt, ctx.tm));
     y += h + l.sizePt * 0.12;
@@ -61,7 +64,8 @@ export function rcdLines(s: Schedule): string[] {
   return lines;
 }
 
-function contractorBlock(ctx: LayoutContext<'chart'>, box: Box, k: number): { items: Item[]; bottom: number } {
+/** The contractor's logo, name, phone and e-mail, right-aligned in `box`; page outputs share it. */
+export function contractorBlock(ctx: LayoutContext, box: Box, k: number, label?: string): { items: Item[]; bottom: number } {
   const c = ctx.req.contractor;
   const items: Item[] = [];
   let y = box.y;
@@ -75,7 +79,7 @@ function contractorBlock(ctx: LayoutContext<'chart'>, box: Box, k: number): { it
   const lines: Line[] = [
     { text: c.name, face: 'bold', sizePt: 9 * k, maxLines: 2 }, { text: c.phone, face: 'regular', sizePt: 7.5 * k, maxLines: 1 }, { text: c.email, face: 'regular', sizePt: 7.5 * k, maxLines: 1 },
   ];
-  const text = stack(lines.filter((l) => l.text), box.x, y, box.w, ctx, 'right');
+  const text = stack(lines.filter((l) => l.text), box.x, y, box.w, ctx, 'right', label);
   return { items: [...items, ...text.items], bottom: text.bottom };
 }
 
