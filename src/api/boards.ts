@@ -7,7 +7,7 @@ import { json, request } from './http.js';
 import { scheduleResponseSchema, type Schedule } from '../../shared/schemas/schedule.js';
 import {
   boardListResponseSchema, boardSummarySchema, createdSchema, saveResultSchema, revisionListResponseSchema,
-  revisionSnapshotSchema, diffResponseSchema, type BoardCreate,
+  revisionSnapshotSchema, diffResponseSchema, changeoverApplyResponseSchema, type BoardCreate,
 } from '../../shared/schemas/boards.js';
 
 export type { BoardListItem, BoardSummary, RevisionListItem, DiffResponse } from '../../shared/schemas/boards.js';
@@ -36,6 +36,10 @@ export const getSchedule = (id: number) => json(scheduleResponseSchema, 'GET', `
 /** Saves the whole schedule against the revision it was edited from; a stale base answers 409 (`ApiError.code === 'stale'`). */
 export const saveSchedule = (id: number, schedule: Schedule, baseRevision: number) =>
   json(saveResultSchema, 'PUT', `/api/boards/${id}/schedule`, { body: { ...schedule, baseRevision } });
+
+/** Makes the new board's circuits and devices from the saved survey's plan; 400 names the plan's gaps, 409 when stale. */
+export const applyChangeover = (id: number, baseRevision: number) =>
+  json(changeoverApplyResponseSchema, 'POST', `/api/boards/${id}/changeover/apply`, { body: { baseRevision } });
 
 export const checkBoard = (id: number) => json(findingsResponseSchema, 'GET', `/api/boards/${id}/check`);
 export const deleteBoard = (id: number) => request('DELETE', `/api/boards/${id}`).then(() => undefined);

@@ -4,13 +4,14 @@
  */
 import { nextTick } from 'vue';
 
-export type EditorTab = 'circuits' | 'rows' | 'supply';
+export type EditorTab = 'circuits' | 'rows' | 'supply' | 'survey';
 
 /** The editor tab that shows a schedule path such as "circuits.3.measuredZs" or "board.supply.ze". */
 export function tabForPath(path: string | undefined): EditorTab {
   if (!path) return 'circuits';
   if (path.startsWith('devices')) return 'rows';
   if (path.startsWith('board')) return 'supply';
+  if (path.startsWith('survey')) return 'survey';
   return 'circuits';
 }
 

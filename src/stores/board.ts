@@ -4,13 +4,14 @@
  * the working copy, recomputed on every edit so findings appear while typing.
  */
 import { defineStore } from 'pinia';
-import { computed, ref } from 'vue';
+import { computed, ref, watch } from 'vue';
 import { scheduleSchema, circuitSchema, deviceSchema, type Circuit, type Device, type DeviceKind, type Schedule } from '../../shared/schemas/schedule.js';
 import { fieldErrors } from '../../shared/schemas/errors.js';
 import { checkSchedule } from '../../shared/rules/index.js';
 import type { Finding } from '../../shared/rules/types.js';
 import { ApiError } from '../api/http.js';
-import { getSchedule, saveSchedule } from '../api/boards.js';
+import { applyChangeover, getSchedule, saveSchedule } from '../api/boards.js';
+import { clearDraft, readDraft, writeDraft } from './boardDraft.js';
 import { rebaseSchedule, type RebaseResult } from './boardRebase.js';
 
 export type BoardStatus = 'idle' | 'loading' | 'ready' | 'saving' | 'error';
@@ -37,6 +38,8 @@ export const useBoardStore = defineStore('board', () => {
   const conflict = ref<{ message: string } | null>(null);
   const lastSummary = ref('');
   const today = ref(isoToday());
+  /** When the working copy was restored from an unsaved draft on this device: when that draft was written. */
+  const restoredDraftAt = ref<string | null>(null);
 
   const dirty = computed(() => working.value !== null && JSON.stringify(working.value) !== JSON.stringify(loaded.value));
 
@@ -74,6 +77,28 @@ export const useBoardStore = defineStore('board', () => {
     updatedAt.value = fresh.updatedAt;
   }
 
+  // The draft follows every edit (a beat behind, so typing is not slowed) and goes when nothing is unsaved.
+  let draftTimer: ReturnType<typeof setTimeout> | undefined;
+  watch(working, () => {
+    clearTimeout(draftTimer);
+    draftTimer = setTimeout(keepDraft, 300);
+  }, { deep: true });
+  function keepDraft(): void {
+    if (boardId.value === null || !loaded.value || !working.value) return;
+    if (dirty.value) writeDraft(boardId.value, { baseRevision: baseRevision.value, base: loaded.value, working: working.value });
+    else clearDraft(boardId.value);
+  }
+
+  /** Lays an unsaved draft from this device over the fresh copy: as it was if nobody saved since, else re-applied. */
+  function restoreDraft(id: number): void {
+    const draft = readDraft(id);
+    if (!draft || !loaded.value) return;
+    const mine = draft.baseRevision === baseRevision.value ? { schedule: draft.working } : rebaseSchedule(draft.base, draft.working, loaded.value);
+    if (JSON.stringify(mine.schedule) === JSON.stringify(loaded.value)) { clearDraft(id); return; }
+    working.value = clone(mine.schedule);
+    restoredDraftAt.value = draft.savedAt;
+  }
+
   /** Loads a board; reloading the same board keeps the old copy on screen until the fresh one arrives. */
   async function load(id: number): Promise<void> {
     if (id !== boardId.value) { working.value = null; loaded.value = null; }
@@ -83,8 +108,10 @@ export const useBoardStore = defineStore('board', () => {
     conflict.value = null;
     serverFields.value = {};
     today.value = isoToday();
+    restoredDraftAt.value = null;
     try {
       adopt(await getSchedule(id));
+      restoreDraft(id);
       status.value = 'ready';
     } catch (err) {
       status.value = 'error';
@@ -106,6 +133,8 @@ export const useBoardStore = defineStore('board', () => {
       loaded.value = clone(parsed.data);
       baseRevision.value = saved.revision;
       lastSummary.value = saved.summary;
+      clearDraft(boardId.value);
+      restoredDraftAt.value = null;
       status.value = 'ready';
       return 'saved';
     } catch (err) {
@@ -130,7 +159,33 @@ export const useBoardStore = defineStore('board', () => {
 
   /** Throws my edits away and shows the saved copy. */
   async function discardAndReload(): Promise<void> {
-    if (boardId.value !== null) await load(boardId.value);
+    if (boardId.value === null) return;
+    clearDraft(boardId.value);
+    await load(boardId.value);
+  }
+
+  /**
+   * Makes the new board's circuits and devices from the survey's plan: saves unsaved edits first
+   * (the server applies the saved plan), then reloads what the server made. Never throws.
+   */
+  async function applyPlan(): Promise<{ outcome: SaveOutcome; created: string[]; updated: string[] }> {
+    const none = { created: [], updated: [] };
+    if (boardId.value === null) return { outcome: 'failed', ...none };
+    const first = await save();
+    if (first !== 'saved' && first !== 'unchanged') return { outcome: first, ...none };
+    status.value = 'saving';
+    try {
+      const result = await applyChangeover(boardId.value, baseRevision.value);
+      lastSummary.value = result.summary;
+      await load(boardId.value);
+      return { outcome: result.changed ? 'saved' : 'unchanged', created: result.created, updated: result.updated };
+    } catch (err) {
+      status.value = 'ready';
+      if (err instanceof ApiError && err.status === 409) { conflict.value = { message: err.message }; return { outcome: 'conflict', ...none }; }
+      if (err instanceof ApiError && err.status === 400) { serverFields.value = err.fields; error.value = err.message; return { outcome: 'invalid', ...none }; }
+      error.value = (err as Error).message;
+      return { outcome: 'failed', ...none };
+    }
   }
 
   function reset(): void {
@@ -144,8 +199,8 @@ export const useBoardStore = defineStore('board', () => {
   }
 
   return {
-    boardId, status, error, code, siteId, updatedAt, loaded, working, baseRevision, serverFields, conflict, lastSummary, today,
-    dirty, findings, findingsByField, fieldMessages, load, save, reloadAndReapply, discardAndReload, reset, ...editing(working),
+    boardId, status, error, code, siteId, updatedAt, loaded, working, baseRevision, serverFields, conflict, lastSummary, today, restoredDraftAt,
+    dirty, findings, findingsByField, fieldMessages, load, save, reloadAndReapply, discardAndReload, applyPlan, reset, ...editing(working),
   };
 });
 

@@ -142,9 +142,19 @@ export const usePrintStore = defineStore('print', () => {
   }
 
   /** Starts the page for a board: history, layouts and a first preview at once. */
-  function open(id: number): void {
+  /**
+   * Opens a board's print page; a link may name the output and its options (the survey links to
+   * `?output=changeover` and `?output=flags&at=junction-boxes`). Unknown names are ignored.
+   */
+  function open(id: number, preset: { output?: unknown; options?: Record<string, string> } = {}): void {
     close();
     boardId.value = id;
+    if (typeof preset.output === 'string' && (printOutputs as readonly string[]).includes(preset.output)) {
+      const chosen = preset.output as PrintOutput;
+      output.value = chosen;
+      const known = Object.keys(printOptionSchemas[chosen].shape);
+      for (const [k, v] of Object.entries(preset.options ?? {})) if (known.includes(k)) optionsByOutput[chosen][k] = v;
+    }
     void loadHistory();
     void loadLayouts();
     void refreshPreview();

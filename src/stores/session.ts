@@ -6,6 +6,7 @@ import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
 import type { AcceptInvitationInput, LoginInput, Me, Role, SignupInput } from '../../shared/schemas/auth.js';
 import * as authApi from '../api/auth.js';
+import { clearAllDrafts } from './boardDraft.js';
 
 export type SessionStatus = 'idle' | 'loading' | 'ready' | 'error';
 
@@ -78,6 +79,7 @@ export const useSessionStore = defineStore('session', () => {
     try {
       await authApi.signOut();
     } finally {
+      clearAllDrafts();
       me.value = null;
       status.value = 'ready';
     }
