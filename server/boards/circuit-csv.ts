@@ -26,7 +26,14 @@ export const CIRCUIT_CSV_COLUMNS: Column[] = [
   col('previous_reference', 'previousReference', 'text'), col('measured_zs', 'measuredZs', 'number'),
   col('zs_at_ambient', 'zsAtAmbient', 'boolean'), col('legs', 'legs', 'number'), col('notes', 'notes', 'text'),
   col('notes_public', 'notesPublic', 'boolean'), col('feeds_board_id', 'feedsBoardId', 'number'),
+  // Test readings on the new circuit (Zs stays in measured_zs): MΩ for insulation, Ω for the rest.
+  col('ir_test_voltage', 'readings.insulation.testVoltage', 'number'), col('ir_line_line', 'readings.insulation.lineLine', 'number'),
+  col('ir_line_earth', 'readings.insulation.lineEarth', 'number'), col('ir_neutral_earth', 'readings.insulation.neutralEarth', 'number'),
+  col('r1_plus_r2', 'readings.r1PlusR2', 'number'), col('r2', 'readings.r2', 'number'),
+  col('ring_r1', 'readings.ring.r1', 'number'), col('ring_rn', 'readings.ring.rn', 'number'), col('ring_r2', 'readings.ring.r2', 'number'),
+  col('polarity', 'readings.polarity', 'choice'),
 ];
+const READING_COLUMNS = CIRCUIT_CSV_COLUMNS.filter((c) => c.path[0] === 'readings');
 const REQUIRED = ['way', 'label'];
 const BY_NAME = new Map(CIRCUIT_CSV_COLUMNS.map((c) => [c.name, c]));
 /** Separates the locations inside one cell: "Kitchen; Utility". */
@@ -110,9 +117,10 @@ function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Ci
   const input: Loose = {};
   columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
   const match = (typeof input.id === 'string' ? m.byId.get(input.id) : undefined) ?? m.byWay.get(`${input.way}/${input.phase ?? ''}`);
-  // Only `cable` is nested (locations are replaced whole), so copying it is a deep enough copy.
-  const merged: Loose = match ? { ...match, cable: { ...match.cable } } : {};
+  const merged: Loose = match ? structuredClone(match) as unknown as Loose : {};
   for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
+  // A circuit with no reading in the file or before keeps no readings record, as the editor leaves it.
+  if (READING_COLUMNS.every((c) => getPath(merged, c.path) == null) && match?.readings == null) delete merged.readings;
   // A second row on a matched way (without an id of its own) is a new circuit, not the same one twice.
   if (merged.id === undefined || (!input.id && m.taken.has(String(merged.id)))) {
     merged.id = newCircuitId(merged.way as number, merged.phase as Circuit['phase'], (id) => m.taken.has(id) || m.byId.has(id));

@@ -8,6 +8,9 @@ import { BOARD_FILE_FORMAT, boardFileSchema, type BoardFile } from '../../shared
 import { invalid, notFound } from '../errors.js';
 import { findBoardSchedule } from './repository.js';
 import { circuitsFromCsv, circuitsToCsv } from './circuit-csv.js';
+import { surveyToCsv } from './survey-csv.js';
+import { checkSchedule } from '../../shared/rules/index.js';
+import { todayIso } from './service.js';
 import { checkFeedsBoardIds, checkSiteField, createBoardRecord, saveScheduleAt, type Actor, type SaveOutcome } from './writes.js';
 
 /** `POST /api/boards/import` takes a board file, or `{file, siteId}` to place the new board on a site. */
@@ -54,6 +57,15 @@ export async function exportCircuitsCsv(db: Db, organisationId: number, id: numb
   const row = await findBoardSchedule(db, organisationId, id);
   if (!row) throw notFound('No such board');
   return { csv: circuitsToCsv(row.schedule.circuits), baseName: fileBaseName(row.code, row.schedule.board.name) };
+}
+
+/** `GET /api/boards/:id/survey.csv`: the old board's survey with today's verdicts; 400 on `survey` when there is none. */
+export async function exportSurveyCsv(db: Db, organisationId: number, id: number, today = todayIso()): Promise<{ csv: string; baseName: string }> {
+  const row = await findBoardSchedule(db, organisationId, id);
+  if (!row) throw notFound('No such board');
+  const csv = surveyToCsv(row.schedule, checkSchedule(row.schedule, { today }));
+  if (csv == null) throw invalid('This board has no survey of an old board', { survey: 'No survey on this board' });
+  return { csv, baseName: fileBaseName(row.code, row.schedule.board.name) };
 }
 
 /** Replaces the board's circuits with the file's, as one save against `baseRevision` (so stale is 409 as ever). */

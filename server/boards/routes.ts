@@ -14,7 +14,7 @@ import { idParam, parse } from '../http/parse.js';
 import { checkBoard, createBoard, getBoardSummary, getSchedule, listOrganisationBoards, saveSchedule } from './service.js';
 import { deleteBoard, duplicateBoard, patchBoard, restoreBoard, rotatePublicToken, setPublicEnabled } from './lifecycle.js';
 import { boardRevision, boardRevisions, diffRevisions } from './history.js';
-import { exportBoardFile, exportCircuitsCsv, importBoardFile, importCircuitsCsv, parseBoardImport } from './files.js';
+import { exportBoardFile, exportCircuitsCsv, exportSurveyCsv, importBoardFile, importCircuitsCsv, parseBoardImport } from './files.js';
 import type { SaveOutcome } from './writes.js';
 import { applyChangeover, type ApplyOutcome } from './changeover.js';
 
@@ -116,6 +116,10 @@ function mountFiles(r: Router, db: Db): void {
   r.get('/:id/circuits.csv', async (req, res) => {
     const { csv, baseName } = await exportCircuitsCsv(db, org(req), idParam(req.params));
     attachment(res, `${baseName}-circuits.csv`).type('text/csv; charset=utf-8').send(csv);
+  });
+  r.get('/:id/survey.csv', async (req, res) => {
+    const { csv, baseName } = await exportSurveyCsv(db, org(req), idParam(req.params));
+    attachment(res, `${baseName}-survey.csv`).type('text/csv; charset=utf-8').send(csv);
   });
   r.post('/:id/circuits/import-csv', canEdit, csvBody, async (req, res) => {
     const id = idParam(req.params);

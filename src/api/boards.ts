@@ -66,6 +66,12 @@ export async function exportCircuitsCsv(id: number): Promise<{ text: string; fil
   return { text: await res.text(), fileName: fileNameOf(res, `circuits-${id}.csv`) };
 }
 
+/** The old board's survey as CSV (export only); 400 when the board has none. */
+export async function exportSurveyCsv(id: number): Promise<{ text: string; fileName: string }> {
+  const res = await request('GET', `/api/boards/${id}/survey.csv`);
+  return { text: await res.text(), fileName: fileNameOf(res, `survey-${id}.csv`) };
+}
+
 export const importCircuitsCsv = (id: number, csv: string, baseRevision: number) =>
   json(saveResultSchema, 'POST', `/api/boards/${id}/circuits/import-csv`, { body: { csv, baseRevision } });
 
