@@ -24,8 +24,6 @@ export const identificationOptions = identificationMethods.map((value) => ({ val
 export const oldDeviceOptions = oldDeviceKinds.map((value) => ({ value, label: oldDeviceNames[value] }));
 export const fuseStandardOptions = fuseStandards.map((value) => ({ value, label: value === 'BS 3036' ? 'BS 3036 rewireable' : value }));
 export const actionOptions = planActions.map((value) => ({ value, label: actionNames[value] }));
-export const testVoltageOptions = [250, 500, 1000].map((value) => ({ value, label: `${value} V` }));
-export const polarityOptions = [{ value: 'correct', label: 'Correct' }, { value: 'incorrect', label: 'Incorrect' }];
 
 /** The next old way: its reference numbered on from the last, one leg, a rewireable fuse until told otherwise. */
 export function newSurveyWay(count: number): SurveyWay {
