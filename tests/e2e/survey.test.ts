@@ -129,4 +129,25 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
     await shots(page, 'survey-laptop-start');
     expect(app.pageErrors).toEqual([]);
   });
+
+  it('when a new circuit\'s insulation is recorded in its drawer below Table 64, then the finding shows beside the reading and the readings are saved', async () => {
+    const { page } = await signedInOwnerPage(app, 'Drawer Readings Electrical');
+    const applied = await surveyedBoard(page);
+    const schedule = await (await page.request.get(`/api/boards/${applied}/schedule`)).json() as { revision: number };
+    const made = await page.request.post(`/api/boards/${applied}/changeover/apply`, { headers: await csrf(page), data: { baseRevision: schedule.revision } });
+    expect(made.status()).toBe(200);
+    await page.goto(`/boards/${applied}`);
+    await page.getByRole('button', { name: 'Details of way 2' }).click();
+    await page.locator('[data-action="record-readings"]').click();
+    const at = 'circuits.0.readings'; // the cooker, the first circuit the plan made
+    await choose(page, `${at}.insulation.testVoltage`, '500 V');
+    await field(page, `${at}.insulation.lineEarth`).fill('0.5');
+    // 0.5 MΩ at 500 V is under Table 64's 1 MΩ (BS 7671:2018+A2 Table 64, from memory)
+    await page.locator(`[data-field="${at}.insulation.lineEarth"]`).getByText(/below the 1 MΩ minimum of Table 64/).waitFor();
+    await page.keyboard.press('Escape');
+    await page.getByTestId('save').click();
+    await expect.poll(async () => ((await (await page.request.get(`/api/boards/${applied}/schedule`)).json()) as { circuits: Array<{ id: string; readings?: { insulation: { lineEarth: number | null } } }> })
+      .circuits.find((c) => c.id === 'cooker')?.readings?.insulation.lineEarth).toBe(0.5);
+    expect(app.pageErrors).toEqual([]);
+  });
 });
