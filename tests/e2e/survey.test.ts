@@ -16,9 +16,11 @@ async function csrf(page: Page): Promise<Record<string, string>> {
   return { 'X-CSRF-Token': token };
 }
 
-/** The surveyed bungalow board, imported in the page's session. */
-async function surveyedBoard(page: Page): Promise<number> {
-  const res = await page.request.post('/api/boards/import', { headers: await csrf(page), data: { format: 2, kind: 'waymark-board', ...bungalowBoard.schedule } });
+/** The surveyed bungalow board, imported in the page's session; `mcbs` plans every new way on an MCB instead of an RCBO. */
+async function surveyedBoard(page: Page, mcbs = false): Promise<number> {
+  const schedule = structuredClone(bungalowBoard.schedule);
+  if (mcbs) for (const w of schedule.survey!.ways) for (const t of w.targets) t.device.kind = 'mcb';
+  const res = await page.request.post('/api/boards/import', { headers: await csrf(page), data: { format: 2, kind: 'waymark-board', ...schedule } });
   if (res.status() !== 201) throw new Error(`import failed: ${res.status()} ${await res.text()}`);
   return ((await res.json()) as { id: number }).id;
 }
@@ -148,6 +150,28 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
     await page.getByTestId('save').click();
     await expect.poll(async () => ((await (await page.request.get(`/api/boards/${applied}/schedule`)).json()) as { circuits: Array<{ id: string; readings?: { insulation: { lineEarth: number | null } } }> })
       .circuits.find((c) => c.id === 'cooker')?.readings?.insulation.lineEarth).toBe(0.5);
+    expect(app.pageErrors).toEqual([]);
+  });
+
+  it('when the plan puts its ways on MCBs, then an RCD arrangement is suggested with reasons, and accepting it gives the new board those RCDs', async () => {
+    const { page } = await signedInOwnerPage(app, 'RCD Split Electrical', { viewport: PHONE });
+    const id = await surveyedBoard(page, true);
+    await page.goto(`/boards/${id}`);
+    await openSurvey(page);
+    await page.locator('[data-action="suggest-rcds"]').click();
+    const panel = page.getByTestId('rcd-split');
+    await panel.getByText('Suggested RCD arrangement').waitFor();
+    const text = (await panel.textContent()) ?? '';
+    expect(text).toContain('RCD 1');
+    expect(text).toContain('RCD 2');
+    expect(text).toContain('BS 7671 531.3.2');
+    await shots(page, 'survey-phone-rcd-split');
+    expect(await sideways(page)).toBe(0);
+    await page.locator('[data-action="accept-rcds"]').click();
+    await page.locator('[data-action="apply-plan"]').click();
+    await page.getByText(/New board made from the plan/).waitFor();
+    const saved = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as { devices: Array<{ kind: string; label: string }> };
+    expect(saved.devices.filter((d) => d.kind === 'rcd').map((d) => d.label).sort()).toEqual(['RCD 1', 'RCD 2']);
     expect(app.pageErrors).toEqual([]);
   });
 });
