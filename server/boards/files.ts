@@ -10,7 +10,7 @@ import { findBoardSchedule } from './repository.js';
 import { circuitsFromCsv, circuitsToCsv } from './circuit-csv.js';
 import { surveyToCsv } from './survey-csv.js';
 import { checkSchedule } from '../../shared/rules/index.js';
-import { todayIso } from './service.js';
+import { todayIso } from '../http/clock.js';
 import { checkFeedsBoardIds, checkSiteField, createBoardRecord, saveScheduleAt, type Actor, type SaveOutcome } from './writes.js';
 
 /** `POST /api/boards/import` takes a board file, or `{file, siteId}` to place the new board on a site. */

@@ -20,12 +20,16 @@ export interface BoardScheduleRow {
   revision: number;
   updatedAt: string;
   schedule: Schedule;
+  /** The board page's token and whether the page is on: the printed QR code's link. */
+  publicToken: string;
+  publicEnabled: boolean;
 }
 
 /** The board and its whole schedule in one query (not deleted). */
 export async function findBoardSchedule(db: Db, organisationId: number, id: number): Promise<BoardScheduleRow | null> {
   const [row] = await db.select({
     id: boards.id, code: boards.code, siteId: boards.siteId, revision: boards.revision, updatedAt: boards.updatedAt, schedule: boards.schedule,
+    publicToken: boards.publicToken, publicEnabled: boards.publicEnabled,
   }).from(boards).where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), isNull(boards.deletedAt))).limit(1);
   return row ? { ...row, updatedAt: iso(row.updatedAt), schedule: readStoredSchedule(row.schedule) } : null;
 }

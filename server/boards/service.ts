@@ -11,6 +11,7 @@ import { notFound } from '../errors.js';
 import { findBoardSchedule, findBoardSummary, listBoards } from './repository.js';
 import { checkSiteField, createBoardRecord, saveScheduleAt, type Actor, type SaveOutcome } from './writes.js';
 import { buildTemplate, scheduleTemplates } from '../../shared/schedule/templates.js';
+import { todayIso } from '../http/clock.js';
 
 /** An empty board: one row of 18 modules and the usual UK supply, for the electrician to fill in. */
 function emptySchedule(name: string, location: string): Schedule {
@@ -51,10 +52,6 @@ export function saveSchedule(db: Db, actor: Actor, id: number, input: ScheduleSa
   return saveScheduleAt(db, actor, id, baseRevision, { board, devices, circuits, ...(survey ? { survey } : {}) });
 }
 
-/** Today's date on the server as YYYY-MM-DD (UTC), the only clock the rule checks see. */
-export function todayIso(now = new Date()): string {
-  return now.toISOString().slice(0, 10);
-}
 
 /** `GET /api/boards/:id/check`: the rule set applied to the saved schedule, today. */
 export async function checkBoard(db: Db, organisationId: number, id: number, today = todayIso()): Promise<{ findings: Finding[] }> {

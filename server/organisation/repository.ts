@@ -17,6 +17,11 @@ export async function findOrganisation(db: Db, id: number): Promise<Organisation
   return row ? { ...row, hasLogo: Number(row.hasLogo) === 1 } : null;
 }
 
+/** The printer offsets of the print settings page (mm). */
+export async function updatePrintOffset(db: Db, id: number, xMm: number, yMm: number): Promise<void> {
+  await db.update(organisations).set({ printOffsetXMm: xMm, printOffsetYMm: yMm }).where(eq(organisations.id, id));
+}
+
 export async function updateOrganisation(db: Db, id: number, settings: OrganisationSettings): Promise<void> {
   await db.update(organisations).set(settings).where(eq(organisations.id, id));
 }

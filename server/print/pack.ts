@@ -10,7 +10,8 @@ import { printOptionSchemas } from '../../shared/schemas/print.js';
 import { AppError } from '../errors.js';
 import { defaultMedia, type PrintQuery } from './query.js';
 import { loadPrintSource, type PrintSource } from './source.js';
-import { printRecordFor, renderWith, today } from './service.js';
+import { printRecordFor, renderWith } from './service.js';
+import { todayIso as today } from '../http/clock.js';
 import * as repo from './repository.js';
 import { zipEntries, type ZipEntry } from './zip.js';
 

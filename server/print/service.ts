@@ -18,10 +18,12 @@ import { getLayout } from '../sheet-layouts/service.js';
 import { loadCalibrationSource, loadPrintSource, scheduleAtRevision, type PrintSource } from './source.js';
 import { sheetLayoutId, type PrintQuery } from './query.js';
 import * as repo from './repository.js';
+import { todayIso as today } from '../http/clock.js';
+import { findBoardState } from '../boards/repository.js';
+import { findOrganisation, updatePrintOffset } from '../organisation/repository.js';
 
 export interface PrintedPdf extends RenderResult { filename: string }
 
-export const today = () => new Date().toISOString().slice(0, 10);
 
 /** A layout the engine cannot make (e.g. a QR too small on this tape): the message says what would work. */
 function cannotLayOut(err: LayoutError): AppError {
@@ -47,10 +49,10 @@ async function mediumFor(ctx: AppContext, organisationId: number, media: MediaId
 }
 
 /** Way numbers to print for "changed since", or undefined for all of them. */
-async function onlyWaysFor(ctx: AppContext, source: PrintSource, query: PrintQuery): Promise<number[] | undefined> {
+async function onlyWaysFor(ctx: AppContext, organisationId: number, source: PrintSource, query: PrintQuery): Promise<number[] | undefined> {
   const since = (query.options as { changedSince?: number }).changedSince;
   if (since === undefined || (query.output !== 'flags' && query.output !== 'way-labels')) return undefined;
-  const before = await scheduleAtRevision(ctx.db, source, since);
+  const before = await scheduleAtRevision(ctx.db, organisationId, source, since);
   const ways = waysChangedBetween(before, source.schedule);
   if (!ways.length) {
     throw new AppError(422, 'nothing_changed', `No way's label changed since revision ${since}: nothing to print`, { changedSince: `Nothing changed since revision ${since}` });
@@ -63,7 +65,7 @@ async function renderRequestFor(ctx: AppContext, user: CurrentUser, source: Prin
   // A changeover schedule of a board with no survey is the caller's mistake, not a layout the medium cannot take.
   if (query.output === 'changeover' && !source.schedule.survey?.ways.length) throw invalid(NO_SURVEY, { survey: NO_SURVEY });
   const medium = await mediumFor(ctx, user.organisationId, query.media);
-  const onlyWays = await onlyWaysFor(ctx, source, query);
+  const onlyWays = await onlyWaysFor(ctx, user.organisationId, source, query);
   if (query.output === 'flags') {
     const problem = flagWorkProblem(source.schedule, query.options as PrintOptions['flags'], onlyWays);
     if (problem) throw new AppError(422, 'too_much_work', problem, { legs: problem });
@@ -121,19 +123,20 @@ export async function checkPrint(ctx: AppContext, user: CurrentUser, boardId: nu
 }
 
 export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: number): Promise<PrintRecord[]> {
-  if (!(await repo.boardBelongsTo(ctx.db, user.organisationId, boardId))) throw notFound('No such board');
+  // Deleted boards keep their print history readable, so this asks only whose board it is.
+  if (!(await findBoardState(ctx.db, user.organisationId, boardId))) throw notFound('No such board');
   const rows = await repo.listPrints(ctx.db, boardId);
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
 export async function printOffset(ctx: AppContext, user: CurrentUser): Promise<PrintOffset> {
-  const org = await repo.findOrganisation(ctx.db, user.organisationId);
+  const org = await findOrganisation(ctx.db, user.organisationId);
   if (!org) throw notFound('No such organisation');
   return { xMm: org.printOffsetXMm, yMm: org.printOffsetYMm };
 }
 
 export async function setPrintOffset(ctx: AppContext, user: CurrentUser, offset: PrintOffset): Promise<PrintOffset> {
-  await repo.updateOffset(ctx.db, user.organisationId, offset.xMm, offset.yMm);
+  await updatePrintOffset(ctx.db, user.organisationId, offset.xMm, offset.yMm);
   return printOffset(ctx, user);
 }
 

@@ -9,8 +9,13 @@ import type { BoardMeta, Contractor } from '../pdf/types.js';
 import type { Finding } from '../../shared/rules/types.js';
 import { scheduleSchema, type Schedule } from '../../shared/schemas/schedule.js';
 import { checkSchedule, maxZsByCircuit, nextInspectionDate } from '../../shared/rules/index.js';
+import { isoDay } from '../../shared/rules/dates.js';
+import { boardPageUrl } from '../../shared/public/board-page.js';
 import { invalid, notFound } from '../errors.js';
-import * as repo from './repository.js';
+import { findBoardSchedule } from '../boards/repository.js';
+import { findRevision } from '../boards/revision-repository.js';
+import { findOrganisation } from '../organisation/repository.js';
+import { findLogo } from '../uploads/repository.js';
 
 export interface PrintSource {
   schedule: Schedule;
@@ -21,15 +26,8 @@ export interface PrintSource {
   maxZsByCircuit: Record<string, number | null>;
 }
 
-/** MariaDB keeps JSON as text, so the driver may hand back a string. */
-export function jsonValue(value: unknown): unknown {
-  return typeof value === 'string' ? JSON.parse(value) : value;
-}
-
-const isoDay = (d: Date) => d.toISOString().slice(0, 10);
-
 async function contractorOf(db: Db, organisationId: number): Promise<{ contractor: Contractor; offset: PrintSource['offset'] }> {
-  const [org, logo] = await Promise.all([repo.findOrganisation(db, organisationId), repo.findLogo(db, organisationId)]);
+  const [org, logo] = await Promise.all([findOrganisation(db, organisationId), findLogo(db, organisationId)]);
   if (!org) throw notFound('No such organisation');
   const contractor: Contractor = { name: org.name, phone: org.contactPhone, email: org.contactEmail };
   if (logo && (logo.mime === 'image/png' || logo.mime === 'image/jpeg')) contractor.logo = { bytes: new Uint8Array(logo.data), mime: logo.mime };
@@ -41,20 +39,20 @@ async function contractorOf(db: Db, organisationId: number): Promise<{ contracto
  * a deleted board or an unknown id is a 404.
  */
 export async function loadPrintSource(db: Db, config: ServerConfig, organisationId: number, boardId: number, today: string): Promise<PrintSource> {
-  const row = await repo.findBoard(db, organisationId, boardId);
+  const row = await findBoardSchedule(db, organisationId, boardId);
   if (!row) throw notFound('No such board');
   const [{ contractor, offset }, current] = await Promise.all([
     contractorOf(db, organisationId),
-    repo.findRevision(db, row.id, row.revision),
+    findRevision(db, organisationId, row.id, row.revision),
   ]);
-  const schedule = scheduleSchema.parse(jsonValue(row.schedule));
+  const schedule = row.schedule;
   const board: BoardMeta = {
     id: row.id,
     code: row.code,
-    publicUrl: `${config.publicBaseUrl}/b/${row.publicToken}`,
+    publicUrl: boardPageUrl(config.publicBaseUrl, row.publicToken),
     publicEnabled: row.publicEnabled,
     revision: row.revision,
-    revisionDate: isoDay(current?.createdAt ?? row.updatedAt),
+    revisionDate: isoDay(new Date(current?.createdAt ?? row.updatedAt)),
     nextInspectionOn: nextInspectionDate(schedule.board),
   };
   return { schedule, board, contractor, findings: checkSchedule(schedule, { today }), offset, maxZsByCircuit: maxZsByCircuit(schedule) };
@@ -64,13 +62,13 @@ export async function loadPrintSource(db: Db, config: ServerConfig, organisation
  * The schedule as it was at an earlier revision, for "changed since". A revision the board
  * never had is the caller's mistake: 400 on the `changedSince` field.
  */
-export async function scheduleAtRevision(db: Db, source: PrintSource, revision: number): Promise<Schedule> {
+export async function scheduleAtRevision(db: Db, organisationId: number, source: PrintSource, revision: number): Promise<Schedule> {
   if (revision > source.board.revision) {
     throw invalid(`The board is at revision ${source.board.revision}`, { changedSince: `No revision ${revision} yet: the board is at revision ${source.board.revision}` });
   }
-  const found = await repo.findRevision(db, source.board.id, revision);
+  const found = await findRevision(db, organisationId, source.board.id, revision);
   if (!found) throw invalid(`Revision ${revision} is not stored`, { changedSince: `Revision ${revision} is not stored for this board` });
-  return scheduleSchema.parse(jsonValue(found.snapshot));
+  return found.schedule;
 }
 
 /**

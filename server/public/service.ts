@@ -9,10 +9,11 @@ import type { Db } from '../db/client.js';
 import type { ServerConfig } from '../config.js';
 import { notFound } from '../errors.js';
 import { readStoredSchedule } from '../boards/stored.js';
-import { toPublicBoard } from '../../shared/public/board-page.js';
+import { boardPageUrl, toPublicBoard } from '../../shared/public/board-page.js';
 import type { PublicBoard } from '../../shared/schemas/public-board.js';
 import type { Sharing } from '../../shared/schemas/reports.js';
 import { nextInspectionDate } from '../../shared/rules/index.js';
+import { isoDay } from '../../shared/rules/dates.js';
 import { findLogo, type StoredImage } from '../uploads/repository.js';
 import { countOpenReports } from '../reports/repository.js';
 import { findPublicBoard, findPublicBoardBody, findPublicBoardHead } from './repository.js';
@@ -70,7 +71,7 @@ export async function publicBoardPage(db: Db, token: string): Promise<PublicBoar
     organisation: head.organisation,
     hasLogo: head.hasLogo,
     revision: head.revision,
-    revisionDate: (body.revisionDate ?? head.updatedAt).toISOString().slice(0, 10),
+    revisionDate: isoDay(body.revisionDate ?? head.updatedAt),
     nextInspectionOn: nextInspectionDate(schedule.board),
   });
   const json = Buffer.from(JSON.stringify(page));
@@ -91,7 +92,7 @@ export async function publicLogo(db: Db, token: string): Promise<StoredImage> {
 
 /** The board page's link as printed in the QR code. */
 export function publicUrlFor(config: Pick<ServerConfig, 'publicBaseUrl'>, token: string): string {
-  return `${config.publicBaseUrl}/b/${token}`;
+  return boardPageUrl(config.publicBaseUrl, token);
 }
 
 /** `GET /api/boards/:id/sharing`. */

@@ -10,6 +10,11 @@ import { circuitsInWayOrder, deviceKindName, deviceShortText, hasOwnRcd, rcdFor,
 import { boardCautions } from './cautions.js';
 import { supplyVoltages, supplyVoltageText } from '../schedule/voltage.js';
 
+/** The board page's address, as the QR code and the sharing screen give it. */
+export function boardPageUrl(publicBaseUrl: string, token: string): string {
+  return `${publicBaseUrl}/b/${token}`;
+}
+
 /** What the server adds around the schedule; all of it is public by the organisation's choice. */
 export interface PublicBoardMeta {
   organisation: { name: string; contactPhone: string; contactEmail: string };

@@ -8,9 +8,11 @@ function parts(iso: string): [number, number, number] {
   return [y, m, d];
 }
 
-function format(date: Date): string {
+/** A moment's calendar date in UTC, YYYY-MM-DD. */
+export function isoDay(date: Date): string {
   return date.toISOString().slice(0, 10);
 }
+const format = isoDay;
 
 /** Adds whole months; a day the target month lacks clamps to its last day (31 Jan + 1 month → 28/29 Feb). */
 export function addMonths(iso: string, months: number): string {

@@ -7,6 +7,7 @@ import { defineStore } from 'pinia';
 import { computed, ref, watch } from 'vue';
 import { scheduleSchema, circuitSchema, deviceSchema, type Circuit, type Device, type DeviceKind, type Schedule } from '../../shared/schemas/schedule.js';
 import { fieldErrors } from '../../shared/schemas/errors.js';
+import { isoDay } from '../../shared/rules/dates.js';
 import { checkSchedule } from '../../shared/rules/index.js';
 import type { Finding } from '../../shared/rules/types.js';
 import { ApiError } from '../api/http.js';
@@ -18,7 +19,7 @@ export type BoardStatus = 'idle' | 'loading' | 'ready' | 'saving' | 'error';
 export type SaveOutcome = 'saved' | 'unchanged' | 'invalid' | 'conflict' | 'failed';
 
 const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
-const isoToday = () => new Date().toISOString().slice(0, 10);
+const isoToday = () => isoDay(new Date());
 /** Ids only need to be unique within one board; a short random tail keeps two editors' new items apart. */
 export const newItemId = (prefix: string) => `${prefix}-${Math.random().toString(36).slice(2, 10)}`;
 
