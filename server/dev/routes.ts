@@ -3,7 +3,7 @@
  * `config.devMail` is on. Otherwise every path here answers 404, as if it did not exist.
  */
 import { Router } from 'express';
-import { capturedMailQuerySchema } from '../../shared/schemas/auth.js';
+import { capturedMailQuerySchema } from '../../shared/schemas/dev-mail.js';
 import type { AppContext } from '../context.js';
 import { ownerOnly } from '../auth/guard.js';
 import { notFound } from '../errors.js';

@@ -1,6 +1,6 @@
 /** Reading the captured mail for the dev-only mail page. */
 import type { Db } from '../db/client.js';
-import type { CapturedMailMessage } from '../../shared/schemas/auth.js';
+import type { CapturedMailMessage } from '../../shared/schemas/dev-mail.js';
 import { notFound } from '../errors.js';
 import { readMessage } from '../mail/read.js';
 import { findCapturedMail, listCapturedMail } from './repository.js';

@@ -8,7 +8,7 @@ import type { AppContext } from '../context.js';
 import { canEdit, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
 import { perAddressAndOrganisation } from '../http/limits.js';
-import { handoverSendSchema } from '../../shared/schemas/reports.js';
+import { handoverSendSchema } from '../../shared/schemas/handover.js';
 import { boardHandovers, sendHandover } from './service.js';
 
 export function handoverRoutes(ctx: AppContext): Router {

@@ -6,7 +6,7 @@
 import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
 import { unavailable } from '../errors.js';
-import type { Handover, HandoverSend } from '../../shared/schemas/reports.js';
+import type { Handover, HandoverSend } from '../../shared/schemas/handover.js';
 import { printOptionSchemas } from '../../shared/schemas/print.js';
 import { loadPrintSource, type PrintSource } from '../print/source.js';
 import { renderWith } from '../print/service.js';

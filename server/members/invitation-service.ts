@@ -6,7 +6,7 @@ import { inTransaction } from '../db/client.js';
 import { isDuplicateKey } from '../db/errors.js';
 import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
-import type { AcceptInvitationInput, InvitationInfo, InviteInput, PendingInvitation } from '../../shared/schemas/auth.js';
+import type { AcceptInvitationInput, InvitationInfo, InviteInput, PendingInvitation } from '../../shared/schemas/members.js';
 import type { CurrentUser } from '../http/context.js';
 import { conflict, invalid, notFound } from '../errors.js';
 import { deliver } from '../mail/mailer.js';

@@ -2,7 +2,8 @@
 import { and, asc, eq } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { users } from '../db/schema.js';
-import type { MemberUpdate, Role } from '../../shared/schemas/auth.js';
+import type { MemberUpdate } from '../../shared/schemas/members.js';
+import type { Role } from '../../shared/schemas/auth.js';
 
 export interface MemberRow { id: number; email: string; name: string; role: Role; disabled: boolean; createdAt: Date }
 

@@ -3,7 +3,7 @@
  * `/api/invitations`: the link side, used before the invitee has an account.
  */
 import { Router } from 'express';
-import { acceptInvitationSchema, invitationTokenParamSchema, inviteSchema, memberChangeSchema } from '../../shared/schemas/auth.js';
+import { acceptInvitationSchema, invitationTokenParamSchema, inviteSchema, memberChangeSchema } from '../../shared/schemas/members.js';
 import type { AppContext } from '../context.js';
 import { ownerOnly, requireUser } from '../auth/guard.js';
 import { signIn } from '../auth/sign-in.js';

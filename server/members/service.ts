@@ -1,7 +1,7 @@
 /** Use-cases of the members list: reading it, and an owner changing a member's role or access. */
 import { inTransaction } from '../db/client.js';
 import type { Db } from '../db/client.js';
-import type { Member, MemberUpdate } from '../../shared/schemas/auth.js';
+import type { Member, MemberUpdate } from '../../shared/schemas/members.js';
 import { conflict, notFound } from '../errors.js';
 import { findMember, listMembers, lockActiveOwnerIds, updateMember, type MemberRow } from './repository.js';
 

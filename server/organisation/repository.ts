@@ -2,7 +2,7 @@
 import { eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { organisations } from '../db/schema.js';
-import type { Organisation, OrganisationSettings } from '../../shared/schemas/auth.js';
+import type { Organisation, OrganisationSettings } from '../../shared/schemas/organisation.js';
 
 const columns = {
   id: organisations.id, name: organisations.name, contactPhone: organisations.contactPhone, contactEmail: organisations.contactEmail,

@@ -1,6 +1,6 @@
 /** `/api/organisation`: any member reads the settings; the owner changes them. */
 import { Router } from 'express';
-import { organisationSettingsSchema } from '../../shared/schemas/auth.js';
+import { organisationSettingsSchema } from '../../shared/schemas/organisation.js';
 import type { AppContext } from '../context.js';
 import { ownerOnly, requireUser } from '../auth/guard.js';
 import { parse } from '../http/parse.js';

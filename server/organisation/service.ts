@@ -3,7 +3,7 @@
  * from the session, never from the request, so there is no other organisation to reach.
  */
 import type { Db } from '../db/client.js';
-import type { Organisation, OrganisationSettings } from '../../shared/schemas/auth.js';
+import type { Organisation, OrganisationSettings } from '../../shared/schemas/organisation.js';
 import { notFound } from '../errors.js';
 import { findOrganisation, updateOrganisation } from './repository.js';
 

@@ -11,7 +11,7 @@ import { notFound } from '../errors.js';
 import { readStoredSchedule } from '../boards/stored.js';
 import { boardPageUrl, toPublicBoard } from '../../shared/public/board-page.js';
 import type { PublicBoard } from '../../shared/schemas/public-board.js';
-import type { Sharing } from '../../shared/schemas/reports.js';
+import type { Sharing } from '../../shared/schemas/sharing.js';
 import { nextInspectionDate } from '../../shared/rules/index.js';
 import { isoDay } from '../../shared/rules/dates.js';
 import { findLogo, type StoredImage } from '../uploads/repository.js';

@@ -7,7 +7,7 @@ import { sendImage } from '../http/images.js';
 import type { AppContext } from '../context.js';
 import { canEdit, ownerOnly, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
-import { photoCaptionSchema } from '../../shared/schemas/reports.js';
+import { photoCaptionSchema } from '../../shared/schemas/photos.js';
 import { LOGO_MAX_BYTES, PHOTO_MAX_BYTES, receiveOneFile, uploadedImage } from './receive.js';
 import { fitUpload, LOGO_STORED_SIDE_PX, PHOTO_STORED_SIDE_PX } from './pixels.js';
 import * as uploads from './service.js';

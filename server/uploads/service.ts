@@ -5,7 +5,7 @@
  */
 import type { Db } from '../db/client.js';
 import { notFound } from '../errors.js';
-import type { Photo } from '../../shared/schemas/reports.js';
+import type { Photo } from '../../shared/schemas/photos.js';
 import { requireMemberBoard } from '../boards/member-board.js';
 import type { ImageMime } from './sniff.js';
 import * as files from './repository.js';

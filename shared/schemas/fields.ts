@@ -31,3 +31,9 @@ export const key = z.string().min(1, 'Required').max(40, 'At most 40 characters'
 /** A positive number with a label in its messages. */
 export const positive = (label: string, max: number) =>
   z.number({ error: `${label} must be a number` }).positive(`${label} must be above zero`).max(max, `${label} is at most ${max}`);
+
+/** An e-mail address as typed: trimmed, lower-cased, of the length mail allows. */
+export const emailAddress = z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address');
+
+/** A person's name: one line. */
+export const personName = singleLine(120).min(1, 'Required');

@@ -1,6 +1,6 @@
 /**
- * Contracts for the loop back to the contractor: discrepancy reports sent from the board
- * page, the handover e-mail to the client, board photos and the board page's sharing state.
+ * Discrepancy reports sent from the board page back to the contractor, and how the contractor
+ * lists and resolves them. Handover, photos and sharing have their own files beside this one.
  */
 import { z } from 'zod';
 import { phases } from './schedule.js';
@@ -44,49 +44,3 @@ export const reportSchema = z.object({
 });
 export const reportListSchema = z.object({ items: z.array(reportSchema) });
 export type Report = z.infer<typeof reportSchema>;
-
-const email = z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address');
-
-/** `POST /api/boards/:id/handover`: the client's address and an optional personal line. */
-export const handoverSendSchema = z.strictObject({
-  to: email,
-  message: text(1000).optional(),
-});
-export type HandoverSend = z.infer<typeof handoverSendSchema>;
-
-export const handoverSchema = z.object({
-  id: z.number(),
-  toEmail: z.string(),
-  revision: z.number(),
-  sentByName: z.string().nullable(),
-  createdAt: z.string(),
-});
-export const handoverListSchema = z.object({ items: z.array(handoverSchema) });
-export type Handover = z.infer<typeof handoverSchema>;
-
-/** A board photo's caption (multipart field `caption`, or `PATCH` body). */
-export const photoCaptionSchema = z.strictObject({
-  caption: z.string().trim().max(200, 'At most 200 characters').default(''),
-});
-
-export const photoSchema = z.object({
-  id: z.number(),
-  caption: z.string(),
-  mime: z.string(),
-  size: z.number(),
-  createdAt: z.string(),
-});
-export const photoListSchema = z.object({ items: z.array(photoSchema) });
-export type Photo = z.infer<typeof photoSchema>;
-
-/** `GET /api/boards/:id/sharing`: the board page's link and state, for members. */
-export const sharingSchema = z.object({
-  boardId: z.number(),
-  name: z.string(),
-  code: z.string(),
-  publicEnabled: z.boolean(),
-  publicUrl: z.string(),
-  revision: z.number(),
-  openReports: z.number(),
-});
-export type Sharing = z.infer<typeof sharingSchema>;

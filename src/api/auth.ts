@@ -2,10 +2,8 @@
  * Typed calls for signing up, in and out, invitations and password reset. Responses are
  * parsed with the shared schemas, so a contract drift fails here, not inside a view.
  */
-import {
-  invitationInfoSchema, meSchema,
-  type AcceptInvitationInput, type InvitationInfo, type LoginInput, type Me, type ResetPasswordInput, type SignupInput,
-} from '../../shared/schemas/auth.js';
+import { invitationInfoSchema, type AcceptInvitationInput, type InvitationInfo } from '../../shared/schemas/members.js';
+import { meSchema, type LoginInput, type Me, type ResetPasswordInput, type SignupInput } from '../../shared/schemas/auth.js';
 import { ApiError, forgetCsrfToken, json, send } from './http.js';
 
 /** The signed-in member and their organisation, or null when nobody is signed in (401). */

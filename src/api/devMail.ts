@@ -2,9 +2,7 @@
  * Typed calls for the mail the local capture server caught (development and tests only).
  * The endpoint answers 404 when capture is off, which is how the app knows to hide the page.
  */
-import {
-  capturedMailListSchema, capturedMailMessageSchema, type CapturedMailMessage,
-} from '../../shared/schemas/auth.js';
+import { capturedMailListSchema, capturedMailMessageSchema, type CapturedMailMessage } from '../../shared/schemas/dev-mail.js';
 import type { z } from 'zod';
 import { ApiError, json } from './http.js';
 

@@ -1,5 +1,5 @@
 /** Typed calls for the organisation's own settings (name and contact shown on printed charts). */
-import { organisationSchema, type Organisation, type OrganisationSettings } from '../../shared/schemas/auth.js';
+import { organisationSchema, type Organisation, type OrganisationSettings } from '../../shared/schemas/organisation.js';
 import { json } from './http.js';
 
 export async function fetchOrganisation(): Promise<Organisation> {

@@ -4,10 +4,10 @@
  * Responses are parsed with the shared schemas.
  */
 import { z } from 'zod';
-import {
-  handoverListSchema, handoverSchema, photoListSchema, photoSchema, reportSchema, reportListSchema, sharingSchema,
-  type Handover, type HandoverSend, type Photo, type Report, type Sharing,
-} from '../../shared/schemas/reports.js';
+import { handoverListSchema, handoverSchema, type Handover, type HandoverSend } from '../../shared/schemas/handover.js';
+import { photoListSchema, photoSchema, type Photo } from '../../shared/schemas/photos.js';
+import { reportSchema, reportListSchema, type Report } from '../../shared/schemas/reports.js';
+import { sharingSchema, type Sharing } from '../../shared/schemas/sharing.js';
 import { json, send } from './http.js';
 
 export type { Handover, Photo, Report, Sharing };

@@ -4,7 +4,8 @@
  */
 import { defineStore } from 'pinia';
 import { computed, ref } from 'vue';
-import type { AcceptInvitationInput, LoginInput, Me, Role, SignupInput } from '../../shared/schemas/auth.js';
+import type { AcceptInvitationInput } from '../../shared/schemas/members.js';
+import type { LoginInput, Me, Role, SignupInput } from '../../shared/schemas/auth.js';
 import * as authApi from '../api/auth.js';
 import { clearAllDrafts } from './boardDraft.js';
 

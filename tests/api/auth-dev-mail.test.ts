@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { capturedMailListSchema, capturedMailMessageSchema } from '../../shared/schemas/auth.js';
+import { capturedMailListSchema, capturedMailMessageSchema } from '../../shared/schemas/dev-mail.js';
 import { client, signupOwner, startTestApp, uniqueEmail, waitForMail, type TestApp } from '../helpers/app.js';
 import { addMember } from '../helpers/accounts.js';
 

@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { simpleParser } from 'mailparser';
 import { PDFParse } from 'pdf-parse';
-import { handoverListSchema } from '../../shared/schemas/reports.js';
+import { handoverListSchema } from '../../shared/schemas/handover.js';
 import { startTestApp, uniqueEmail, waitForMail, type TestApp } from '../helpers/app.js';
 import { addMember } from '../helpers/accounts.js';
 import { createBoard, signupMarkedOwner } from './public-fixture.js';

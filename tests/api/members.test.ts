@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { memberListSchema, memberSchema } from '../../shared/schemas/auth.js';
+import { memberListSchema, memberSchema } from '../../shared/schemas/members.js';
 import { client, signupOwner, startTestApp, TEST_PASSWORD, type TestApp } from '../helpers/app.js';
 import { addMember } from '../helpers/accounts.js';
 

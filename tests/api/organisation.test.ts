@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { organisationSchema } from '../../shared/schemas/auth.js';
+import { organisationSchema } from '../../shared/schemas/organisation.js';
 import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.js';
 import { addMember } from '../helpers/accounts.js';
 

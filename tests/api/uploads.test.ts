@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import { PNG } from 'pngjs';
 import { PDFDocument } from 'pdf-lib';
 import { files } from '../../server/db/schema.js';
-import { photoListSchema } from '../../shared/schemas/reports.js';
+import { photoListSchema } from '../../shared/schemas/photos.js';
 import { client, startTestApp, type Client, type TestApp } from '../helpers/app.js';
 import { addMember } from '../helpers/accounts.js';
 import { createBoard, signupMarkedOwner } from './public-fixture.js';

@@ -2,7 +2,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
 import { uniqueEmail } from '../helpers/app.js';
-import { organisationSettingsSchema } from '../../shared/schemas/auth.js';
+import { organisationSettingsSchema } from '../../shared/schemas/organisation.js';
 import { fieldErrors } from '../../shared/schemas/errors.js';
 
 let app: BrowserApp;
