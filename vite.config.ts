@@ -2,13 +2,22 @@ import { defineConfig } from 'vite';
 import vue from '@vitejs/plugin-vue';
 import Components from 'unplugin-vue-components/vite';
 import { AntDesignVueResolver } from 'unplugin-vue-components/resolvers';
+import { compression } from 'vite-plugin-compression2';
 
 // ant-design-vue components are imported on demand (only where a template uses them),
 // so the public board page's chunk never pulls the component library.
+// Each text file of the build gets a brotli (.br) and a gzip (.gz) twin at the highest levels, made once
+// here so the server only picks one per request (server/http/static.ts); fonts and images are left as they are.
 export default defineConfig({
   plugins: [
     vue(),
     Components({ resolvers: [AntDesignVueResolver({ importStyle: false, resolveIcons: true })], dts: 'components.d.ts', dirs: [] }),
+    compression({
+      algorithms: ['brotliCompress', 'gzip'],
+      include: /\.(html|js|mjs|css|json|svg|txt|webmanifest)$/,
+      // A twin of a tiny file (under ~150 bytes) can be a few bytes larger; it is made anyway, so every text file goes out encoded.
+      skipIfLargerOrEqual: false,
+    }),
   ],
   server: {
     port: 5173,

@@ -4,14 +4,14 @@
 import express, { type Express } from 'express';
 import helmet from 'helmet';
 import cookieParser from 'cookie-parser';
-import { existsSync, readFileSync } from 'node:fs';
-import { join } from 'node:path';
 import type { AppContext } from './context.js';
 import { sessionMiddleware } from './auth/session.js';
 import { loadUser } from './auth/guard.js';
 import { requireCsrf } from './auth/csrf.js';
 import { apiRoutes } from './routes.js';
 import { errorHandler, notFound } from './errors.js';
+import { dynamicCompression } from './http/compression.js';
+import { serveClient } from './http/static.js';
 import './http/context.js';
 
 export interface BuiltApp { app: Express; close(): Promise<void> }
@@ -36,19 +36,10 @@ export function createApp(ctx: AppContext): BuiltApp {
   // public route can serve. Every other API request, and every write, goes through the session.
   const withSession: express.RequestHandler = (req, res, next) =>
     (req.method === 'GET' && req.path.startsWith('/public/') ? next() : sessions.middleware(req, res, next));
-  app.use('/api', cookieParser(), withSession, loadUser(ctx.db), requireCsrf(ctx.config.sessionSecret), apiRoutes(ctx));
+  app.use('/api', dynamicCompression(), cookieParser(), withSession, loadUser(ctx.db), requireCsrf(ctx.config.sessionSecret), apiRoutes(ctx));
   app.use('/api', (_req, _res, next) => next(notFound('No such API route')));
 
-  const clientDir = ctx.config.clientDir;
-  if (clientDir && existsSync(join(clientDir, 'index.html'))) {
-    app.use(express.static(clientDir, { index: false, maxAge: '1h', setHeaders: (res, path) => {
-      if (path.includes(`${join(clientDir, 'assets')}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
-    } }));
-    // Every other path is a client route (history mode). The shell page is read once: it only
-    // changes with a new build, and serving it from memory keeps the board page fast under load.
-    const indexHtml = readFileSync(join(clientDir, 'index.html'));
-    app.get('/{*splat}', (_req, res) => { res.type('html').set('Cache-Control', 'no-cache').send(indexHtml); });
-  }
+  serveClient(app, ctx.config.clientDir);
   app.use(errorHandler);
   return { app, close: () => sessions.close() };
 }
