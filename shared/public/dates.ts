@@ -4,13 +4,13 @@
  * carries only what it uses. Today is passed in: the page's JSON is cached per revision, so the
  * browser works out "overdue" on the day it is read.
  */
-const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 const ISO_DAY = /^(\d{4})-(\d{2})-(\d{2})$/;
+const LONG = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
 
-/** A YYYY-MM-DD date as a visitor reads it; anything else is shown as given. */
+/** A YYYY-MM-DD date as a visitor reads it ("14 May 2026"); anything else is shown as given. */
 export function dayText(iso: string): string {
   const m = ISO_DAY.exec(iso);
-  return m ? `${Number(m[3])} ${MONTHS[Number(m[2]) - 1]} ${m[1]}` : iso;
+  return m ? LONG.format(new Date(Date.UTC(Number(m[1]), Number(m[2]) - 1, Number(m[3])))) : iso;
 }
 
 /** The calendar day of a moment where the visitor is (their device's time zone), as YYYY-MM-DD. */

@@ -35,9 +35,23 @@ export function daysBetween(from: string, to: string): number {
   return Math.round((Date.UTC(y2, m2 - 1, d2) - Date.UTC(y1, m1 - 1, d1)) / 86_400_000);
 }
 
-/** "14 May 2026", the way notices and findings print a date. */
+const LONG = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'long', year: 'numeric', timeZone: 'UTC' });
+
+/** "14 May 2026", the way notices and findings print a date; a text that is not YYYY-MM-DD is given back as it is. */
 export function longDate(iso: string): string {
   const [y, m, d] = parts(iso);
-  const months = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
-  return `${d} ${months[m - 1]} ${y}`;
+  return y && m && d ? LONG.format(new Date(Date.UTC(y, m - 1, d))) : iso;
+}
+
+/**
+ * Three-letter months for "10 Feb 2025". Kept by hand rather than Intl: en-GB's short month for
+ * September is "Sept" in current ICU, and labels and table columns are sized for three letters.
+ */
+const SHORT_MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** "10 Feb 2025": the short date of charts, labels and screens; a text that is not YYYY-MM-DD is given back as it is. */
+export function shortDate(iso: string): string {
+  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(iso);
+  const month = m ? SHORT_MONTHS[Number(m[2]) - 1] : undefined;
+  return m && month && Number(m[3]) >= 1 && Number(m[3]) <= 31 ? `${Number(m[3])} ${month} ${m[1]}` : iso;
 }

@@ -1,12 +1,9 @@
 /** Dates as printed on notices and charts: "10 Feb 2025", unambiguous wherever the reader is from. */
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+import { shortDate } from '../../../shared/rules/dates.js';
 
 /** `YYYY-MM-DD` → "10 Feb 2025"; null stays null. */
 export function printedDate(iso: string | null | undefined): string | null {
-  if (!iso) return null;
-  const [y, m, d] = iso.split('-').map(Number);
-  if (!y || !m || !d) return iso;
-  return `${d} ${MONTHS[m - 1]} ${y}`;
+  return iso ? shortDate(iso) : null;
 }
 
 /** The printed next-inspection date when it is already before `today` (both `YYYY-MM-DD`), else null. */

@@ -1,18 +1,14 @@
 /** Dates as a UK reader expects them ("3 Mar 2025, 14:05"); an unreadable value is shown as it came. */
+import { shortDate } from '../../../shared/rules/dates.js';
+
 export function formatDateTime(iso: string): string {
   const date = new Date(iso);
   if (Number.isNaN(date.getTime())) return iso;
   return new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', hour: '2-digit', minute: '2-digit' }).format(date);
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
 /** A calendar day (YYYY-MM-DD) in the same style, "1 Jun 2027"; read as written, with no time zone to shift it. */
-export function formatDay(day: string): string {
-  const m = /^(\d{4})-(\d{2})-(\d{2})$/.exec(day);
-  const month = m ? MONTHS[Number(m[2]) - 1] : undefined;
-  return m && month && Number(m[3]) >= 1 && Number(m[3]) <= 31 ? `${Number(m[3])} ${month} ${m[1]}` : day;
-}
+export const formatDay = shortDate;
 
 /**
  * Text written by the server with calendar days in it ("installation date 2025-06-01 → 2027-06-01")
