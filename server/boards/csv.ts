@@ -1,7 +1,10 @@
 /**
- * RFC 4180 CSV, small and strict enough for spreadsheets: commas, double-quoted fields with
- * doubled quotes inside, CRLF or LF line ends, line breaks inside quoted fields. Pure functions.
+ * RFC 4180 CSV through csv-parse and csv-stringify: commas, double-quoted fields with doubled
+ * quotes inside, CRLF or LF line ends, line breaks inside quoted fields. Pure functions; what is
+ * ours is the error wording (by spreadsheet row) and the formula guard.
  */
+import { parse } from 'csv-parse/sync';
+import { stringify } from 'csv-stringify/sync';
 
 /** A cell that cannot be read as CSV, with the spreadsheet row it is on (the first line is row 1). */
 export class CsvSyntaxError extends Error {
@@ -10,58 +13,34 @@ export class CsvSyntaxError extends Error {
   }
 }
 
-/** Splits CSV text into records of cells. A byte-order mark at the start is dropped. */
+/** What each of the reader's errors means to someone holding a spreadsheet. */
+const MESSAGES: Record<string, string> = {
+  INVALID_OPENING_QUOTE: 'A quote inside an unquoted cell: put the whole cell in quotes and double the quote',
+  CSV_INVALID_OPENING_QUOTE: 'A quote inside an unquoted cell: put the whole cell in quotes and double the quote',
+  CSV_QUOTE_NOT_CLOSED: 'A quoted cell is never closed',
+  CSV_INVALID_CLOSING_QUOTE: 'Text after a closing quote: put the whole cell in quotes',
+};
+
+/**
+ * Splits CSV text into records of cells (csv-parse, RFC 4180). A byte-order mark at the start is
+ * dropped; rows may have fewer or more cells than the header, for the caller to judge by column.
+ */
 export function parseCsv(text: string): string[][] {
-  const src = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-  const records: string[][] = [];
-  let record: string[] = [];
-  const special = /[",\r\n]/g;
-  let i = 0;
-  let cell = '';
-  while (i <= src.length) {
-    special.lastIndex = i;
-    const m = special.exec(src);
-    const end = m ? m.index : src.length;
-    cell += src.slice(i, end);
-    if (!m) { if (cell !== '' || record.length) { record.push(cell); records.push(record); } break; }
-    const ch = m[0];
-    if (ch === '"') {
-      if (cell !== '') throw new CsvSyntaxError(records.length + 1, 'A quote inside an unquoted cell: put the whole cell in quotes and double the quote');
-      const closed = readQuoted(src, end + 1);
-      if (!closed) throw new CsvSyntaxError(records.length + 1, 'A quoted cell is never closed');
-      cell = closed.value;
-      i = closed.next;
-      if (i < src.length && !/[,\r\n]/.test(src[i])) throw new CsvSyntaxError(records.length + 1, 'Text after a closing quote: put the whole cell in quotes');
-      continue;
-    }
-    record.push(cell);
-    cell = '';
-    if (ch === ',') { i = end + 1; continue; }
-    records.push(record);
-    record = [];
-    i = ch === '\r' && src[end + 1] === '\n' ? end + 2 : end + 1;
-    if (i >= src.length) break;
-  }
-  return records;
-}
-
-/** A quoted cell's text from just after its opening quote; null when it never closes. */
-function readQuoted(src: string, from: number): { value: string; next: number } | null {
-  let value = '';
-  let i = from;
-  for (;;) {
-    const q = src.indexOf('"', i);
-    if (q < 0) return null;
-    value += src.slice(i, q);
-    if (src[q + 1] === '"') { value += '"'; i = q + 2; continue; }
-    return { value, next: q + 1 };
+  try {
+    return parse(text, { bom: true, relax_column_count: true }) as string[][];
+  } catch (err) {
+    const e = err as { code?: string; records?: number; message?: string };
+    if (e.code && typeof e.records === 'number') throw new CsvSyntaxError(e.records + 1, MESSAGES[e.code] ?? `Not readable as CSV: ${e.message ?? e.code}`);
+    throw err;
   }
 }
 
-/** Writes records as CSV with CRLF line ends, quoting only the cells that need it. */
+/**
+ * Writes records as CSV with CRLF line ends (csv-stringify), quoting the cells that need it and
+ * those with a line break or leading or trailing space, so a spreadsheet keeps them as written.
+ */
 export function formatCsv(records: string[][]): string {
-  const quote = (cell: string) => (/[",\r\n]|^\s|\s$/.test(cell) ? `"${cell.replace(/"/g, '""')}"` : cell);
-  return records.map((r) => r.map(quote).join(',')).join('\r\n') + '\r\n';
+  return stringify(records, { record_delimiter: 'windows', quoted_match: /^\s|\s$|[\r\n]/ });
 }
 
 /**
