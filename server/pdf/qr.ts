@@ -9,7 +9,7 @@ import { LayoutError } from './types.js';
 
 /** Quiet zone on every side, in modules. // ISO/IEC 18004 */
 export const QR_QUIET_MODULES = 4;
-/** Smallest printed module a phone reads at hand distance (mm). // REFERENCE.md: guidance, secondary pages */
+/** Smallest printed module a phone reads at hand distance (mm). // common practice (printing guidance for phone cameras) */
 export const QR_MIN_MODULE_MM = 0.4;
 
 export interface QrMatrix { size: number; dark: Uint8Array }

@@ -67,7 +67,7 @@ describe('the public board page data', () => {
     expect(page.revision.number).toBe(board.revision);
     expect(page.revision.date).toMatch(/^\d{4}-\d{2}-\d{2}$/);
     expect(page.inspection.lastOn).toBe('2024-03-11');
-    // IET Guidance Note 3: domestic installations, 10 years (REFERENCE.md, found in secondary pages).
+    // IET Guidance Note 3: domestic installations, 10 years (found in secondary sources; see docs/sources.md).
     expect(page.inspection.nextOn).toBe('2034-03-11');
     for (const caution of GENERAL_CAUTIONS) expect(page.cautions).toContain(caution);
   });
@@ -78,11 +78,11 @@ describe('the public board page data', () => {
     const board = await createBoard(owner, workshop, false);
     const page = publicBoardSchema.parse((await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body);
     expect(page.board.phases).toBe(3);
-    // BS 7671 514.10.1 (REFERENCE.md, found): a warning where more than 230 V to earth would not normally be expected.
+    // BS 7671 514.10.1 (found): a warning where more than 230 V to earth would not normally be expected.
     expect(page.cautions).toContain(THREE_PHASE_CAUTION);
     // IEC 60038 nominal 230/400 V (from memory).
     expect(page.supply).toMatchObject({ nominalVoltage: 230, betweenPhasesVoltage: 400, voltageText: '400/230 V (three-phase, 230 V to earth)' });
-    // IET Guidance Note 3 (REFERENCE.md, secondary pages): industrial, 3 years from 8 November 2022. "Overdue" is the browser's call.
+    // IET Guidance Note 3 (found in secondary sources; see docs/sources.md): industrial, 3 years from 8 November 2022. "Overdue" is the browser's call.
     expect(page.inspection).toEqual({ lastOn: '2022-11-08', nextOn: '2025-11-08' });
     expect(page.ways.map((w) => w.wayText)).toEqual(['1', '2', '3', '4 L1', '4 L2', '4 L3', '5 L1', '5 L2']);
   });

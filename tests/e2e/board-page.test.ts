@@ -149,11 +149,11 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
 
     const page = await app.newPage({ viewport: PHONE });
     page.setDefaultTimeout(60_000);
-    // IET Guidance Note 3 (REFERENCE.md, secondary pages): industrial, 3 years, so due by 8 November 2025. The browser's day decides.
+    // IET Guidance Note 3 (found in secondary sources; see docs/sources.md): industrial, 3 years, so due by 8 November 2025. The browser's day decides.
     await page.clock.setFixedTime(new Date(2025, 10, 9, 9, 0));
     await page.goto(`/b/${token}`, { waitUntil: 'networkidle' });
     await page.getByRole('heading', { level: 1, name: workshop.board.name }).waitFor();
-    // BS 7671 514.10.1 (REFERENCE.md, found): warn where more than 230 V to earth would not normally be expected.
+    // BS 7671 514.10.1 (found): warn where more than 230 V to earth would not normally be expected.
     const cautions = page.locator('.public-cautions li');
     expect(await cautions.nth(1).textContent()).toContain('400 V is present between the phases');
     // IEC 60038 nominal 230/400 V (from memory).

@@ -5,7 +5,7 @@
  */
 import type { Cable } from '../../../shared/schemas/schedule.js';
 
-/** Flat twin-and-earth overall width × height by live csa (mm). // REFERENCE.md (partly): makers vary */
+/** Flat twin-and-earth overall width × height by live csa (mm). // from memory: makers' data vary */
 export const TWIN_EARTH_SIZE_MM: Record<number, { w: number; h: number }> = {
   1: { w: 7.8, h: 4.25 },
   1.5: { w: 8.2, h: 5 },

@@ -19,7 +19,7 @@ describe('a combined AFDD/RCBO', () => {
   });
 
   it('when the RCD test notice is printed, then it counts the AFDD/RCBO among the devices with a test button', async () => {
-    // BS 7671 514.12.2: a notice to test each RCD by its test button (REFERENCE.md, partly).
+    // BS 7671 514.12.2: a notice to test each RCD by its test button (from memory).
     const before = (await pdfText((await renderOutput(request('notices', 'a4', {}, tenCircuitBoard()))).pdf)).replace(/\s+/g, ' ');
     const after = (await pdfText((await renderOutput(request('notices', 'a4', {}, withAfddRcbo()))).pdf)).replace(/\s+/g, ' ');
     const count = (t: string) => Number(t.match(/(\d+) RCBOs?/)?.[1] ?? 0);

@@ -60,7 +60,7 @@ describe('QR codes and barcodes', () => {
     const qr = codesOf(layout.pages[0].items, 'qr')[0];
     const size = qrMatrix(BOARD_URL).size;
     const moduleMm = qr.area.w / (size + 2 * QR_QUIET_MODULES);
-    expect(moduleMm).toBeGreaterThanOrEqual(0.4); // REFERENCE.md: ~0.4 mm per module for a phone at hand distance
+    expect(moduleMm).toBeGreaterThanOrEqual(0.4); // common practice: ~0.4 mm per module for a phone at hand distance
     const minX = Math.min(...qr.boxes.map((b) => b.x));
     const minY = Math.min(...qr.boxes.map((b) => b.y));
     expect(minX - qr.area.x).toBeCloseTo(4 * moduleMm, 6); // ISO/IEC 18004: quiet zone 4 modules
@@ -68,7 +68,7 @@ describe('QR codes and barcodes', () => {
   });
 
   it('when the tape is too narrow for a readable QR code, then a LayoutError names the tape that would work', () => {
-    // (33 + 8) modules × 0.4 mm = 16.4 mm: more than the 15 mm band of 18 mm tape. ISO/IEC 18004 + REFERENCE.md
+    // (33 + 8) modules × 0.4 mm = 16.4 mm: more than the 15 mm band of 18 mm tape. ISO/IEC 18004 quiet zone; 0.4 mm module: common practice
     expect(() => layoutOutput(request('tag', 'tape-12'))).toThrow(LayoutError);
     expect(() => layoutOutput(request('tag', 'tape-18'))).toThrow(/tape-24 or wider/);
   });

@@ -17,9 +17,9 @@ function specs(options = {}, mediaId = 'tape-12') {
 
 describe('cable flags', () => {
   it('when the cable is flat twin and earth, then the wrap is its perimeter 2(w + h)', () => {
-    expect(cablePerimeter(cable({ liveCsa: 2.5 })).perimeterMm).toBeCloseTo(2 * (10.3 + 6), 9); // REFERENCE.md: 2.5 mm² T&E 10.3 × 6 mm (partly)
-    expect(cablePerimeter(cable({ liveCsa: 1.5 })).perimeterMm).toBeCloseTo(2 * (8.2 + 5), 9); // REFERENCE.md: 1.5 mm² T&E 8.2 × 5 mm (partly)
-    expect(TWIN_EARTH_SIZE_MM[6]).toEqual({ w: 13.5, h: 7 }); // REFERENCE.md: 6 mm² T&E 13.5 × 7 mm (partly)
+    expect(cablePerimeter(cable({ liveCsa: 2.5 })).perimeterMm).toBeCloseTo(2 * (10.3 + 6), 9); // from memory (makers' data vary): 2.5 mm² T&E 10.3 × 6 mm
+    expect(cablePerimeter(cable({ liveCsa: 1.5 })).perimeterMm).toBeCloseTo(2 * (8.2 + 5), 9); // from memory (makers' data vary): 1.5 mm² T&E 8.2 × 5 mm
+    expect(TWIN_EARTH_SIZE_MM[6]).toEqual({ w: 13.5, h: 7 }); // from memory (makers' data vary): 6 mm² T&E 13.5 × 7 mm
   });
 
   it('when a round cable has a diameter, then the wrap is π·d whatever its type', () => {
@@ -31,7 +31,7 @@ describe('cable flags', () => {
   it('when flags are laid out, then each is panel + wrap (perimeter + overlap) + panel, the panels mirrored', () => {
     const layout = layoutOutput(request('flags', 'tape-12', { ways: '4', overlapMm: 5 }));
     const page = layout.pages[0];
-    const wrap = 2 * (13.5 + 7) + 5; // REFERENCE.md: 6 mm² T&E 13.5 × 7 mm, plus the 5 mm overlap asked for
+    const wrap = 2 * (13.5 + 7) + 5; // from memory (makers' data vary): 6 mm² T&E 13.5 × 7 mm, plus the 5 mm overlap asked for
     // Fold ticks run across the tape at each end of the wrap zone.
     const ticks = page.items.filter((i) => i.kind === 'line' && i.lineMm === 0.2 && Math.abs(i.from.y - i.to.y) < 1e-9);
     const foldYs = [...new Set(ticks.map((t) => (t.kind === 'line' ? t.from.y.toFixed(6) : '')))].map(Number).sort((a, b) => a - b);
@@ -65,7 +65,7 @@ describe('cable flags', () => {
     const layout = layoutOutput(request('flags', 'tape-18', { ways: '7' }));
     expect(layout.pages).toHaveLength(1);
     expect(layout.pages[0].widthMm).toBe(18); // tape-18
-    expect(layout.pages[0].heightMm).toBeGreaterThan(2 * (17.1 + 10)); // longer than the wrap for 10 mm² T&E (REFERENCE.md)
+    expect(layout.pages[0].heightMm).toBeGreaterThan(2 * (17.1 + 10)); // longer than the wrap for 10 mm² T&E (from memory; makers' data vary)
     expect(runsOutside(layout)).toEqual([]);
   });
 

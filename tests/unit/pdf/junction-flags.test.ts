@@ -31,7 +31,7 @@ describe('junction-box cable flags', () => {
 
   it('when a junction-box flag is laid out, then it is the board flag piece: two panels either side of the wrap for the old cable', () => {
     const page = layoutOutput(request('flags', 'tape-12', { at: 'junction-boxes', overlapMm: 5 }, bungalowBoard.schedule)).pages[0];
-    const wrap = 2 * (10.3 + 6) + 5; // REFERENCE.md: 2.5 mm² T&E 10.3 × 6 mm (partly), plus the 5 mm overlap asked for
+    const wrap = 2 * (10.3 + 6) + 5; // from memory (makers' data vary): 2.5 mm² T&E 10.3 × 6 mm, plus the 5 mm overlap asked for
     const ticks = page.items.filter((i) => i.kind === 'line' && i.lineMm === 0.2 && Math.abs(i.from.y - i.to.y) < 1e-9);
     const foldYs = [...new Set(ticks.map((t) => (t.kind === 'line' ? t.from.y.toFixed(6) : '')))].map(Number).sort((a, b) => a - b);
     expect(foldYs).toHaveLength(2);

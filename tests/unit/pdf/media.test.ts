@@ -37,7 +37,7 @@ describe('media', () => {
       const m = resolveMedium(`tape-${width}`);
       if (m.kind !== 'tape') throw new Error('expected tape');
       expect(m.widthMm).toBe(width);
-      expect(width - m.printableMm).toBeGreaterThanOrEqual(2); // REFERENCE.md: printable roughly width minus 2–3 mm (common practice)
+      expect(width - m.printableMm).toBeGreaterThanOrEqual(2); // common practice: printable roughly width minus 2–3 mm
       expect(width - m.printableMm).toBeLessThanOrEqual(3);
     }
     expect(resolveMedium('tape-12', undefined, { 12: { printableMm: 10 } })).toMatchObject({ printableMm: 10 });

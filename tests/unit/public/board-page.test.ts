@@ -24,7 +24,7 @@ function board(parts: Partial<ScheduleInput['board']>, circuits: ScheduleInput['
 describe('three-phase boards on the board page', () => {
   it('when the board has three phases, then the 400 V caution comes right after "isolate and prove dead"', () => {
     const workshop = page(demo('workshop'));
-    // BS 7671 514.10.1 (REFERENCE.md, found): warn where more than 230 V to earth would not normally be expected.
+    // BS 7671 514.10.1 (found): warn where more than 230 V to earth would not normally be expected.
     expect(workshop.cautions[1]).toBe(THREE_PHASE_CAUTION);
     expect(THREE_PHASE_CAUTION).toMatch(/400 V is present between the phases/);
     for (const caution of GENERAL_CAUTIONS) expect(workshop.cautions).toContain(caution);
@@ -56,7 +56,7 @@ describe('three-phase boards on the board page', () => {
     const cautions = page(board({ phases: 3, alternativeSupply: { present: true, kinds: ['pv'] } }, [])).cautions;
     expect(cautions[0]).toBe(GENERAL_CAUTIONS[0]);
     expect(cautions[1]).toBe(THREE_PHASE_CAUTION);
-    // BS 7671 514.15.1 (REFERENCE.md, partly): isolate every source.
+    // BS 7671 514.15.1 (from memory): isolate every source.
     expect(cautions[2]).toMatch(/another source of supply \(solar PV\)/);
   });
 });
@@ -96,7 +96,7 @@ describe('overdue inspection', () => {
   const workshopNext = nextInspectionDate(demo('workshop').board);
 
   it('when the recommended date is before today, then overdue; on the day itself or later, not', () => {
-    // IET Guidance Note 3 (REFERENCE.md, secondary pages): industrial, 3 years from 8 November 2022.
+    // IET Guidance Note 3 (found in secondary sources; see docs/sources.md): industrial, 3 years from 8 November 2022.
     expect(workshopNext).toBe('2025-11-08');
     expect(isOverdue(workshopNext, '2025-11-09')).toBe(true);
     expect(isOverdue(workshopNext, '2025-11-08')).toBe(false);

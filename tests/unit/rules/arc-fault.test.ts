@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { makeSchedule, oneCircuit, withCode } from './fixtures.js';
 
 // BS 7671:2018+A2:2022 421.1.7: AFDDs to BS EN 62606 required on single-phase socket-outlet final circuits up to
-// 32 A in HMOs (among other building types), recommended elsewhere (REFERENCE.md, found).
+// 32 A in HMOs (among other building types), recommended elsewhere (found).
 const afdd = { kind: 'afdd' as const, rating: 32, curve: 'B' as const, residualMa: 30, rcdType: 'A' as const };
 
 describe('421.1.7 arc fault detection on socket-outlet circuits', () => {
