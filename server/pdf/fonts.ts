@@ -3,6 +3,7 @@
  * metrics parsed once (cached advance widths per code point); drawing embeds the same bytes
  * as a subset per document. Measuring exactly as pdf-lib encodes keeps fitted text in its cell.
  */
+import { LRUCache } from 'lru-cache';
 import { readFileSync } from 'node:fs';
 import fontkit from '@pdf-lib/fontkit';
 import { MM_PER_PT, type FontFace, type TypeMetrics } from './model.js';
@@ -54,13 +55,12 @@ const LAYOUT_CACHE_MAX = 20000;
  * glyph runs are reused instead of shaped again. Glyph runs are only read, never changed.
  */
 function withLayoutCache(font: FontkitFont): FontkitFont {
-  const runs = new Map<string, ReturnType<FontkitFont['layout']>>();
+  const runs = new LRUCache<string, ReturnType<FontkitFont['layout']>>({ max: LAYOUT_CACHE_MAX });
   const layout = (text: string, features?: Parameters<FontkitFont['layout']>[1]) => {
     if (features !== undefined) return font.layout(text, features);
     let run = runs.get(text);
     if (!run) {
       run = font.layout(text);
-      if (runs.size >= LAYOUT_CACHE_MAX) runs.clear();
       runs.set(text, run);
     }
     return run;
@@ -78,8 +78,9 @@ export function isSimple(cp: number): boolean {
 }
 
 const advanceCache = new Map<FontFace, Map<number, number>>();
-const shapedCache = new Map<string, number>();
+/** Most recent widths and printable texts kept (least recently used go first). */
 const SHAPED_CACHE_MAX = 5000;
+const shapedCache = new LRUCache<string, number>({ max: SHAPED_CACHE_MAX });
 
 function advance(font: FontkitFont, cp: number, cache: Map<number, number>): number {
   let a = cache.get(cp);
@@ -114,14 +115,13 @@ function shapedWidth(text: string, face: FontFace, font: FontkitFont): number {
     } catch {
       w = Array.from(text).reduce((s, ch) => s + font.glyphForCodePoint(ch.codePointAt(0)!).advanceWidth, 0) / font.unitsPerEm;
     }
-    if (shapedCache.size >= SHAPED_CACHE_MAX) shapedCache.clear();
     shapedCache.set(key, w);
   }
   return w;
 }
 
 const REPLACEMENT = '\ufffd';
-const printableCache = new Map<string, string>();
+const printableCache = new LRUCache<string, string>({ max: SHAPED_CACHE_MAX });
 
 /**
  * Text the face can draw: code points it has no glyph for become U+FFFD, and a string whose
@@ -143,7 +143,6 @@ function printable(text: string, face: FontFace): string {
   if (!simple) {
     try { font.layout(out); } catch { out = unshaped(out); }
   }
-  if (printableCache.size >= SHAPED_CACHE_MAX) printableCache.clear();
   printableCache.set(key, out);
   return out;
 }

@@ -3,6 +3,7 @@
  * with the 4-module quiet zone of ISO/IEC 18004. A code too small for a phone is refused with a
  * message that says what would work, never drawn blurry.
  */
+import { LRUCache } from 'lru-cache';
 import QRCode from 'qrcode';
 import { WHITE, BLACK, type Box, type Item } from './model.js';
 import { LayoutError } from './types.js';
@@ -14,7 +15,8 @@ export const QR_MIN_MODULE_MM = 0.4;
 
 export interface QrMatrix { size: number; dark: Uint8Array }
 
-const cache = new Map<string, QrMatrix>();
+/** A board's URL is encoded again and again; the most recent few hundred are kept. */
+const cache = new LRUCache<string, QrMatrix>({ max: 200 });
 
 /** Module matrix for `text` at error correction M (cached: a board's URL is encoded again and again). */
 export function qrMatrix(text: string): QrMatrix {
@@ -22,7 +24,6 @@ export function qrMatrix(text: string): QrMatrix {
   if (!m) {
     const code = QRCode.create(text, { errorCorrectionLevel: 'M' });
     m = { size: code.modules.size, dark: Uint8Array.from(code.modules.data) };
-    if (cache.size > 200) cache.clear();
     cache.set(text, m);
   }
   return m;
