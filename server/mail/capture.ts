@@ -3,17 +3,18 @@
  * `captured_mail` table, where the dev-only mail page and the tests read it. Never used in production.
  */
 import { SMTPServer } from 'smtp-server';
+import { simpleParser } from 'mailparser';
 import type { Db } from '../db/client.js';
 import { capturedMail } from '../db/schema.js';
 import { ORGANISATION_HEADER } from './mailer.js';
 
 export interface CaptureServer { port: number; close(): Promise<void> }
 
-function header(raw: string, name: string): string {
-  const head = raw.split(/\r?\n\r?\n/)[0] ?? '';
-  const unfolded = head.replace(/\r?\n[ \t]+/g, ' ');
-  const m = unfolded.match(new RegExp(`^${name}:\\s*(.*)$`, 'im'));
-  return m ? m[1].trim() : '';
+/** The subject (encoded words decoded) and the sending organisation's header, read by mailparser. */
+async function headersOf(raw: string): Promise<{ subject: string; organisation: number }> {
+  const mail = await simpleParser(raw, { skipHtmlToText: true, skipTextToHtml: true, skipImageLinks: true });
+  const org = mail.headers.get(ORGANISATION_HEADER.toLowerCase());
+  return { subject: mail.subject ?? '', organisation: Number(typeof org === 'string' ? org.trim() : NaN) };
 }
 
 export async function startCaptureServer(db: Db, port = 0): Promise<CaptureServer> {
@@ -28,12 +29,12 @@ export async function startCaptureServer(db: Db, port = 0): Promise<CaptureServe
       stream.on('end', async () => {
         try {
           const raw = Buffer.concat(chunks).toString('utf8');
-          const organisation = Number(header(raw, ORGANISATION_HEADER));
+          const { subject, organisation } = await headersOf(raw);
           await db.insert(capturedMail).values({
             organisationId: Number.isInteger(organisation) && organisation > 0 ? organisation : null,
             envelopeFrom: session.envelope.mailFrom ? session.envelope.mailFrom.address : '',
             envelopeTo: session.envelope.rcptTo.map((r) => r.address).join(', '),
-            subject: header(raw, 'Subject').slice(0, 500),
+            subject: subject.slice(0, 500),
             raw,
           });
           callback();

@@ -5,6 +5,9 @@
 
 export type ImageMime = 'image/png' | 'image/jpeg';
 
+// Kept by hand rather than a file-type package: only two types are taken, and a PNG must also carry
+// its IHDR chunk where the specification puts it, which signature-only detection does not check.
+
 // PNG signature and the IHDR chunk that must follow it (ISO/IEC 15948 / PNG spec 5.2, 11.2.2).
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 const PNG_IHDR = [0x49, 0x48, 0x44, 0x52];

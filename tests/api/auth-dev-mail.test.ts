@@ -32,6 +32,9 @@ describe('dev-only captured mail, when it is on', () => {
     const res = await owner.get(`/api/dev/mail/${row.id}`).expect(200);
     const message = capturedMailMessageSchema.parse(res.body);
     expect(message.subject).toBe('Café test ½');
+    // The list's subject is decoded from the encoded header as well, not stored as =?UTF-8?…?= text.
+    const list = capturedMailListSchema.parse((await owner.get(`/api/dev/mail?to=${encodeURIComponent(to)}`).expect(200)).body);
+    expect(list.messages[0]!.subject).toBe('Café test ½');
     expect(message.text).toBe(text);
     expect(message.from).toContain('no-reply@waymark.test');
     expect(message.attachments).toEqual([{ filename: 'chart.pdf', contentType: 'application/pdf', size: 9 }]);
