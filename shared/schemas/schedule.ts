@@ -15,6 +15,9 @@ import { circuitReadingsSchema, fuseStandards, rcdTripTimesSchema, surveySchema 
 export * from './schedule-parts.js';
 export { fuseStandards, type FuseStandard } from './survey.js';
 
+/** Most DIN rows a board may have: the schema's limit, which the editor offers in full. */
+export const MAX_ROWS = 60;
+
 /** Longest short label: what fits a way label over one 17.5 mm module at the minimum text size. */
 export const SHORT_LABEL_MAX = 24;
 
@@ -32,7 +35,7 @@ export const supplySchema = z.strictObject({
 export const boardDetailsSchema = z.strictObject({
   name: singleLine(120).min(1, 'Required'),
   location: singleLine(200).default(''),
-  rows: z.number().int('Whole rows only').min(1, 'At least one row').max(60, 'At most 60 rows').default(1),
+  rows: z.number().int('Whole rows only').min(1, 'At least one row').max(MAX_ROWS, `At most ${MAX_ROWS} rows`).default(1),
   modulesPerRow: z.number().int('Whole modules only').min(1, 'At least one module').max(72, 'At most 72 modules').default(18),
   phases: z.union([z.literal(1), z.literal(3)], { error: 'Phases must be 1 or 3' }).default(1),
   installationType: z.enum(installationTypes).default('domestic'),
