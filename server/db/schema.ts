@@ -29,6 +29,8 @@ export const organisations = mysqlTable('organisations', {
   /** Millimetre offsets applied to every PDF page, to correct a printer's feed. */
   printOffsetXMm: double('print_offset_x_mm').notNull().default(0),
   printOffsetYMm: double('print_offset_y_mm').notNull().default(0),
+  /** Bumped by every write; a save names the revision it was made from (`WHERE revision = baseRevision`), so a stale one is 409. */
+  revision: int('revision').notNull().default(1),
   createdAt: now(),
 });
 
@@ -108,6 +110,8 @@ export const sites = mysqlTable('sites', {
   clientEmail: varchar('client_email', { length: 254 }).notNull().default(''),
   clientPhone: varchar('client_phone', { length: 40 }).notNull().default(''),
   notes: text('notes').notNull(),
+  /** Bumped by every write; a save names the revision it was made from (`WHERE revision = baseRevision`), so a stale one is 409. */
+  revision: int('revision').notNull().default(1),
   createdAt: now(),
 }, (t) => [index('sites_org_idx').on(t.organisationId)]);
 
@@ -174,6 +178,8 @@ export const sheetLayouts = mysqlTable('sheet_layouts', {
   gapXMm: double('gap_x_mm').notNull().default(0),
   gapYMm: double('gap_y_mm').notNull().default(0),
   cornerRadiusMm: double('corner_radius_mm').notNull().default(0),
+  /** Bumped by every write; a save names the revision it was made from (`WHERE revision = baseRevision`), so a stale one is 409. */
+  revision: int('revision').notNull().default(1),
   createdAt: now(),
 }, (t) => [index('sheet_layouts_org_idx').on(t.organisationId)]);
 
