@@ -18,13 +18,21 @@ export { fuseStandards, type FuseStandard } from './survey.js';
 /** Most DIN rows a board may have: the schema's limit, which the editor offers in full. */
 export const MAX_ROWS = 60;
 
+/**
+ * Largest Ze or Zs the schedule takes (Ω). A TT installation's readings include its earth electrode, and
+ * BS 7671:2018+A2 Table 41.5 allows up to 1667 Ω for a 30 mA RCD (50 V / 0.03 A), so the cap sits above
+ * that, as the survey's readings do; it only catches a slip of the decimal point.
+ */
+export const LOOP_IMPEDANCE_MAX_OHMS = 2000;
+
 /** Longest short label: what fits a way label over one 17.5 mm module at the minimum text size. */
 export const SHORT_LABEL_MAX = 24;
 
 export const supplySchema = z.strictObject({
   earthing: z.enum(earthingArrangements),
   nominalVoltage: positive('Nominal voltage', 1000).default(230),
-  ze: z.number().nonnegative('Ze cannot be negative').max(200, 'Ze is at most 200 Ω').nullable().default(null),
+  ze: z.number().nonnegative('Ze cannot be negative')
+    .max(LOOP_IMPEDANCE_MAX_OHMS, `Ze is at most ${LOOP_IMPEDANCE_MAX_OHMS} Ω: check the decimal point`).nullable().default(null),
   pfcKa: z.number().nonnegative('Fault current cannot be negative').max(100, 'At most 100 kA').nullable().default(null),
   mainSwitchRating: positive('Main switch rating', 4000).nullable().default(null),
   tailsCsa: positive('Tails csa', 1000).nullable().default(null),
@@ -95,7 +103,8 @@ export const circuitSchema = z.strictObject({
   locations: z.array(singleLine(60).min(1, 'Empty location')).max(20, 'At most 20 locations').default([]),
   /** Way or reference on the board this circuit came from, for replacements. */
   previousReference: singleLine(40).default(''),
-  measuredZs: z.number().nonnegative('Zs cannot be negative').max(200, 'At most 200 Ω').nullable().default(null),
+  measuredZs: z.number().nonnegative('Zs cannot be negative')
+    .max(LOOP_IMPEDANCE_MAX_OHMS, `Zs is at most ${LOOP_IMPEDANCE_MAX_OHMS} Ω: check the decimal point`).nullable().default(null),
   /** Measured at ambient temperature (so the 80 % rule of thumb applies) rather than at operating temperature. */
   zsAtAmbient: z.boolean().default(true),
   /** Cable ends at the labelling point: a ring final has two. */

@@ -48,6 +48,16 @@ describe('circuits as CSV', () => {
     expect(result.ok && result.circuits).toEqual(circuits);
   });
 
+  it('when a TT circuit\'s Zs is in the thousands of ohms, then it goes out and back in; over the 2000 Ω cap the row is refused', () => {
+    const { circuits } = makeSchedule(2);
+    circuits[0].measuredZs = 1650.5; // a TT reading within 1667 Ω, BS 7671:2018+A2 Table 41.5 for 30 mA (from memory)
+    const csv = circuitsToCsv(circuits);
+    expect(csv).toContain(',1650.5,');
+    const back = circuitsFromCsv(csv, circuits);
+    expect(back.ok && back.circuits[0].measuredZs).toBe(1650.5);
+    expect(circuitsFromCsv('way,label,measured_zs\n1,A,1999\n2,B,2500\n', circuits)).toEqual({ ok: false, fields: { 'rows.3.measured_zs': 'Zs is at most 2000 Ω: check the decimal point' } });
+  });
+
   it('when a file holds a circuit twice by id, an unknown column or a missing required one, then each is listed', () => {
     const { circuits } = makeSchedule(2);
     expect(circuitsFromCsv('id,way,label\nc1,1,A\nc1,2,B\n', circuits)).toEqual({ ok: false, fields: { 'rows.3.id': 'The same circuit as row 2' } });

@@ -6,7 +6,7 @@ import type { Circuit, Device, Schedule } from '../../schemas/schedule.js';
 import type { Finding } from '../types.js';
 import type { FuseStandard } from '../../schemas/survey.js';
 import { TABLE_41_2, TABLE_41_4 } from './tables-fuses.js';
-import { AMBIENT_RULE_OF_THUMB, CMIN, FINAL_CIRCUIT_0_4S, INSTANT_TRIP_MULTIPLE, TABLE_41_3, table41_5MaxZs } from './tables.js';
+import { AMBIENT_RULE_OF_THUMB, CMIN, FINAL_CIRCUIT_0_4S, INSTANT_TRIP_MULTIPLE, TABLE_41_3, table41_5MaxZs, TT_ELECTRODE_STABLE_MAX_OHMS } from './tables.js';
 import { circuitFinding, circuitName, deviceName, isOvercurrentDevice, ohms, type CircuitFacts, type ScheduleView } from './view.js';
 
 /** The maximum Zs for a circuit and where it comes from, as the chart and the findings quote it. */
@@ -103,4 +103,18 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
 /** Measured Zs against the maximum for each circuit's device. */
 export function checkEarthFaultLoop(view: ScheduleView): Finding[] {
   return view.circuits.flatMap((f) => checkCircuit(view, f));
+}
+
+/**
+ * A TT installation's Ze is in the main its earth electrode's resistance. Above 200 Ω it may be within
+ * Table 41.5 yet unstable as the soil dries or freezes (IET guidance), so it is a warning to look at the
+ * electrode, not an error.
+ */
+export function checkElectrode(view: ScheduleView): Finding[] {
+  const { earthing, ze } = view.schedule.board.supply;
+  if (earthing !== 'TT' || ze == null || ze <= TT_ELECTRODE_STABLE_MAX_OHMS) return [];
+  return [{
+    severity: 'warning', code: 'tt-electrode-may-be-unstable', rule: 'IET Guidance Note 3', ways: [], field: 'board.supply.ze',
+    message: `Ze ${ohms(ze)} is above ${TT_ELECTRODE_STABLE_MAX_OHMS} Ω: IET guidance treats an earth electrode resistance this high as possibly unstable (the soil drying or freezing raises it); check the electrode and consider improving it`,
+  }];
 }

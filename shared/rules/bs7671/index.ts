@@ -9,7 +9,7 @@ import { checkBreakingCapacity } from './breaking-capacity.js';
 import { checkCapacity } from './capacity.js';
 import { checkCircuitData } from './data-circuits.js';
 import { checkDeviceData } from './data-devices.js';
-import { checkEarthFaultLoop, zsLimit } from './earth-fault-loop.js';
+import { checkEarthFaultLoop, checkElectrode, zsLimit } from './earth-fault-loop.js';
 import { checkInspection, nextInspectionOn } from './inspection.js';
 import { checkLightingSpread } from './lighting-spread.js';
 import { checkRcdType } from './rcd-type.js';
@@ -36,6 +36,7 @@ export const bs7671: RuleSet = {
       ...checkDeviceData(view),
       ...checkCapacity(view),
       ...checkBreakingCapacity(view),
+      ...checkElectrode(view),
       ...checkEarthFaultLoop(view),
       ...checkAdditionalProtection(view),
       ...checkRcdType(view),

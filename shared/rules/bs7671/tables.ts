@@ -32,6 +32,12 @@ export function table41_5MaxZs(residualMa: number): number {
   return Math.round(50 / (residualMa / 1000)); // BS 7671:2018 Table 41.5, 50 V / IΔn: 30 mA → 1667 Ω (from memory)
 }
 
+/**
+ * Earth electrode resistance above which IET guidance treats a TT electrode as possibly unstable: the
+ * reading may rise as the soil dries out or freezes, even where it is within Table 41.5.
+ */
+export const TT_ELECTRODE_STABLE_MAX_OHMS = 200; // from memory: IET Guidance Note 3 / On-Site Guide (to check)
+
 /** Rule of thumb for Zs measured at ambient temperature: compare with 80 % of Table 41.3. */
 export const AMBIENT_RULE_OF_THUMB = 0.8; // IET guidance (On-Site Guide / Guidance Note 3) rule of thumb (found in trade press)
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { layoutOutput, LayoutError, renderOutput } from '../../../server/pdf/index.js';
 import { RED } from '../../../server/pdf/model.js';
 import { PNG } from 'pngjs';
-import { boardSchedule, contractor, request, tenCircuitBoard } from './fixtures.js';
+import { boardSchedule, contractor, maxZsByCircuit, request, tenCircuitBoard } from './fixtures.js';
 import { pdfText, rasterise, runsOutside, textRuns } from './helpers.js';
 
 describe('circuit chart', () => {
@@ -59,6 +59,23 @@ describe('circuit chart', () => {
     const runs = textRuns(layoutOutput(req));
     expect(runs.find((r) => r.text === '0.38')?.color).toEqual(RED);
     expect(runs.filter((r) => r.color === RED).map((r) => r.text).join(' ')).toBe('0.38 over max');
+  });
+
+  it('when a TT board has readings in the hundreds and thousands of ohms, then the header and Zs cells print them whole, inside every page size', () => {
+    const schedule = tenCircuitBoard();
+    schedule.board.supply = { ...schedule.board.supply, earthing: 'TT', ze: 1450.5 }; // within the schema's 2000 Ω cap
+    schedule.circuits[0].measuredZs = 1850; // over 1667 Ω, BS 7671:2018+A2 Table 41.5 for 30 mA (50 V / 0.03 A, from memory)
+    schedule.circuits[1].measuredZs = 1520;
+    for (const media of ['a4', 'a5', 'a5-landscape']) {
+      const req = { ...request('chart', media, {}, schedule), maxZsByCircuit: { ...maxZsByCircuit, c1: 1667, c2: 1667 } };
+      const layout = layoutOutput(req);
+      const runs = textRuns(layout);
+      expect(runs.map((r) => r.text).join(' ')).toContain('Ze 1450.5 Ω');
+      expect(runs.filter((r) => r.color === RED).map((r) => r.text).join(' ')).toBe('1850 over max');
+      expect(runs.some((r) => r.text === '1520')).toBe(true);
+      expect(runs.filter((r) => r.text === '1667')).toHaveLength(2);
+      expect(runsOutside(layout)).toEqual([]);
+    }
   });
 
   it('when the contractor has a logo, then it is drawn in the header at its own proportions', async () => {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { maxZs } from '../../../shared/rules/bs7671/index.js';
 import { maxZsFor } from '../../../shared/rules/index.js';
+import { circuitSchema, supplySchema } from '../../../shared/schemas/schedule.js';
 import { findings, oneCircuit, withCode } from './fixtures.js';
 
 // BS 7671:2018+A2 Table 41.3, maximum Zs (Ω) for BS EN 60898 breakers and RCBOs at 230 V, 0.4 s and 5 s (found)
@@ -94,5 +95,39 @@ describe('measured Zs against the maximum', () => {
   it('when a reading is recorded against a breaker with no curve, then it is reported as not checked', () => {
     const s = oneCircuit({ kind: 'mcb', curve: null, residualMa: null }, { kind: 'radial', measuredZs: 0.9 });
     expect(withCode(s, 'zs-not-checked')[0]).toMatchObject({ severity: 'info', field: 'circuits.0.measuredZs' });
+  });
+});
+
+describe('TT readings above 200 Ω', () => {
+  const tt = (ze: number | null, measuredZs: number | null = null) =>
+    oneCircuit({}, { kind: 'radial', measuredZs, zsAtAmbient: false }, { supply: { earthing: 'TT', ze } });
+
+  it('when a TT board records Ze 1500 Ω and a circuit Zs 1600 Ω, then the schema takes both and the 30 mA RCD passes Table 41.5', () => {
+    const s = tt(1500, 1600); // parsed by the real schema: the cap is 2000 Ω
+    expect(s.board.supply.ze).toBe(1500);
+    expect(s.circuits[0].measuredZs).toBe(1600);
+    expect(withCode(s, 'zs-over-max')).toEqual([]); // BS 7671:2018+A2 Table 41.5: 50 V / 0.03 A = 1667 Ω (from memory)
+    expect(withCode(tt(1500, 1700), 'zs-over-max')[0]).toMatchObject({ rule: 'BS 7671 Table 41.5' });
+  });
+
+  it('when Ze or Zs is over 2000 Ω, then the schema refuses it with a message naming the cap', () => {
+    const supply = supplySchema.safeParse({ earthing: 'TT', ze: 2500 });
+    expect(supply.success).toBe(false);
+    expect(supply.error?.issues[0]).toMatchObject({ path: ['ze'], message: 'Ze is at most 2000 Ω: check the decimal point' });
+    expect(supplySchema.safeParse({ earthing: 'TT', ze: 2000 }).success).toBe(true);
+    const zs = circuitSchema.safeParse({ id: 'c1', way: 1, label: 'A', measuredZs: 2001 });
+    expect(zs.error?.issues[0]).toMatchObject({ path: ['measuredZs'], message: 'Zs is at most 2000 Ω: check the decimal point' });
+  });
+
+  it('when a TT board\'s Ze (the electrode) is over 200 Ω, then a warning on the Ze field; at 200 Ω, or on TN, nothing', () => {
+    // An electrode above 200 Ω may be unstable as the soil dries or freezes: IET Guidance Note 3 / On-Site Guide (from memory)
+    const [f] = withCode(tt(210), 'tt-electrode-may-be-unstable');
+    expect(f).toMatchObject({ severity: 'warning', rule: 'IET Guidance Note 3', field: 'board.supply.ze', ways: [] });
+    expect(f.message).toContain('Ze 210.00 Ω is above 200 Ω');
+    expect(f.message).toContain('drying or freezing');
+    expect(withCode(tt(200), 'tt-electrode-may-be-unstable')).toEqual([]);
+    expect(withCode(tt(null), 'tt-electrode-may-be-unstable')).toEqual([]);
+    const tn = oneCircuit({}, { kind: 'radial' }, { supply: { earthing: 'TN-S', ze: 250 } });
+    expect(withCode(tn, 'tt-electrode-may-be-unstable')).toEqual([]);
   });
 });
