@@ -79,8 +79,9 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   const out: Finding[] = [];
   const ze = view.schedule.board.supply.ze;
   if (ze != null && measured < ze) {
+    // Zs is normally Ze plus the circuit's R1+R2, but a parallel earth path (bonded pipework, steelwork) can lower it.
     out.push(circuitFinding(f, 'warning', 'zs-below-ze', 'Common practice', 'measuredZs',
-      `${name}: measured Zs ${ohms(measured)} is below the supply's Ze ${ohms(ze)}; Zs is Ze plus the circuit's R1+R2, so one of the readings is wrong`));
+      `${name}: measured Zs ${ohms(measured)} is below Ze ${ohms(ze)}: check both readings; a parallel earth path through bonded pipework can cause this`));
   }
   const limit = zsLimit(view.schedule, f);
   if (!limit) {

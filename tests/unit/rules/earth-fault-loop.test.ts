@@ -86,9 +86,13 @@ describe('measured Zs against the maximum', () => {
     expect(withCode(s, 'zs-over-max')[0]).toMatchObject({ rule: 'BS 7671 Table 41.3' }); // B32 1.37 Ω
   });
 
-  it('when Zs is below the supply Ze, then a warning says one reading is wrong (Zs = Ze + R1+R2)', () => {
-    const s = oneCircuit({}, { kind: 'radial', measuredZs: 0.2 }, { supply: { ze: 0.35 } });
-    expect(withCode(s, 'zs-below-ze')[0]).toMatchObject({ severity: 'warning', rule: 'Common practice' });
+  it('when Zs is below the supply Ze, then a warning asks to check both readings, naming a parallel earth path as a cause', () => {
+    // Zs is normally Ze + (R1+R2); bonded pipework in parallel with the cpc can bring it below Ze (common practice)
+    const s = oneCircuit({}, { way: 3, label: 'Sockets', kind: 'radial', measuredZs: 0.2 }, { supply: { ze: 0.35 } });
+    const [f] = withCode(s, 'zs-below-ze');
+    expect(f).toMatchObject({ severity: 'warning', rule: 'Common practice', field: 'circuits.0.measuredZs' });
+    expect(f.message).toBe('Way 3 (Sockets): measured Zs 0.20 Ω is below Ze 0.35 Ω: check both readings; a parallel earth path through bonded pipework can cause this');
+    expect(f.message).not.toContain('wrong');
     expect(withCode(oneCircuit({}, { kind: 'radial', measuredZs: 0.5 }, { supply: { ze: 0.35 } }), 'zs-below-ze')).toEqual([]);
   });
 
