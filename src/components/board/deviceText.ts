@@ -20,3 +20,20 @@ export function deviceChoiceText(d: Device, kindName = d.kind.toUpperCase()): st
   if (!rating || label.toLowerCase().includes(rating.toLowerCase())) return label;
   return `${label} (${rating})`;
 }
+
+/** "1st", "2nd", "3rd", "4th", "11th", "22nd". */
+export function ordinal(n: number): string {
+  const tens = n % 100;
+  const suffix = tens >= 11 && tens <= 13 ? 'th' : ({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[n % 10] ?? 'th';
+  return `${n}${suffix}`;
+}
+
+/**
+ * A device in a picker, named so it can be told from its twins: "B32 · row 1, 4th from left",
+ * "Spare (B16) · row 2, 1st from left". Devices are kept in row order, left to right, so the place
+ * counts every device before it on its row (main switch and blanks included, as they sit on the rail).
+ */
+export function devicePickerText(d: Device, devices: readonly Device[]): string {
+  const place = devices.filter((other) => other.row === d.row).findIndex((other) => other.id === d.id) + 1;
+  return `${deviceChoiceText(d)} · row ${d.row}${place > 0 ? `, ${ordinal(place)} from left` : ''}`;
+}

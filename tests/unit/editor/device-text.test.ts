@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { deviceChoiceText, deviceRatingText } from '../../../src/components/board/deviceText.js';
+import { deviceChoiceText, devicePickerText, deviceRatingText, ordinal } from '../../../src/components/board/deviceText.js';
 import { deviceSchema } from '../../../shared/schemas/schedule.js';
 
 const device = (extra: Record<string, unknown>) => deviceSchema.parse({ id: 'd1', row: 1, kind: 'mcb', modules: 1, ...extra });
@@ -25,5 +25,25 @@ describe('how the editor names a device', () => {
 
   it('when a device has neither label nor rating, then the kind names it', () => {
     expect(deviceChoiceText(device({ kind: 'blank' }), 'Blank')).toBe('Blank');
+  });
+});
+
+describe('naming a device in the circuit table’s picker', () => {
+  const row = [
+    device({ id: 'main', kind: 'main-switch', modules: 2, rating: 100 }),
+    device({ id: 'a', curve: 'B', rating: 32 }),
+    device({ id: 'b', curve: 'B', rating: 32 }),
+    device({ id: 'c', curve: 'B', rating: 32, label: 'Garage' }),
+    device({ id: 'r2', row: 2, curve: 'B', rating: 32 }),
+  ];
+
+  it('when three B32s sit on one row, then each is named by its place from the left, the main switch counted', () => {
+    const names = row.map((d) => devicePickerText(d, row));
+    expect(names.slice(1)).toEqual(['B32 · row 1, 2nd from left', 'B32 · row 1, 3rd from left', 'Garage (B32) · row 1, 4th from left', 'B32 · row 2, 1st from left']);
+    expect(new Set(names).size).toBe(names.length);
+  });
+
+  it('when places are counted, then English ordinals are used', () => {
+    expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 23, 101, 111].map(ordinal)).toEqual(['1st', '2nd', '3rd', '4th', '11th', '12th', '13th', '21st', '22nd', '23rd', '101st', '111th']);
   });
 });
