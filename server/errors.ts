@@ -14,6 +14,8 @@ export class AppError extends Error {
     message: string,
     readonly fields?: Record<string, string>,
     readonly headers?: Record<string, string>,
+    /** Top-level fields sent beside `error`, e.g. the current `revision` of a stale save. */
+    readonly extra?: Record<string, unknown>,
   ) {
     super(message);
   }
@@ -23,6 +25,13 @@ export const notFound = (what = 'Not found') => new AppError(404, 'not_found', w
 export const forbidden = (why = 'You do not have permission to do that') => new AppError(403, 'forbidden', why);
 export const unauthorised = (why = 'Please sign in') => new AppError(401, 'unauthorised', why);
 export const conflict = (why: string, fields?: Record<string, string>) => new AppError(409, 'conflict', why, fields);
+/**
+ * 409 `stale`: `what` was saved by someone else since this save's `baseRevision` was read. The body carries
+ * the current `revision` (as a board's stale save does), so the client can reload instead of overwriting.
+ */
+export const stale = (what: string, revision: number) => new AppError(409, 'stale',
+  `Someone saved this ${what} since you opened it; it is now at revision ${revision}. Reload it to see their changes.`,
+  { baseRevision: `The ${what} is at revision ${revision}` }, undefined, { revision });
 export const invalid = (why: string, fields?: Record<string, string>) => new AppError(400, 'invalid', why, fields);
 export const tooMany = (why: string, retryAfterSeconds: number) =>
   new AppError(429, 'rate_limited', why, undefined, { 'Retry-After': String(retryAfterSeconds) });
@@ -47,7 +56,7 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, next) => {
   }
   if (err instanceof AppError) {
     if (err.headers) res.set(err.headers);
-    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) } });
+    res.status(err.status).json({ error: { code: err.code, message: err.message, ...(err.fields ? { fields: err.fields } : {}) }, ...err.extra });
     return;
   }
   // body-parser: malformed JSON or an oversized body are the client's fault.

@@ -1,12 +1,16 @@
-/** The organisation's own row: name, contact details shown on printed charts, print offsets. */
-import { eq, sql } from 'drizzle-orm';
+/**
+ * The organisation's own row: name, contact details shown on printed charts, print offsets. Every write of
+ * the row (settings or offsets) is made against a `baseRevision` and bumps `revision`, so of two saves from
+ * one revision exactly one wins and the other is refused as stale, never silently overwritten.
+ */
+import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { organisations } from '../db/schema.js';
 import type { Organisation, OrganisationSettings } from '../../shared/schemas/organisation.js';
 
 const columns = {
   id: organisations.id, name: organisations.name, contactPhone: organisations.contactPhone, contactEmail: organisations.contactEmail,
-  printOffsetXMm: organisations.printOffsetXMm, printOffsetYMm: organisations.printOffsetYMm,
+  printOffsetXMm: organisations.printOffsetXMm, printOffsetYMm: organisations.printOffsetYMm, revision: organisations.revision,
   // Written out with table names: in a one-table select Drizzle leaves columns unqualified, and an
   // unqualified `id` inside the subquery would mean the file's id, not the organisation's.
   hasLogo: sql<number>`exists(select 1 from files where files.organisation_id = organisations.id and files.kind = 'logo')`,
@@ -17,11 +21,18 @@ export async function findOrganisation(db: Db, id: number): Promise<Organisation
   return row ? { ...row, hasLogo: Number(row.hasLogo) === 1 } : null;
 }
 
-/** The printer offsets of the print settings page (mm). */
-export async function updatePrintOffset(db: Db, id: number, xMm: number, yMm: number): Promise<void> {
-  await db.update(organisations).set({ printOffsetXMm: xMm, printOffsetYMm: yMm }).where(eq(organisations.id, id));
+/** Writes `values` only while the row is at `baseRevision`, bumping it; true when it did. */
+async function updateIfAt(db: Db, id: number, baseRevision: number, values: Partial<typeof organisations.$inferInsert>): Promise<boolean> {
+  const [res] = await db.update(organisations).set({ ...values, revision: sql`${organisations.revision} + 1` })
+    .where(and(eq(organisations.id, id), eq(organisations.revision, baseRevision)));
+  return res.affectedRows > 0;
 }
 
-export async function updateOrganisation(db: Db, id: number, settings: OrganisationSettings): Promise<void> {
-  await db.update(organisations).set(settings).where(eq(organisations.id, id));
+/** The printer offsets of the print settings page (mm): the same row, so the same revision check. */
+export function updatePrintOffsetIfAt(db: Db, id: number, baseRevision: number, xMm: number, yMm: number): Promise<boolean> {
+  return updateIfAt(db, id, baseRevision, { printOffsetXMm: xMm, printOffsetYMm: yMm });
+}
+
+export function updateOrganisationIfAt(db: Db, id: number, baseRevision: number, settings: OrganisationSettings): Promise<boolean> {
+  return updateIfAt(db, id, baseRevision, settings);
 }

@@ -1,6 +1,6 @@
 /** `/api/organisation`: any member reads the settings; the owner changes them. */
 import { Router } from 'express';
-import { organisationSettingsSchema } from '../../shared/schemas/organisation.js';
+import { organisationSaveSchema } from '../../shared/schemas/organisation.js';
 import type { AppContext } from '../context.js';
 import { ownerOnly, requireUser } from '../auth/guard.js';
 import { parse } from '../http/parse.js';
@@ -14,8 +14,7 @@ export function organisationRoutes(ctx: AppContext): Router {
   });
 
   r.put('/', ownerOnly, async (req, res) => {
-    const settings = parse(organisationSettingsSchema, req.body);
-    res.json(await saveOrganisation(ctx.db, req.user!.organisationId, settings));
+    res.json(await saveOrganisation(ctx.db, req.user!.organisationId, parse(organisationSaveSchema, req.body)));
   });
 
   return r;

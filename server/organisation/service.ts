@@ -3,9 +3,9 @@
  * from the session, never from the request, so there is no other organisation to reach.
  */
 import type { Db } from '../db/client.js';
-import type { Organisation, OrganisationSettings } from '../../shared/schemas/organisation.js';
-import { notFound } from '../errors.js';
-import { findOrganisation, updateOrganisation } from './repository.js';
+import type { Organisation, OrganisationSave } from '../../shared/schemas/organisation.js';
+import { notFound, stale } from '../errors.js';
+import { findOrganisation, updateOrganisationIfAt } from './repository.js';
 
 export async function organisationOf(db: Db, organisationId: number): Promise<Organisation> {
   const organisation = await findOrganisation(db, organisationId);
@@ -13,8 +13,14 @@ export async function organisationOf(db: Db, organisationId: number): Promise<Or
   return organisation;
 }
 
-/** Saves the settings; print offsets left out keep their current values. Returns the saved settings. */
-export async function saveOrganisation(db: Db, organisationId: number, settings: OrganisationSettings): Promise<Organisation> {
-  await updateOrganisation(db, organisationId, settings);
-  return organisationOf(db, organisationId);
+/**
+ * Saves the settings if nobody wrote the organisation since `baseRevision` (else 409 `stale` with the
+ * current revision); print offsets left out keep their current values. Returns the saved settings.
+ */
+export async function saveOrganisation(db: Db, organisationId: number, save: OrganisationSave): Promise<Organisation> {
+  const { baseRevision, ...settings } = save;
+  const won = await updateOrganisationIfAt(db, organisationId, baseRevision, settings);
+  const organisation = await organisationOf(db, organisationId);
+  if (!won) throw stale('organisation', organisation.revision);
+  return organisation;
 }

@@ -13,7 +13,7 @@ import type { AppContext } from '../context.js';
 import { canEdit, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
 import { z } from 'zod';
-import { printOffsetSchema } from '../../shared/schemas/print-records.js';
+import { printOffsetSaveSchema } from '../../shared/schemas/print-records.js';
 import { mediaIdSchema, type PrintWarning } from '../../shared/schemas/print.js';
 import { parsePrintQuery } from './query.js';
 import { checkPrint, printCalibration, printHistory, printOffset, printPdf, setPrintOffset } from './service.js';
@@ -92,7 +92,7 @@ export function printSettingsRoutes(ctx: AppContext): Router {
     sendPdf(res, printed.pdf, printed.filename);
   });
   r.put('/offset', canEdit, async (req, res) => {
-    res.json(await setPrintOffset(ctx, req.user!, parse(printOffsetSchema, req.body)));
+    res.json(await setPrintOffset(ctx, req.user!, parse(printOffsetSaveSchema, req.body)));
   });
   return r;
 }

@@ -9,10 +9,10 @@ import type { Medium, RenderRequest, RenderResult } from '../pdf/types.js';
 import { LayoutError } from '../pdf/types.js';
 import { layoutOutput, renderOutput, resolveMedium } from '../pdf/index.js';
 import { printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput, type PrintWarning } from '../../shared/schemas/print.js';
-import type { PrintOffset, PrintRecord } from '../../shared/schemas/print-records.js';
+import type { PrintOffsetSave, PrintOffsetState, PrintRecord } from '../../shared/schemas/print-records.js';
 import { flagWorkProblem } from '../pdf/layout/work.js';
 import { waysChangedBetween } from '../../shared/schedule/diff.js';
-import { AppError, invalid, notFound } from '../errors.js';
+import { AppError, invalid, notFound, stale } from '../errors.js';
 import { NO_SURVEY } from '../pdf/layout/changeover/index.js';
 import { getLayout } from '../sheet-layouts/service.js';
 import { loadCalibrationSource, loadPrintSource, scheduleAtRevision, type PrintSource } from './source.js';
@@ -20,7 +20,7 @@ import { sheetLayoutId, type PrintQuery } from './query.js';
 import * as repo from './repository.js';
 import { todayIso as today } from '../http/clock.js';
 import { findBoardState } from '../boards/repository.js';
-import { findOrganisation, updatePrintOffset } from '../organisation/repository.js';
+import { findOrganisation, updatePrintOffsetIfAt } from '../organisation/repository.js';
 
 export interface PrintedPdf extends RenderResult { filename: string }
 
@@ -129,14 +129,21 @@ export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: 
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
-export async function printOffset(ctx: AppContext, user: CurrentUser): Promise<PrintOffset> {
+/** The offset with the organisation's revision, which a change of the offset sends back as `baseRevision`. */
+export async function printOffset(ctx: AppContext, user: CurrentUser): Promise<PrintOffsetState> {
   const org = await findOrganisation(ctx.db, user.organisationId);
   if (!org) throw notFound('No such organisation');
-  return { xMm: org.printOffsetXMm, yMm: org.printOffsetYMm };
+  return { xMm: org.printOffsetXMm, yMm: org.printOffsetYMm, revision: org.revision };
 }
 
-export async function setPrintOffset(ctx: AppContext, user: CurrentUser, offset: PrintOffset): Promise<PrintOffset> {
-  await updatePrintOffset(ctx.db, user.organisationId, offset.xMm, offset.yMm);
-  return printOffset(ctx, user);
+/**
+ * The offset lives on the organisation's row, so it is written against the organisation's revision and bumps it,
+ * like the settings: a stale offset (or one racing a settings save that also sent offsets) is 409, never a silent overwrite.
+ */
+export async function setPrintOffset(ctx: AppContext, user: CurrentUser, save: PrintOffsetSave): Promise<PrintOffsetState> {
+  const won = await updatePrintOffsetIfAt(ctx.db, user.organisationId, save.baseRevision, save.xMm, save.yMm);
+  const now = await printOffset(ctx, user);
+  if (!won) throw stale('organisation', now.revision);
+  return now;
 }
 

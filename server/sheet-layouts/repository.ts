@@ -2,7 +2,7 @@
  * Stored sheet label layouts, per organisation. Every query carries the organisation id,
  * so another organisation's layout id finds nothing.
  */
-import { and, asc, eq } from 'drizzle-orm';
+import { and, asc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { sheetLayouts } from '../db/schema.js';
 import type { SheetLayout } from '../../shared/schemas/print.js';
@@ -15,6 +15,7 @@ const columns = {
   columns: sheetLayouts.columns, rows: sheetLayouts.rows,
   marginTopMm: sheetLayouts.marginTopMm, marginLeftMm: sheetLayouts.marginLeftMm,
   gapXMm: sheetLayouts.gapXMm, gapYMm: sheetLayouts.gapYMm, cornerRadiusMm: sheetLayouts.cornerRadiusMm,
+  revision: sheetLayouts.revision,
 };
 
 export async function listSheetLayouts(db: Db, organisationId: number): Promise<SheetLayoutRecord[]> {
@@ -32,9 +33,13 @@ export async function insertSheetLayout(db: Db, organisationId: number, layout: 
   return res.id;
 }
 
-/** True when a row of this organisation was there to update. */
-export async function updateSheetLayout(db: Db, organisationId: number, id: number, layout: SheetLayout): Promise<boolean> {
-  const [res] = await db.update(sheetLayouts).set(layout).where(and(eq(sheetLayouts.id, id), eq(sheetLayouts.organisationId, organisationId)));
+/**
+ * Writes only while the layout is still at `baseRevision`, bumping it: true when it did. The bump means a
+ * matched row always changes, so 0 affected rows is a missing or stale row, never an unchanged one.
+ */
+export async function updateSheetLayoutIfAt(db: Db, organisationId: number, id: number, baseRevision: number, layout: SheetLayout): Promise<boolean> {
+  const [res] = await db.update(sheetLayouts).set({ ...layout, revision: sql`${sheetLayouts.revision} + 1` })
+    .where(and(eq(sheetLayouts.id, id), eq(sheetLayouts.organisationId, organisationId), eq(sheetLayouts.revision, baseRevision)));
   return res.affectedRows > 0;
 }
 

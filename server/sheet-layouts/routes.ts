@@ -6,7 +6,7 @@ import { Router } from 'express';
 import type { AppContext } from '../context.js';
 import { canEdit, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
-import { sheetLayoutSchema } from '../../shared/schemas/print.js';
+import { sheetLayoutSchema, sheetLayoutUpdateSchema } from '../../shared/schemas/print.js';
 import { createLayout, getLayout, listLayouts, removeLayout, replaceLayout } from './service.js';
 
 export function sheetLayoutRoutes(ctx: AppContext): Router {
@@ -28,7 +28,7 @@ export function sheetLayoutRoutes(ctx: AppContext): Router {
 
   r.put('/:id', canEdit, async (req, res) => {
     const id = idParam(req.params);
-    const layout = parse(sheetLayoutSchema, req.body);
+    const layout = parse(sheetLayoutUpdateSchema, req.body);
     res.json(await replaceLayout(ctx.db, req.user!.organisationId, id, layout));
   });
 

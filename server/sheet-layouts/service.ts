@@ -3,9 +3,9 @@
  * so any print can go on them as `media=sheet-<id>`.
  */
 import type { Db } from '../db/client.js';
-import type { SheetLayout } from '../../shared/schemas/print.js';
+import type { SheetLayout, SheetLayoutUpdate } from '../../shared/schemas/print.js';
 import type { SheetLayoutRecord } from '../../shared/schemas/print-records.js';
-import { notFound } from '../errors.js';
+import { notFound, stale } from '../errors.js';
 import * as repo from './repository.js';
 
 const missing = () => notFound('No such sheet layout');
@@ -23,11 +23,13 @@ export async function createLayout(db: Db, organisationId: number, layout: Sheet
   return getLayout(db, organisationId, id);
 }
 
-export async function replaceLayout(db: Db, organisationId: number, id: number, layout: SheetLayout): Promise<SheetLayoutRecord> {
-  // MariaDB reports 0 affected rows for an update that changes nothing, so look the row up first.
-  await getLayout(db, organisationId, id);
-  await repo.updateSheetLayout(db, organisationId, id, layout);
-  return getLayout(db, organisationId, id);
+/** Replaces the layout if nobody saved it since `baseRevision` (else 409 `stale` with the current revision). */
+export async function replaceLayout(db: Db, organisationId: number, id: number, update: SheetLayoutUpdate): Promise<SheetLayoutRecord> {
+  const { baseRevision, ...layout } = update;
+  const won = await repo.updateSheetLayoutIfAt(db, organisationId, id, baseRevision, layout);
+  const now = await getLayout(db, organisationId, id);
+  if (!won) throw stale('sheet layout', now.revision);
+  return now;
 }
 
 export async function removeLayout(db: Db, organisationId: number, id: number): Promise<void> {

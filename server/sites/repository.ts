@@ -13,7 +13,7 @@ import { likeContains } from '../boards/stored.js';
 const boardCount = sql<number>`(SELECT COUNT(*) FROM \`boards\` AS b WHERE b.site_id = \`sites\`.\`id\` AND b.deleted_at IS NULL)`;
 const columns = {
   id: sites.id, reference: sites.reference, clientName: sites.clientName, address: sites.address, clientEmail: sites.clientEmail,
-  clientPhone: sites.clientPhone, notes: sites.notes, createdAt: sites.createdAt, boardCount,
+  clientPhone: sites.clientPhone, notes: sites.notes, createdAt: sites.createdAt, boardCount, revision: sites.revision,
 };
 type Row = { createdAt: Date; boardCount: number } & Omit<Site, 'createdAt' | 'boardCount'>;
 const toSite = (r: Row): Site => ({ ...r, createdAt: r.createdAt.toISOString(), boardCount: Number(r.boardCount) });
@@ -50,8 +50,11 @@ export async function insertSite(db: Db, organisationId: number, input: SiteInpu
   return res.id;
 }
 
-export async function updateSite(db: Db, organisationId: number, id: number, input: SiteInput): Promise<void> {
-  await db.update(sites).set(input).where(and(eq(sites.id, id), eq(sites.organisationId, organisationId)));
+/** Writes only while the site is still at `baseRevision`, and bumps it: true when it did (of two saves from one revision, one wins). */
+export async function updateSiteIfAt(db: Db, organisationId: number, id: number, baseRevision: number, input: SiteInput): Promise<boolean> {
+  const [res] = await db.update(sites).set({ ...input, revision: sql`${sites.revision} + 1` })
+    .where(and(eq(sites.id, id), eq(sites.organisationId, organisationId), eq(sites.revision, baseRevision)));
+  return res.affectedRows > 0;
 }
 
 /** Deleted boards keep their schedule but let go of the site, so the site row can go. */

@@ -1,10 +1,10 @@
 /** Use-cases on sites: the organisation's private record of where its boards are and whose they are. */
 import { isStillReferenced } from '../db/errors.js';
 import type { Db } from '../db/client.js';
-import type { Site, SiteDetail, SiteInput } from '../../shared/schemas/site.js';
-import { conflict, notFound } from '../errors.js';
+import type { Site, SiteDetail, SiteInput, SiteUpdate } from '../../shared/schemas/site.js';
+import { conflict, notFound, stale } from '../errors.js';
 import { inTransaction } from '../db/client.js';
-import { deleteSiteRow, detachDeletedBoards, findSite, insertSite, listSites, siteBoards, updateSite } from './repository.js';
+import { deleteSiteRow, detachDeletedBoards, findSite, insertSite, listSites, siteBoards, updateSiteIfAt } from './repository.js';
 
 export async function listOrganisationSites(db: Db, organisationId: number, q?: string): Promise<{ items: Site[] }> {
   return { items: await listSites(db, organisationId, q) };
@@ -20,10 +20,14 @@ export function createSite(db: Db, organisationId: number, input: SiteInput): Pr
   return insertSite(db, organisationId, input);
 }
 
-export async function replaceSite(db: Db, organisationId: number, id: number, input: SiteInput): Promise<Site> {
-  if (!(await findSite(db, organisationId, id))) throw notFound('No such site');
-  await updateSite(db, organisationId, id, input);
-  return (await findSite(db, organisationId, id))!;
+/** Replaces the site's fields if nobody saved it since `baseRevision` (else 409 `stale` with the current revision). */
+export async function replaceSite(db: Db, organisationId: number, id: number, update: SiteUpdate): Promise<Site> {
+  const { baseRevision, ...input } = update;
+  const won = await updateSiteIfAt(db, organisationId, id, baseRevision, input);
+  const site = await findSite(db, organisationId, id);
+  if (!site) throw notFound('No such site');
+  if (!won) throw stale('site', site.revision);
+  return site;
 }
 
 /** A site with boards in use is kept (move or delete the boards first), so no board loses its site silently. */

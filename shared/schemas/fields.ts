@@ -37,3 +37,9 @@ export const emailAddress = z.string().trim().toLowerCase().max(254, 'At most 25
 
 /** A person's name: one line. */
 export const personName = singleLine(120).min(1, 'Required');
+
+/**
+ * The revision a save was made from (sites, organisation settings, sheet layouts): the server writes only
+ * while the row is still at it, else 409 `stale` with the current revision, so nobody's save is overwritten unseen.
+ */
+export const baseRevision = z.number({ error: 'baseRevision is required' }).int('baseRevision is required').min(1, 'baseRevision is required');

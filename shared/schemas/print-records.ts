@@ -4,6 +4,7 @@
  * with these, so a drift between server and client fails loudly.
  */
 import { z } from 'zod';
+import { baseRevision } from './fields.js';
 import { printOutputs, type MediaId, type PrintOutput } from './print.js';
 
 /**
@@ -62,6 +63,8 @@ export const sheetLayoutRecordSchema = z.object({
   gapXMm: z.number(),
   gapYMm: z.number(),
   cornerRadiusMm: z.number(),
+  /** Bumped by every save; send it back as `baseRevision`. */
+  revision: z.number().int(),
 });
 export type SheetLayoutRecord = z.infer<typeof sheetLayoutRecordSchema>;
 export const sheetLayoutListSchema = z.object({ items: z.array(sheetLayoutRecordSchema) });
@@ -75,3 +78,14 @@ export const printOffsetSchema = z.strictObject({
   yMm: z.number({ error: 'Must be a number' }).min(-10, 'At least −10 mm').max(10, 'At most 10 mm'),
 });
 export type PrintOffset = z.infer<typeof printOffsetSchema>;
+
+/**
+ * `PUT /api/print-settings/offset`: the offset and the organisation's revision it was loaded at. The offset is a
+ * column of the organisation's row, so it is guarded (and bumps the revision) like any other write of that row.
+ */
+export const printOffsetSaveSchema = printOffsetSchema.extend({ baseRevision });
+export type PrintOffsetSave = z.infer<typeof printOffsetSaveSchema>;
+
+/** `GET`/`PUT /api/print-settings/offset`: the offset and the organisation's current revision. */
+export const printOffsetStateSchema = printOffsetSchema.extend({ revision: z.number().int() });
+export type PrintOffsetState = z.infer<typeof printOffsetStateSchema>;

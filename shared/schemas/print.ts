@@ -3,6 +3,7 @@
  * which media they go on, and each output's options.
  */
 import { z } from 'zod';
+import { baseRevision } from './fields.js';
 
 export const printOutputs = ['flags', 'way-labels', 'chart', 'notices', 'tag', 'calibration', 'changeover'] as const;
 export type PrintOutput = (typeof printOutputs)[number];
@@ -101,3 +102,7 @@ export const sheetLayoutSchema = z.strictObject({
 }).refine((s) => s.marginLeftMm + s.columns * s.labelWidthMm + (s.columns - 1) * s.gapXMm <= s.pageWidthMm + 0.01, { message: 'The labels do not fit across the page', path: ['columns'] })
   .refine((s) => s.marginTopMm + s.rows * s.labelHeightMm + (s.rows - 1) * s.gapYMm <= s.pageHeightMm + 0.01, { message: 'The labels do not fit down the page', path: ['rows'] });
 export type SheetLayout = z.infer<typeof sheetLayoutSchema>;
+
+/** `PUT /api/sheet-layouts/:id`: the layout (with its fit checks) and the revision it was loaded at (a stale one is 409). */
+export const sheetLayoutUpdateSchema = sheetLayoutSchema.extend({ baseRevision });
+export type SheetLayoutUpdate = z.infer<typeof sheetLayoutUpdateSchema>;

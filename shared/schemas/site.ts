@@ -4,7 +4,7 @@
  */
 import { z } from 'zod';
 import { boardListItemSchema } from './boards.js';
-import { singleLine, text } from './fields.js';
+import { baseRevision, singleLine, text } from './fields.js';
 
 /** `POST /api/sites` and `PUT /api/sites/:id` (a PUT replaces every field; omitted ones become empty). */
 export const siteInputSchema = z.strictObject({
@@ -20,6 +20,10 @@ export const siteInputSchema = z.strictObject({
 });
 export type SiteInput = z.infer<typeof siteInputSchema>;
 
+/** `PUT /api/sites/:id`: every field, plus the revision the form was loaded at (a stale one is 409). */
+export const siteUpdateSchema = siteInputSchema.extend({ baseRevision });
+export type SiteUpdate = z.infer<typeof siteUpdateSchema>;
+
 export const siteSchema = z.object({
   id: z.number(),
   reference: z.string(),
@@ -31,6 +35,8 @@ export const siteSchema = z.object({
   createdAt: z.string(),
   /** Boards on the site that are not deleted. */
   boardCount: z.number(),
+  /** Bumped by every save; send it back as `baseRevision`. */
+  revision: z.number().int(),
 });
 export type Site = z.infer<typeof siteSchema>;
 

@@ -4,7 +4,7 @@
  * JSON for "zqpriv"), stored through the sites and boards API as a user would.
  */
 import type { ScheduleInput } from '../../shared/schemas/schedule.js';
-import { signupOwner, uniqueEmail, type Client } from '../helpers/app.js';
+import { putAtCurrentRevision, signupOwner, uniqueEmail, type Client } from '../helpers/app.js';
 import type { Express } from 'express';
 
 /** Every private value below contains this; none may reach the public JSON. */
@@ -60,7 +60,7 @@ export function markedSchedule(): ScheduleInput {
 export async function signupMarkedOwner(app: Express, withContactEmail = true): Promise<Client & { email: string; contactEmail: string }> {
   const c = await signupOwner(app, 'Lanternfield Electrical', 'Zqpriv Owner Name');
   const contactEmail = withContactEmail ? uniqueEmail('office') : '';
-  await c.put('/api/organisation', { name: 'Lanternfield Electrical', contactPhone: '01632 960123', contactEmail }).expect(200);
+  await putAtCurrentRevision(c, '/api/organisation', { name: 'Lanternfield Electrical', contactPhone: '01632 960123', contactEmail });
   return Object.assign(c, { contactEmail });
 }
 

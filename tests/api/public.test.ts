@@ -4,7 +4,7 @@ import { publicBoardSchema } from '../../shared/schemas/public-board.js';
 import { GENERAL_CAUTIONS, THREE_PHASE_CAUTION } from '../../shared/public/cautions.js';
 import { demoSites } from '../../server/seed/demo-data.js';
 import type { ServerConfig } from '../../server/config.js';
-import { startTestApp, type TestApp } from '../helpers/app.js';
+import { putAtCurrentRevision, startTestApp, type TestApp } from '../helpers/app.js';
 import { createBoard, markedSite, PRIVATE_MARK, signupMarkedOwner } from './public-fixture.js';
 
 let t: TestApp;
@@ -119,7 +119,7 @@ describe('the public board page data', () => {
     const { id: _i, revision, updatedAt: _u, code: _c, siteId: _s, ...schedule } = current;
     schedule.circuits[0].label = 'Renamed way';
     await owner.put(`/api/boards/${board.id}/schedule`, { ...schedule, baseRevision: revision }).expect(200);
-    await owner.put('/api/organisation', { name: 'Lanternfield Electrical', contactPhone: '01632 960999', contactEmail: owner.contactEmail }).expect(200);
+    await putAtCurrentRevision(owner, '/api/organisation', { name: 'Lanternfield Electrical', contactPhone: '01632 960999', contactEmail: owner.contactEmail });
     const after = (await request(t.app).get(`/api/public/boards/${board.token}`).expect(200)).body;
     expect(JSON.stringify(after.ways)).toContain('Renamed way');
     expect(JSON.stringify(after)).toContain('01632 960999');

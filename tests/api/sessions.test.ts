@@ -33,7 +33,7 @@ describe('sessions live in MariaDB', () => {
     const { cookie, csrf } = await sessionCookie(a.app, owner.email);
     await request(b.app).get('/api/auth/me').set('Cookie', cookie).expect(200);
     const saved = await request(b.app).put('/api/organisation').set('Cookie', cookie).set('X-CSRF-Token', csrf)
-      .send({ name: 'Renamed On B Ltd', contactPhone: '', contactEmail: '' }).expect(200);
+      .send({ name: 'Renamed On B Ltd', contactPhone: '', contactEmail: '', baseRevision: 1 }).expect(200); // a new organisation is at revision 1
     expect(saved.body.name).toBe('Renamed On B Ltd');
     const me = await request(a.app).get('/api/auth/me').set('Cookie', cookie).expect(200);
     expect(me.body.organisation.name).toBe('Renamed On B Ltd');

@@ -20,7 +20,7 @@ describe('sheet layouts', () => {
   it('when an owner stores a layout, then it is listed and read back with its id', async () => {
     const owner = await signupOwner(t.app);
     const created = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
-    expect(created.body).toEqual({ id: expect.any(Number), ...a4TwentyOne });
+    expect(created.body).toEqual({ id: expect.any(Number), ...a4TwentyOne, revision: 1 });
     const list = await owner.get('/api/sheet-layouts').expect(200);
     expect(list.body.items).toEqual([created.body]);
     const one = await owner.get(`/api/sheet-layouts/${created.body.id}`).expect(200);
@@ -52,12 +52,44 @@ describe('sheet layouts', () => {
   it('when a layout is replaced and then deleted, then reads follow and a second delete is 404', async () => {
     const owner = await signupOwner(t.app);
     const { body } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
-    const put = await owner.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, name: 'Renamed', rows: 6 }).expect(200);
-    expect(put.body).toMatchObject({ id: body.id, name: 'Renamed', rows: 6 });
-    await owner.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, name: 'Renamed', rows: 6 }).expect(200);
+    const put = await owner.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, name: 'Renamed', rows: 6, baseRevision: 1 }).expect(200);
+    expect(put.body).toMatchObject({ id: body.id, name: 'Renamed', rows: 6, revision: 2 });
+    // A save that changes nothing still counts as a save: the row is found and its revision goes up.
+    const again = await owner.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, name: 'Renamed', rows: 6, baseRevision: 2 }).expect(200);
+    expect(again.body.revision).toBe(3);
     await owner.delete(`/api/sheet-layouts/${body.id}`).expect(204);
     await owner.get(`/api/sheet-layouts/${body.id}`).expect(404);
     await owner.delete(`/api/sheet-layouts/${body.id}`).expect(404);
+  });
+
+  it('when two saves are made from the same revision, then one wins and the other is 409 stale with the current revision', async () => {
+    const owner = await signupOwner(t.app);
+    const electrician = await addMember(t, owner, 'electrician');
+    const { body: { id } } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
+    const [a, b] = await Promise.all([
+      owner.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, name: 'Saved by the owner', rows: 6, baseRevision: 1 }),
+      electrician.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, name: 'Saved by the electrician', rows: 5, baseRevision: 1 }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    const [won, lost] = a.status === 200 ? [a, b] : [b, a];
+    expect(lost.body).toMatchObject({ error: { code: 'stale', fields: { baseRevision: expect.any(String) } }, revision: 2 });
+    expect(lost.body.error.message).toMatch(/since you opened it/);
+    const now = (await owner.get(`/api/sheet-layouts/${id}`).expect(200)).body;
+    expect(now).toEqual(won.body);
+    expect(now).toMatchObject({ rows: won.body.rows, revision: 2 });
+  });
+
+  it('when a PUT has no baseRevision, then 400 on baseRevision and nothing is saved; the fit checks still apply', async () => {
+    const owner = await signupOwner(t.app);
+    const { body: { id } } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
+    for (const baseRevision of [undefined, 0, 1.5, null]) {
+      const res = await owner.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, name: 'Not saved', baseRevision }).expect(400);
+      expect(res.body.error.fields.baseRevision, String(baseRevision)).toBe('baseRevision is required');
+    }
+    // 4 × 63.5 mm = 254 mm is wider than A4's 210 mm // ISO 216
+    const wide = await owner.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, columns: 4, baseRevision: 1 }).expect(400);
+    expect(wide.body.error.fields.columns).toMatch(/across/);
+    expect((await owner.get(`/api/sheet-layouts/${id}`).expect(200)).body).toMatchObject({ name: a4TwentyOne.name, columns: 3, revision: 1 });
   });
 
   it('when an electrician writes, then it works; a viewer reads but every write is 403', async () => {
@@ -67,7 +99,7 @@ describe('sheet layouts', () => {
     const { body } = await electrician.post('/api/sheet-layouts', a4TwentyOne).expect(201);
     expect((await viewer.get('/api/sheet-layouts').expect(200)).body.items).toHaveLength(1);
     await viewer.post('/api/sheet-layouts', a4TwentyOne).expect(403);
-    await viewer.put(`/api/sheet-layouts/${body.id}`, a4TwentyOne).expect(403);
+    await viewer.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, baseRevision: 1 }).expect(403);
     await viewer.delete(`/api/sheet-layouts/${body.id}`).expect(403);
   });
 
@@ -82,10 +114,10 @@ describe('sheet layouts', () => {
     const other = await signupOwner(t.app, 'Other Electrical');
     const { body } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
     await other.get(`/api/sheet-layouts/${body.id}`).expect(404);
-    await other.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, name: 'Taken' }).expect(404);
+    await other.put(`/api/sheet-layouts/${body.id}`, { ...a4TwentyOne, name: 'Taken', baseRevision: 1 }).expect(404);
     await other.delete(`/api/sheet-layouts/${body.id}`).expect(404);
     expect((await other.get('/api/sheet-layouts').expect(200)).body.items).toEqual([]);
-    expect((await owner.get(`/api/sheet-layouts/${body.id}`).expect(200)).body.name).toBe(a4TwentyOne.name);
+    expect((await owner.get(`/api/sheet-layouts/${body.id}`).expect(200)).body).toMatchObject({ name: a4TwentyOne.name, revision: 1 });
   });
 
   it('when the id is not a number, then 400 names it', async () => {

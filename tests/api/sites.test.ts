@@ -29,10 +29,37 @@ describe('sites', () => {
     expect(site).toMatchObject({ reference: 'MINIMAL-1', clientName: '', address: '', clientEmail: '', clientPhone: '', notes: '' });
   });
 
-  it('when a site is replaced with PUT, then every field takes the new value', async () => {
+  it('when a site is replaced with PUT, then every field takes the new value and the revision goes up by one', async () => {
     const created = await owner.post('/api/sites', fullSite).expect(201);
-    const res = await owner.put(`/api/sites/${created.body.id}`, { reference: 'JOB-2291A', address: 'Unit 3, Teasel Yard' }).expect(200);
-    expect(res.body).toMatchObject({ reference: 'JOB-2291A', address: 'Unit 3, Teasel Yard', clientName: '', notes: '' });
+    expect(created.body.revision).toBe(1);
+    const res = await owner.put(`/api/sites/${created.body.id}`, { reference: 'JOB-2291A', address: 'Unit 3, Teasel Yard', baseRevision: 1 }).expect(200);
+    expect(res.body).toMatchObject({ reference: 'JOB-2291A', address: 'Unit 3, Teasel Yard', clientName: '', notes: '', revision: 2 });
+    expect((await viewer.get(`/api/sites/${created.body.id}`).expect(200)).body.revision).toBe(2);
+  });
+
+  it('when two saves are made from the same revision, then one wins and the other is 409 stale with the current revision', async () => {
+    const { body: { id } } = await owner.post('/api/sites', fullSite).expect(201);
+    const [a, b] = await Promise.all([
+      owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Saved by A', baseRevision: 1 }),
+      owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Saved by B', baseRevision: 1 }),
+    ]);
+    expect([a.status, b.status].sort()).toEqual([200, 409]);
+    const [won, lost] = a.status === 200 ? [a, b] : [b, a];
+    expect(lost.body).toMatchObject({ error: { code: 'stale', fields: { baseRevision: expect.any(String) } }, revision: 2 });
+    expect(lost.body.error.message).toMatch(/since you opened it/);
+    const now = (await owner.get(`/api/sites/${id}`).expect(200)).body;
+    expect(now).toMatchObject({ clientName: won.body.clientName, revision: 2 });
+    // The loser saves again from the revision it was told: that one goes through.
+    await owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Saved by the loser', baseRevision: lost.body.revision }).expect(200);
+  });
+
+  it('when a PUT has no baseRevision, then 400 on baseRevision and nothing is saved', async () => {
+    const { body: { id } } = await owner.post('/api/sites', fullSite).expect(201);
+    for (const baseRevision of [undefined, 0, 1.5, '1']) {
+      const res = await owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Not saved', baseRevision }).expect(400);
+      expect(res.body.error.fields.baseRevision, String(baseRevision)).toBe('baseRevision is required');
+    }
+    expect((await owner.get(`/api/sites/${id}`).expect(200)).body).toMatchObject({ clientName: fullSite.clientName, revision: 1 });
   });
 
   it('when the list is searched, then the query matches reference, client or address', async () => {
@@ -52,15 +79,15 @@ describe('sites', () => {
   it('when another organisation uses a site id, then 404 on read, replace and delete', async () => {
     const created = await owner.post('/api/sites', fullSite).expect(201);
     await stranger.get(`/api/sites/${created.body.id}`).expect(404);
-    await stranger.put(`/api/sites/${created.body.id}`, fullSite).expect(404);
+    await stranger.put(`/api/sites/${created.body.id}`, { ...fullSite, baseRevision: 1 }).expect(404);
     await stranger.delete(`/api/sites/${created.body.id}`).expect(404);
-    expect((await owner.get(`/api/sites/${created.body.id}`).expect(200)).body.reference).toBe('JOB-2291');
+    expect((await owner.get(`/api/sites/${created.body.id}`).expect(200)).body).toMatchObject({ reference: 'JOB-2291', revision: 1 });
   });
 
   it('when a viewer writes or a visitor is signed out, then 403 and 401', async () => {
     const created = await owner.post('/api/sites', fullSite).expect(201);
     await viewer.post('/api/sites', fullSite).expect(403);
-    await viewer.put(`/api/sites/${created.body.id}`, fullSite).expect(403);
+    await viewer.put(`/api/sites/${created.body.id}`, { ...fullSite, baseRevision: 1 }).expect(403);
     await viewer.delete(`/api/sites/${created.body.id}`).expect(403);
     const anonymous = await client(t.app);
     await anonymous.get('/api/sites').expect(401);

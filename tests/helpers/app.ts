@@ -88,6 +88,15 @@ export async function client(app: Express): Promise<Client> {
   };
 }
 
+/**
+ * PUTs `body` to `path` against the revision a GET of `path` reads now, as a form opened just before saving
+ * would (sites, organisation settings, sheet layouts and the print offset refuse a save without `baseRevision`).
+ */
+export async function putAtCurrentRevision(c: Client, path: string, body: object, status = 200): Promise<request.Response> {
+  const { revision } = (await c.get(path).expect(200)).body as { revision: number };
+  return c.put(path, { ...body, baseRevision: revision }).expect(status);
+}
+
 /** An owner account made straight in the database, as a used sign-up link makes it (for apps that cannot mail). */
 export async function insertOwnerAccount(database: Database, email: string, organisation = 'Test Electrical', name = 'Test Owner'): Promise<number> {
   const passwordHash = await hashPassword(TEST_PASSWORD);
