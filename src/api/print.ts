@@ -4,13 +4,13 @@
  */
 import { z } from 'zod';
 import { json, request, send } from './http.js';
-import type { PrintOutput, PrintWarning, SheetLayout } from '../../shared/schemas/print.js';
+import type { PrintOutput, PrintWarning, SheetLayout, SheetLayoutUpdate } from '../../shared/schemas/print.js';
 import {
-  printCheckSchema, printHistorySchema, printOffsetSchema, printWarningSchema, sheetLayoutListSchema,
-  sheetLayoutRecordSchema, type PrintOffset,
+  printCheckSchema, printHistorySchema, printOffsetStateSchema, printWarningSchema, sheetLayoutListSchema,
+  sheetLayoutRecordSchema, type PrintOffsetSave,
 } from '../../shared/schemas/print-records.js';
 
-export type { PrintRecord, SheetLayoutRecord, PrintOffset } from '../../shared/schemas/print-records.js';
+export type { PrintRecord, SheetLayoutRecord, PrintOffset, PrintOffsetState } from '../../shared/schemas/print-records.js';
 
 /** What the print page asks for: an output, a medium and the output's options as query values. */
 export interface PrintSelection {
@@ -72,8 +72,10 @@ export const listPrints = (boardId: number) => json(printHistorySchema, 'GET', `
 
 export const listSheetLayouts = () => json(sheetLayoutListSchema, 'GET', '/api/sheet-layouts');
 export const createSheetLayout = (layout: SheetLayout) => json(sheetLayoutRecordSchema, 'POST', '/api/sheet-layouts', { body: layout });
-export const updateSheetLayout = (id: number, layout: SheetLayout) => json(sheetLayoutRecordSchema, 'PUT', `/api/sheet-layouts/${id}`, { body: layout });
+/** Saves against `layout.baseRevision`; a layout saved by someone else since answers 409 (`ApiError.code === 'stale'`). */
+export const updateSheetLayout = (id: number, layout: SheetLayoutUpdate) => json(sheetLayoutRecordSchema, 'PUT', `/api/sheet-layouts/${id}`, { body: layout });
 export const deleteSheetLayout = (id: number) => send('DELETE', `/api/sheet-layouts/${id}`);
 
-export const getPrintOffset = () => json(printOffsetSchema, 'GET', '/api/print-settings/offset');
-export const setPrintOffset = (offset: PrintOffset) => json(printOffsetSchema, 'PUT', '/api/print-settings/offset', { body: offset });
+/** The offset with the organisation's revision: the offset is saved against it, like the organisation's settings. */
+export const getPrintOffset = () => json(printOffsetStateSchema, 'GET', '/api/print-settings/offset');
+export const setPrintOffset = (offset: PrintOffsetSave) => json(printOffsetStateSchema, 'PUT', '/api/print-settings/offset', { body: offset });

@@ -39,7 +39,11 @@ async function storeDemoBoard(page: Page, contactEmail = uniqueEmail('office'), 
   const current = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as { revision: number };
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: current.revision } });
   expect(saved.status()).toBe(200);
-  await page.request.put('/api/organisation', { headers, data: { name: 'Quillmarsh Test Electrical', contactPhone: '01632 960418', contactEmail } });
+  const organisation = await (await page.request.get('/api/organisation')).json() as { revision: number };
+  const contact = await page.request.put('/api/organisation', {
+    headers, data: { name: 'Quillmarsh Test Electrical', contactPhone: '01632 960418', contactEmail, baseRevision: organisation.revision },
+  });
+  expect(contact.status()).toBe(200);
   return id;
 }
 

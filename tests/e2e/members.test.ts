@@ -119,4 +119,30 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     const saved = await (await page.request.get('/api/organisation')).json();
     expect(saved).toMatchObject({ name: 'Halyard & Daughters Electrical', contactPhone: '01632 960 482', contactEmail: 'office@halyard.example' });
   });
+
+  it('when someone saves the organisation while the page is open, then Save shows the stale message and Reload shows theirs', async () => {
+    const owner = await signedInOwnerPage(app, 'Stale Page Electrical');
+    const page = owner.page;
+    await page.goto('/settings/organisation');
+    const name = page.getByLabel('Organisation name');
+    await name.waitFor();
+    // Another tab saves first, from the same revision the page loaded.
+    const headers = { 'X-CSRF-Token': ((await (await page.request.get('/api/auth/csrf')).json()) as { token: string }).token };
+    const { revision } = await (await page.request.get('/api/organisation')).json() as { revision: number };
+    const other = await page.request.put('/api/organisation', { headers, data: { name: 'Saved In Another Tab Ltd', contactPhone: '', contactEmail: '', baseRevision: revision } });
+    expect(other.status()).toBe(200);
+
+    await name.fill('Overwriting Ltd');
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByTestId('stale-save').getByText('Someone saved this since you opened it: reload to see their changes.').waitFor();
+    expect((await (await page.request.get('/api/organisation')).json()).name).toBe('Saved In Another Tab Ltd');
+    await page.getByTestId('stale-save-reload').click();
+    await page.getByTestId('stale-save').waitFor({ state: 'detached' });
+    expect(await name.inputValue()).toBe('Saved In Another Tab Ltd');
+    // Saved again from the reloaded revision, the change goes through.
+    await name.fill('Second Try Ltd');
+    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByText('Saved.', { exact: false }).waitFor();
+    expect(await (await page.request.get('/api/organisation')).json()).toMatchObject({ name: 'Second Try Ltd', revision: revision + 2 });
+  });
 });
