@@ -6,7 +6,15 @@ import { z } from 'zod';
 import { positive } from './fields.js';
 
 export const earthingArrangements = ['TN-S', 'TN-C-S', 'TT'] as const;
-export const installationTypes = ['domestic', 'rented-domestic', 'hmo', 'commercial', 'industrial', 'caravan', 'special-location', 'construction-site'] as const;
+/**
+ * Kinds of installation, for the usual inspection interval and the dwelling rules. Values are only ever
+ * added, so saved schedules keep parsing: 'special-location' (any other special location, 1 year) predates
+ * the separate locations that IET Guidance Note 3 gives their own intervals.
+ */
+export const installationTypes = [
+  'domestic', 'rented-domestic', 'hmo', 'commercial', 'industrial', 'caravan', 'caravan-park', 'agricultural',
+  'swimming-pool', 'marina', 'petrol-station', 'leisure-complex', 'special-location', 'construction-site',
+] as const;
 export const alternativeSupplyKinds = ['pv', 'battery', 'generator', 'wind', 'other'] as const;
 export const deviceKinds = ['main-switch', 'rcd', 'rcbo', 'mcb', 'fuse', 'afdd', 'spd', 'isolator', 'timer', 'blank'] as const;
 export const breakerCurves = ['B', 'C', 'D'] as const;

@@ -1,7 +1,7 @@
 /**
  * Periodic inspection: the next date is the last inspection (or the installation, for a new
  * board) plus the interval: the one recorded on the board, else the usual interval for the kind
- * of installation from IET Guidance Note 3. 514.12.1 asks for both dates on a notice at the origin.
+ * of installation from IET Guidance Note 3 Table 3.2. 514.12.1 asks for both dates on a notice at the origin.
  */
 import type { BoardDetails } from '../../schemas/schedule.js';
 import type { CheckContext, Finding } from '../types.js';
@@ -26,7 +26,7 @@ function intervalText(months: number): string {
 /** Inspection findings: missing last date, overdue, due soon, a last date in the future. */
 export function checkInspection(board: BoardDetails, context: CheckContext, next: string | null): Finding[] {
   const months = inspectionIntervalMonths(board);
-  const rule = board.inspectionIntervalMonths != null ? 'BS 7671 514.12.1' : 'IET Guidance Note 3';
+  const rule = board.inspectionIntervalMonths != null ? 'BS 7671 514.12.1' : 'IET Guidance Note 3 Table 3.2';
   const out: Finding[] = [];
   if (board.lastInspectionOn == null) {
     out.push({

@@ -141,16 +141,27 @@ export const SOCKET_RCD_MAX_RATING = 32;
  */
 export const FINAL_CIRCUIT_0_4S = { withSockets: 63, fixedOnly: 32 } as const;
 
-/** IET Guidance Note 3: usual months between periodic inspections by installation type (found in secondary pages). */
+/**
+ * Usual maximum months between periodic inspections by installation type, as IET Guidance Note 3 Table 3.2
+ * lists them (the initial frequency; the inspector may set a shorter or longer one, recorded on the board).
+ * Domestic to construction-site values were found in secondary pages; the rest are from memory, to check.
+ */
 export const INSPECTION_INTERVAL_MONTHS: Record<InstallationType, number> = {
-  domestic: 120,
-  'rented-domestic': 60,
-  hmo: 60,
-  commercial: 60,
-  industrial: 36,
-  caravan: 36,
-  'special-location': 12, // swimming pools, caravan parks, petrol stations, marinas: 1 year
-  'construction-site': 3,
+  domestic: 120, // IET Guidance Note 3 Table 3.2: domestic 10 years (found in secondary pages)
+  'rented-domestic': 60, // IET Guidance Note 3 Table 3.2: rented domestic 5 years (found in secondary pages)
+  hmo: 60, // IET Guidance Note 3 Table 3.2: residential accommodation 5 years (found in secondary pages)
+  commercial: 60, // IET Guidance Note 3 Table 3.2: commercial 5 years (found in secondary pages)
+  industrial: 36, // IET Guidance Note 3 Table 3.2: industrial 3 years (found in secondary pages)
+  caravan: 36, // IET Guidance Note 3 Table 3.2: caravans 3 years (found in secondary pages)
+  'caravan-park': 12, // from memory: IET Guidance Note 3 Table 3.2, caravan parks 1 year
+  agricultural: 36, // from memory: IET Guidance Note 3 Table 3.2, agricultural and horticultural premises 3 years
+  'swimming-pool': 12, // from memory: IET Guidance Note 3 Table 3.2, swimming pools 1 year
+  marina: 12, // from memory: IET Guidance Note 3 Table 3.2, marinas 1 year
+  'petrol-station': 12, // from memory: IET Guidance Note 3 Table 3.2, petrol filling stations 1 year
+  'leisure-complex': 12, // from memory: IET Guidance Note 3 Table 3.2, leisure complexes (not swimming pools) 1 year
+  // Any other special location: the 1 year it always had, the shortest interval above (common practice).
+  'special-location': 12,
+  'construction-site': 3, // IET Guidance Note 3 Table 3.2: construction sites 3 months (found in secondary pages)
 };
 
 /** Installation types that are dwellings, where 411.3.3 allows no risk-assessment exception and 411.3.4 applies. */

@@ -13,7 +13,9 @@ const options = <T extends string>(values: readonly T[], names: Record<T, string
 
 export const installationTypeNames: Record<InstallationType, string> = {
   domestic: 'Domestic', 'rented-domestic': 'Rented domestic', hmo: 'HMO / residential accommodation', commercial: 'Commercial',
-  industrial: 'Industrial', caravan: 'Caravan', 'special-location': 'Special location (pool, marina…)', 'construction-site': 'Construction site',
+  industrial: 'Industrial', caravan: 'Caravan', 'caravan-park': 'Caravan park', agricultural: 'Agricultural / horticultural',
+  'swimming-pool': 'Swimming pool', marina: 'Marina', 'petrol-station': 'Petrol filling station', 'leisure-complex': 'Leisure complex',
+  'special-location': 'Other special location', 'construction-site': 'Construction site',
 };
 export const circuitKindNames: Record<CircuitKind, string> = {
   ring: 'Ring final', radial: 'Radial', lighting: 'Lighting', cooker: 'Cooker', shower: 'Shower', immersion: 'Immersion heater',

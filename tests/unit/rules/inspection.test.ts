@@ -1,25 +1,53 @@
 import { describe, expect, it } from 'vitest';
 import { nextInspectionDate } from '../../../shared/rules/index.js';
 import { addMonths } from '../../../shared/rules/dates.js';
+import { inspectionIntervalMonths } from '../../../shared/rules/bs7671/index.js';
+import { installationTypes, scheduleSchema } from '../../../shared/schemas/schedule.js';
 import { makeSchedule, withCode } from './fixtures.js';
 
 const board = (b: Parameters<typeof makeSchedule>[0]['board']) => makeSchedule({ board: b });
 
 describe('next periodic inspection date', () => {
   it('when a domestic installation was inspected on 2016-06-01, then the next is 10 years on, 2026-06-01', () => {
-    expect(nextInspectionDate(board({ installationType: 'domestic', lastInspectionOn: '2016-06-01' }).board)).toBe('2026-06-01'); // IET Guidance Note 3: domestic 10 years
+    expect(nextInspectionDate(board({ installationType: 'domestic', lastInspectionOn: '2016-06-01' }).board)).toBe('2026-06-01'); // IET Guidance Note 3 Table 3.2: domestic 10 years (found in secondary pages)
   });
 
   it.each([
-    ['rented-domestic', '2027-03-31'], // IET Guidance Note 3: rented domestic 5 years
-    ['hmo', '2027-03-31'], // IET Guidance Note 3: HMO 5 years
-    ['commercial', '2027-03-31'], // IET Guidance Note 3: commercial 5 years
-    ['industrial', '2025-03-31'], // IET Guidance Note 3: industrial 3 years
-    ['caravan', '2025-03-31'], // IET Guidance Note 3: caravans 3 years
-    ['special-location', '2023-03-31'], // IET Guidance Note 3: swimming pools, marinas… 1 year
-    ['construction-site', '2022-06-30'], // IET Guidance Note 3: construction sites 3 months
+    ['rented-domestic', '2027-03-31'], // IET Guidance Note 3 Table 3.2: rented domestic 5 years (found in secondary pages)
+    ['hmo', '2027-03-31'], // IET Guidance Note 3 Table 3.2: residential accommodation 5 years (found in secondary pages)
+    ['commercial', '2027-03-31'], // IET Guidance Note 3 Table 3.2: commercial 5 years (found in secondary pages)
+    ['industrial', '2025-03-31'], // IET Guidance Note 3 Table 3.2: industrial 3 years (found in secondary pages)
+    ['caravan', '2025-03-31'], // IET Guidance Note 3 Table 3.2: caravans 3 years (found in secondary pages)
+    ['caravan-park', '2023-03-31'], // IET Guidance Note 3 Table 3.2: caravan parks 1 year (from memory)
+    ['agricultural', '2025-03-31'], // IET Guidance Note 3 Table 3.2: agricultural and horticultural 3 years (from memory)
+    ['swimming-pool', '2023-03-31'], // IET Guidance Note 3 Table 3.2: swimming pools 1 year (from memory)
+    ['marina', '2023-03-31'], // IET Guidance Note 3 Table 3.2: marinas 1 year (from memory)
+    ['petrol-station', '2023-03-31'], // IET Guidance Note 3 Table 3.2: petrol filling stations 1 year (from memory)
+    ['leisure-complex', '2023-03-31'], // IET Guidance Note 3 Table 3.2: leisure complexes, not pools, 1 year (from memory)
+    ['special-location', '2023-03-31'], // the old catch-all keeps its 1 year (common practice: the shortest special-location interval)
+    ['construction-site', '2022-06-30'], // IET Guidance Note 3 Table 3.2: construction sites 3 months (found in secondary pages)
   ] as const)('when a %s installation was last inspected on 2022-03-31, then the next is %s', (installationType, next) => {
     expect(nextInspectionDate(board({ installationType, lastInspectionOn: '2022-03-31' }).board)).toBe(next);
+  });
+
+  it('when agricultural premises are overdue, then the finding names a 3-year interval, not the 1 year of other special locations', () => {
+    // IET Guidance Note 3 Table 3.2: agricultural and horticultural 3 years (from memory); last 2023-01-10 → due 2026-01-10
+    const [f] = withCode(board({ installationType: 'agricultural', lastInspectionOn: '2023-01-10' }), 'inspection-overdue');
+    expect(f.message).toBe('Periodic inspection overdue: it was due on 10 January 2026 (3-year interval)');
+    expect(withCode(board({ installationType: 'agricultural', lastInspectionOn: '2024-01-10' }), 'inspection-overdue')).toEqual([]);
+  });
+
+  it('when a board saved before the new types says special-location, then it still parses and keeps its 1-year interval', () => {
+    const old = scheduleSchema.parse({ board: { name: 'Pool plant room', installationType: 'special-location', lastInspectionOn: '2025-01-10', supply: { earthing: 'TN-S' } }, devices: [], circuits: [] });
+    expect(old.board.installationType).toBe('special-location');
+    expect(nextInspectionDate(old.board)).toBe('2026-01-10'); // 1 year, as before
+  });
+
+  it('when every installation type is listed, then each has an interval of 3 months to 10 years', () => {
+    for (const t of installationTypes) {
+      expect(inspectionIntervalMonths({ installationType: t, inspectionIntervalMonths: null })).toBeGreaterThanOrEqual(3);
+      expect(inspectionIntervalMonths({ installationType: t, inspectionIntervalMonths: null })).toBeLessThanOrEqual(120);
+    }
   });
 
   it('when the board records its own 18-month interval, then that wins, with month ends clamped', () => {
@@ -48,7 +76,7 @@ describe('next periodic inspection date', () => {
 describe('inspection findings (today 2026-06-15)', () => {
   it('when the next date has passed, then an overdue warning with the date and interval', () => {
     const [f] = withCode(board({ installationType: 'domestic', lastInspectionOn: '2016-06-01' }), 'inspection-overdue');
-    expect(f).toMatchObject({ severity: 'warning', rule: 'IET Guidance Note 3', field: 'board.lastInspectionOn' });
+    expect(f).toMatchObject({ severity: 'warning', rule: 'IET Guidance Note 3 Table 3.2', field: 'board.lastInspectionOn' });
     expect(f.message).toBe('Periodic inspection overdue: it was due on 1 June 2026 (10-year interval)');
   });
 
