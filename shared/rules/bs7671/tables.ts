@@ -117,7 +117,10 @@ export function nextTabulatedKey(table: Record<number, number>, value: number): 
  */
 export const RING_FINAL = { liveCsa: 2.5, ratings: [30, 32], minIz: 20 } as const;
 
-/** Voltage drop limits, percent of nominal voltage (Appendix 4 Section 6, found). */
+/**
+ * Voltage drop limits, percent of nominal voltage, for an installation supplied from a public low voltage
+ * distribution system (BS 7671 525 and Appendix 4 Section 6, found; the table's number, 4Ab, from memory).
+ */
 export const VOLTAGE_DROP_LIMIT_PERCENT = { lighting: 3, other: 5 } as const;
 
 /**

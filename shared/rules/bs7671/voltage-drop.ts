@@ -1,6 +1,7 @@
 /**
- * Voltage drop estimate (Appendix 4 Section 6): route length × mV/A/m × design current / 1000,
- * against 3 % of the voltage to earth (U0) for lighting and 5 % for other uses. The design current is
+ * Voltage drop estimate (BS 7671 525, worked by Appendix 4 Section 6): route length × mV/A/m × design current
+ * / 1000, against Table 4Ab's limits for an installation supplied from a public low voltage distribution
+ * system, 3 % of the voltage to earth (U0) for lighting and 5 % for other uses. The design current is
  * taken as the device rating, the worst case the circuit can carry. The drop is from this board;
  * a board fed by a sub-main adds the sub-main's own drop.
  */
@@ -8,6 +9,9 @@ import { supplyVoltages } from '../../schedule/voltage.js';
 import type { Finding } from '../types.js';
 import { TABLE_4D5, VOLTAGE_DROP_LIMIT_PERCENT } from './tables.js';
 import { circuitFinding, circuitName, isOvercurrentDevice, num, type CircuitFacts, type ScheduleView } from './view.js';
+
+/** Where the limits come from: regulation 525 sets them by Appendix 4 Table 4Ab. */
+const VOLTAGE_DROP_RULE = 'BS 7671 525, Appendix 4 Table 4Ab';
 
 /** A ring's load taken at its midpoint: each leg carries half over half the length, a quarter of a radial's drop (common practice). */
 const RING_LENGTH_FACTOR = 0.25;
@@ -36,8 +40,8 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   const percent = (volts / nominal) * 100;
   if (percent <= limitPercent) return [];
   const use = isLighting ? 'lighting' : 'this use';
-  return [circuitFinding(f, 'warning', 'voltage-drop-over-limit', 'BS 7671 Appendix 4 Section 6', 'cable.lengthM',
-    `${circuitName(f.circuit)}: estimated voltage drop ${num(volts)} V (${num(percent)} %) over ${num(f.circuit.cable.lengthM ?? 0)} m of ${num(f.circuit.cable.liveCsa ?? 0)} mm² at ${num(f.device?.rating ?? 0)} A exceeds the ${limitPercent} % limit for ${use} (${num((nominal * limitPercent) / 100)} V)`)];
+  return [circuitFinding(f, 'warning', 'voltage-drop-over-limit', VOLTAGE_DROP_RULE, 'cable.lengthM',
+    `${circuitName(f.circuit)}: estimated voltage drop ${num(volts)} V (${num(percent)} %) over ${num(f.circuit.cable.lengthM ?? 0)} m of ${num(f.circuit.cable.liveCsa ?? 0)} mm² at ${num(f.device?.rating ?? 0)} A exceeds the ${limitPercent} % limit for ${use} from a public supply (${num((nominal * limitPercent) / 100)} V; ${VOLTAGE_DROP_RULE})`)];
 }
 
 /** Voltage drop of every circuit with a tabulated cable and a route length. */

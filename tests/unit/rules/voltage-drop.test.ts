@@ -5,22 +5,22 @@ import { oneCircuit, withCode } from './fixtures.js';
 const te = (liveCsa: number, lengthM: number) => ({ type: 'twin-earth' as const, liveCsa, cpcCsa: 1, referenceMethod: 'C' as const, lengthM });
 const mcb = (rating: number) => ({ kind: 'mcb' as const, rating, curve: 'B' as const, residualMa: null });
 
-describe('voltage drop estimate (Appendix 4 Section 6)', () => {
+describe('voltage drop estimate (BS 7671 525, Appendix 4 Table 4Ab)', () => {
   it('when 1.5 mm² carries 6 A over 20 m, then the drop is 29 mV/A/m × 6 A × 20 m = 3.48 V', () => {
     const s = oneCircuit(mcb(6), { kind: 'lighting', cable: te(1.5, 20) });
     expect(estimatedVoltageDrop({ circuit: s.circuits[0], device: s.devices[0] })).toBeCloseTo(3.48, 6); // Table 4D5 1.5 mm²: 29 mV/A/m (found)
   });
 
   it('when a B6 lighting circuit in 1.5 mm² is 39 m, then it is within 3 % of 230 V (6.9 V); at 40 m it is over', () => {
-    // 29 mV/A/m (Table 4D5, found) × 6 A: 39 m → 6.79 V, 40 m → 6.96 V; limit 3 % lighting (Appendix 4 6.4, found)
+    // 29 mV/A/m (Table 4D5, found) × 6 A: 39 m → 6.79 V, 40 m → 6.96 V; limit 3 % lighting, public supply (BS 7671 Appendix 4 6.4, found; Table 4Ab, from memory)
     expect(withCode(oneCircuit(mcb(6), { kind: 'lighting', cable: te(1.5, 39) }), 'voltage-drop-over-limit')).toEqual([]);
     const [f] = withCode(oneCircuit(mcb(6), { way: 5, label: 'Loft lights', kind: 'lighting', cable: te(1.5, 40) }), 'voltage-drop-over-limit');
-    expect(f).toMatchObject({ severity: 'warning', rule: 'BS 7671 Appendix 4 Section 6', field: 'circuits.0.cable.lengthM' });
-    expect(f.message).toBe('Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) over 40 m of 1.5 mm² at 6 A exceeds the 3 % limit for lighting (6.9 V)');
+    expect(f).toMatchObject({ severity: 'warning', rule: 'BS 7671 525, Appendix 4 Table 4Ab', field: 'circuits.0.cable.lengthM' });
+    expect(f.message).toBe('Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) over 40 m of 1.5 mm² at 6 A exceeds the 3 % limit for lighting from a public supply (6.9 V; BS 7671 525, Appendix 4 Table 4Ab)');
   });
 
   it('when a B20 radial in 2.5 mm² is 31 m, then within 5 % (11.5 V); at 32 m it is over', () => {
-    // 18 mV/A/m (Table 4D5, from memory) × 20 A: 31 m → 11.16 V, 32 m → 11.52 V; limit 5 % other uses (found)
+    // 18 mV/A/m (Table 4D5, from memory) × 20 A: 31 m → 11.16 V, 32 m → 11.52 V; limit 5 % other uses, public supply (Appendix 4 6.4, found; Table 4Ab, from memory)
     expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: te(2.5, 31) }), 'voltage-drop-over-limit')).toEqual([]);
     expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: te(2.5, 32) }), 'voltage-drop-over-limit')).toHaveLength(1);
   });
@@ -39,7 +39,7 @@ describe('voltage drop estimate (Appendix 4 Section 6)', () => {
     // 18 mV/A/m (Table 4D5, from memory) × 20 A × 32 m = 11.52 V > 5 % of U0 230 V = 11.5 V; 230/400 V (BS EN 60038, from memory)
     for (const nominalVoltage of [230, 400]) {
       const [f] = withCode(oneCircuit(mcb(20), { kind: 'radial', phase: 'L1', cable: te(2.5, 32) }, { phases: 3, supply: { nominalVoltage } }), 'voltage-drop-over-limit');
-      expect(f?.message).toContain('exceeds the 5 % limit for this use (11.5 V)');
+      expect(f?.message).toContain('exceeds the 5 % limit for this use from a public supply (11.5 V; BS 7671 525, Appendix 4 Table 4Ab)');
     }
   });
 
