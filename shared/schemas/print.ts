@@ -50,7 +50,8 @@ const wayLabelOptions = z.strictObject({
 });
 
 const chartOptions = z.strictObject({
-  showFindings: z.stringbool().default(true),
+  /** The door chart carries the schedule; the rule findings stay in the app unless asked for. */
+  showFindings: z.stringbool().default(false),
 });
 
 const noticeKinds = ['inspection', 'rcd-test', 'earthing', 'mixed-colours', 'alternative-supply', 'voltage'] as const;

@@ -6,8 +6,8 @@ import { boardSchedule, contractor, maxZsByCircuit, request, tenCircuitBoard } f
 import { pdfText, rasterise, runsOutside, textRuns } from './helpers.js';
 
 describe('circuit chart', () => {
-  it('when ten circuits print on A4, then one page holds the header, every way, the findings and the caution', () => {
-    const layout = layoutOutput(request('chart', 'a4'));
+  it('when ten circuits print on A4 with findings asked for, then one page holds the header, every way, the findings and the caution', () => {
+    const layout = layoutOutput(request('chart', 'a4', { showFindings: true }));
     expect(layout.pages).toHaveLength(1);
     const text = textRuns(layout).map((r) => r.text).join(' ');
     for (const part of ['Circuit chart', 'Main consumer unit', 'Brightwell & Daughters Electrical', 'Supply: TN-C-S', 'RCD 2', 'Findings at revision 6', 'Caution:']) expect(text).toContain(part);
@@ -48,10 +48,12 @@ describe('circuit chart', () => {
     }
   });
 
-  it('when findings are switched off, then the chart leaves them out', () => {
-    const text = textRuns(layoutOutput(request('chart', 'a4', { showFindings: false }))).map((r) => r.text).join(' ');
-    expect(text).not.toContain('Findings at revision');
-    expect(text).not.toContain('Zs was measured cold');
+  it('when findings are switched off, or not asked for (the default: the door chart carries the schedule), then the chart leaves them out', () => {
+    for (const options of [{ showFindings: false }, {}]) {
+      const text = textRuns(layoutOutput(request('chart', 'a4', options))).map((r) => r.text).join(' ');
+      expect(text).not.toContain('Findings at revision');
+      expect(text).not.toContain('Zs was measured cold');
+    }
   });
 
   it('when a measured Zs is above the maximum passed in, then it is marked', () => {

@@ -36,7 +36,7 @@ describe('cable flag strip', () => {
 
 describe('circuit chart wording', () => {
   it('when a finding concerns several ways or one, then the chart names them "ways 3 and 6" / "way 8"', async () => {
-    const text = squash(await pdfText((await renderOutput(request('chart', 'a4'))).pdf));
+    const text = squash(await pdfText((await renderOutput(request('chart', 'a4', { showFindings: true }))).pdf));
     expect(text).toContain('Note · ways 3 and 6 ·');
     expect(text).toContain('Check · way 8 ·');
   });
