@@ -2,6 +2,7 @@
  * The handover e-mail to the client, in our own wording: what the attachment is, where the
  * board page is, and the few cautions a householder needs. Pure: built from plain values.
  */
+import { longDate } from '../../shared/rules/dates.js';
 
 export interface HandoverMailInput {
   contractor: { name: string; phone: string; email: string };
@@ -42,7 +43,7 @@ export function handoverMail(input: HandoverMailInput): { subject: string; text:
     '- Test each RCD with its own test button as the notice beside it says. If one does not trip, call an electrician.',
     '- Do not open the board or work inside it unless you are competent to. Before any work the supply must be isolated and proved dead.',
   );
-  if (input.nextInspectionOn) lines.push(`- The next periodic inspection is recommended by ${input.nextInspectionOn}.`);
+  if (input.nextInspectionOn) lines.push(`- The next periodic inspection is recommended by ${longDate(input.nextInspectionOn)}.`);
   lines.push('', ...contactLines(input.contractor), '', input.contractor.name);
   return { subject: `Circuit chart for your board "${input.boardName}"`.slice(0, 200), text: lines.join('\n') };
 }

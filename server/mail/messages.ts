@@ -2,6 +2,7 @@
  * The words of the account e-mails. Pure: the caller passes names, the link and the expiry,
  * so the text is tested without sending anything and without a clock.
  */
+import { isoDay, shortDate } from '../../shared/rules/dates.js';
 import type { Role } from '../../shared/schemas/auth.js';
 
 export interface MessageText { subject: string; text: string }
@@ -12,9 +13,9 @@ const ROLE_DUTIES: Record<Role, string> = {
   viewer: 'a viewer: you can read and print board schedules, but not change them',
 };
 
-/** "2025-03-08 14:05 UTC": unambiguous whatever the reader's locale. */
+/** "8 Mar 2025, 14:05 UTC": the app's short date, and a time zone so no reader misreads the hour. */
 export function formatUtc(when: Date): string {
-  return `${when.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+  return `${shortDate(isoDay(when))}, ${when.toISOString().slice(11, 16)} UTC`;
 }
 
 export interface InvitationMessageInput {
