@@ -26,8 +26,15 @@ export type BoardImport = z.infer<typeof boardImportSchema>;
  */
 export function parseBoardImport(body: unknown): BoardImport {
   const wrapped = typeof body === 'object' && body !== null && 'file' in body;
+  const file = wrapped ? (body as { file: unknown }).file : body;
+  // Anything that is not one of our files is said to be so in plain words, not as a list of schema faults.
+  if (typeof file !== 'object' || file === null || Array.isArray(file) || (file as { kind?: unknown }).kind !== 'waymark-board') {
+    throw invalid(NOT_A_BOARD_FILE, { [wrapped ? 'file' : 'kind']: NOT_A_BOARD_FILE });
+  }
   return wrapped ? boardImportSchema.options[0].parse(body) : boardImportSchema.options[1].parse(body);
 }
+
+export const NOT_A_BOARD_FILE = 'This is not a Waymark board file: export one from a board (More → Export board file) and import that';
 
 /** A safe file name from the board code and name: "WM-7K3QX2-main-consumer-unit". */
 export function fileBaseName(code: string, name: string): string {

@@ -30,7 +30,8 @@ export function readFileText(file: File): Promise<string> {
 export function parseJsonFile(text: string): { ok: true; value: unknown } | { ok: false; message: string } {
   try {
     return { ok: true, value: JSON.parse(text) };
-  } catch (err) {
-    return { ok: false, message: `This file is not valid JSON: ${(err as Error).message}` };
+  } catch {
+    // The parser's own words (positions, tokens) mean nothing to someone choosing a file.
+    return { ok: false, message: 'This is not a Waymark board file: it could not be read. Export one from a board (More → Export board file) and import that.' };
   }
 }

@@ -70,8 +70,10 @@ describe('board file export and import', () => {
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['circuits.1.way', 'circuits.3.cable.liveCsa', 'devices.2.kind', 'format']);
     const wrapped = await owner.post('/api/boards/import', { file: bad }).expect(400);
     expect(Object.keys(wrapped.body.error.fields)).toContain('file.circuits.1.way');
-    await owner.post('/api/boards/import', { ...file, kind: 'something-else' }).expect(400);
-    await owner.post('/api/boards/import', []).expect(400);
+    for (const other of [{ ...file, kind: 'something-else' }, [], { file: 'text' }, { name: 'a spreadsheet export' }]) {
+      const refused = await owner.post('/api/boards/import', other).expect(400);
+      expect(refused.body.error.message).toMatch(/^This is not a Waymark board file/);
+    }
     expect(await boardCount(owner)).toBe(before);
   });
 
