@@ -21,6 +21,7 @@ export type SaveOutcome = 'saved' | 'unchanged' | 'invalid' | 'conflict' | 'fail
 const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
 const isoToday = () => isoDay(new Date());
 /** Ids only need to be unique within one board; a short random tail keeps two editors' new items apart. */
+const NO_SUCH_BOARD = 'There is no such board: it does not exist or was deleted.';
 export const newItemId = (prefix: string) => `${prefix}-${Math.random().toString(36).slice(2, 10)}`;
 
 export const useBoardStore = defineStore('board', () => {
@@ -110,13 +111,19 @@ export const useBoardStore = defineStore('board', () => {
     serverFields.value = {};
     today.value = isoToday();
     restoredDraftAt.value = null;
+    // A board address that is not a board number (/boards/abc) names no board: say so, as for a deleted one.
+    if (!Number.isInteger(id) || id < 1) {
+      status.value = 'error';
+      error.value = NO_SUCH_BOARD;
+      return;
+    }
     try {
       adopt(await getSchedule(id));
       restoreDraft(id);
       status.value = 'ready';
     } catch (err) {
       status.value = 'error';
-      error.value = err instanceof ApiError && err.status === 404 ? 'This board does not exist or was deleted.' : (err as Error).message;
+      error.value = err instanceof ApiError && err.status === 404 ? NO_SUCH_BOARD : (err as Error).message;
     }
   }
 

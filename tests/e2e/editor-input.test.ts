@@ -62,6 +62,15 @@ describe('what is typed in the editor is kept as meant', () => {
     expect(app.pageErrors).toEqual([]);
   }, 180_000);
 
+  it('when a board address names no board, then the editor says there is no such board', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    for (const path of ['/boards/abc', '/boards/999999999']) {
+      await page.goto(path);
+      await page.getByText('There is no such board').waitFor();
+    }
+    expect(app.pageErrors).toEqual([]);
+  });
+
   it('when a ring is made a radial, then it keeps one leg; the label shows its limit while typing; each B32 is named by its place', async () => {
     const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
     const boardId = await boardWithCircuits(page, 3);

@@ -81,6 +81,18 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
     expect(page.url()).toMatch(/\/signin$/);
   });
 
+  it('when the sign-up password is too short, then the hint shows once, as the field\'s message, not twice', async () => {
+    const page = await app.newPage();
+    await page.goto('/signup');
+    const hint = page.getByText('At least 10 characters');
+    await hint.first().waitFor();
+    expect(await hint.count()).toBe(1); // the hint before anything is typed
+    await page.getByLabel('Password', { exact: true }).fill('short');
+    await page.getByRole('button', { name: 'Create account' }).click();
+    await page.locator('.ant-form-item-explain-error').first().waitFor();
+    expect(await hint.count()).toBe(1);
+  });
+
   it('when the password is wrong, then the server message shows and the member stays signed out', async () => {
     const { email } = await signedInOwnerPage(app, 'Wrong Password Test Ltd');
     const page = await app.newPage();
