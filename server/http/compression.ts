@@ -8,11 +8,18 @@ import type { Request, RequestHandler, Response } from 'express';
 /** Bodies smaller than this (bytes) go out as they are: below about one packet, encoding saves no round trip. */
 export const COMPRESSION_THRESHOLD = 1024;
 
-/** Types whose bytes are compressed already (PDF streams, ZIP, PNG/JPEG, fonts): encoding them again only costs time. */
-const ALREADY_COMPRESSED = /^\s*(application\/(pdf|zip|gzip|x-gzip|octet-stream)|image\/(?!svg\+xml)|font\/|audio\/|video\/)/i;
+/** Types whose bytes are packed already (PDF streams, archives, raw files): encoding them again only costs time. */
+const PACKED_TYPES = new Set(['application/pdf', 'application/zip', 'application/gzip', 'application/octet-stream']);
+/** Families of packed media (PNG/JPEG, fonts, sound, film); SVG is text and is compressed. */
+const PACKED_FAMILIES = ['image/', 'font/', 'audio/', 'video/'];
+
+function alreadyPacked(contentType: string): boolean {
+  const type = contentType.split(';')[0]!.trim().toLowerCase();
+  return PACKED_TYPES.has(type) || (type !== 'image/svg+xml' && PACKED_FAMILIES.some((f) => type.startsWith(f)));
+}
 
 function shouldCompress(req: Request, res: Response): boolean {
-  if (ALREADY_COMPRESSED.test(String(res.getHeader('Content-Type') ?? ''))) return false;
+  if (alreadyPacked(String(res.getHeader('Content-Type') ?? ''))) return false;
   return compression.filter(req, res);
 }
 
