@@ -11,6 +11,7 @@
 import { deviceSchema, circuitSchema, type Circuit, type Device, type Schedule } from '../schemas/schedule.js';
 import type { PlannedWay, SurveyWay } from '../schemas/survey.js';
 import { rcdFor, wayText } from './derive.js';
+import { legsOf } from './legs.js';
 
 /** Modules a planned device takes on the DIN rail (DIN 43880 module, 17.5 mm): one-module MCBs and RCBOs, a two-module RCD. */
 const MODULES = { mcb: 1, rcbo: 1, rcd: 2 } as const; // common practice
@@ -24,11 +25,6 @@ export const plannedDeviceId = (circuitId: string) => `dev-${circuitId}`.slice(0
 
 const moves = (w: SurveyWay) => w.action === 'keep' || w.action === 'split' || w.action === 'join';
 
-/** The old legs a target takes: the ones it names, or all of them when it is the old way's only target and names none. */
-export function legsOf(w: SurveyWay, t: PlannedWay): number[] {
-  if (t.legs.length) return t.legs.map((l) => l.leg);
-  return w.targets.length === 1 ? Array.from({ length: w.legs }, (_, i) => i + 1) : [];
-}
 
 interface Contribution { way: SurveyWay; index: number; target: PlannedWay; j: number; legs: number[] }
 

@@ -4,6 +4,7 @@
  * so a ring changed to a radial must not keep its second flag.
  */
 import type { Circuit } from '../schemas/schedule.js';
+import type { PlannedWay, SurveyWay } from '../schemas/survey.js';
 
 /** The legs a circuit of this kind has by default. */
 export function defaultLegs(kind: Circuit['kind']): number {
@@ -16,4 +17,10 @@ export function defaultLegs(kind: Circuit['kind']): number {
  */
 export function legsAfterKindChange(before: Circuit['kind'], after: Circuit['kind'], legs: number): number {
   return legs === defaultLegs(before) ? defaultLegs(after) : legs;
+}
+
+/** The old legs a target takes: the ones it names, or all of them when it is the old way's only target and names none. */
+export function legsOf(w: SurveyWay, t: PlannedWay): number[] {
+  if (t.legs.length) return t.legs.map((l) => l.leg);
+  return w.targets.length === 1 ? Array.from({ length: w.legs }, (_, i) => i + 1) : [];
 }

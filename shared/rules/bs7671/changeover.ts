@@ -14,7 +14,7 @@ import { judgeRcdTrip, judgeReadings } from './readings.js';
 import { AMBIENT_RULE_OF_THUMB, RING_FINAL } from './tables.js';
 import { BS3036_OVERLOAD_FACTOR, LOW_INSULATION_MEGOHMS, RING_RULE_FUSES } from './tables-fuses.js';
 import { num, ohms } from './view.js';
-import { legsOf } from '../../schedule/apply-plan.js';
+import { legsOf } from '../../schedule/legs.js';
 
 /** "Old Fuse 2 (sockets, back of house…)": how every survey finding opens. */
 export function oldWayName(w: SurveyWay): string {
