@@ -18,7 +18,10 @@ export default tseslint.config(
     languageOptions: { globals: { ...globals.node, ...globals.browser } },
     rules: {
       // The type checker reports unused names (noUnusedLocals/Parameters); a leading _ marks one kept on purpose.
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_', ignoreRestSiblings: true }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_', destructuredArrayIgnorePattern: '^_', ignoreRestSiblings: true },
+      ],
       // `any` is allowed only where a library's types force it, with a comment: a warning keeps each one visible.
       '@typescript-eslint/no-explicit-any': 'warn',
       // Layout is Prettier's job (`npm run format`), not the linter's.

@@ -8,7 +8,15 @@ import type { Database } from '../server/db/client.js';
 import { boards } from '../server/db/schema.js';
 import { measure, rssMb, spawnServer } from './load.js';
 
-export interface LoadRow { route: string; rps: number; p50Ms: number; p99Ms: number; errors: number; bareRps: number; ratio: number }
+export interface LoadRow {
+  route: string;
+  rps: number;
+  p50Ms: number;
+  p99Ms: number;
+  errors: number;
+  bareRps: number;
+  ratio: number;
+}
 
 async function bodySize(url: string): Promise<{ size: number; type: string }> {
   const res = await fetch(url);
@@ -16,13 +24,22 @@ async function bodySize(url: string): Promise<{ size: number; type: string }> {
   return { size: (await res.arrayBuffer()).byteLength, type: res.headers.get('content-type') ?? 'text/plain' };
 }
 
-export async function benchLoad(database: Database, databaseUrl: string, opts: { seconds: number; connections: number }): Promise<{ load: LoadRow[]; rssMb: number }> {
+export async function benchLoad(
+  database: Database,
+  databaseUrl: string,
+  opts: { seconds: number; connections: number },
+): Promise<{ load: LoadRow[]; rssMb: number }> {
   const [board] = await database.db.select({ token: boards.publicToken }).from(boards).where(isNull(boards.deletedAt)).limit(1);
   if (!board) throw new Error('no demo board to load');
   const env = {
-    ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: 'bench-secret', PORT: '0', NODE_ENV: 'production',
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: 'bench-secret',
+    PORT: '0',
+    NODE_ENV: 'production',
     // The limits protect a public server from one abuser; the benchmark is that one client.
-    RATE_PUBLIC_MINUTE: '100000000', WAYMARK_CLIENT_DIR: 'dist',
+    RATE_PUBLIC_MINUTE: '100000000',
+    WAYMARK_CLIENT_DIR: 'dist',
   };
   const children: ChildProcess[] = [];
   try {

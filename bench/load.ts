@@ -4,7 +4,12 @@ import { spawn, type ChildProcess } from 'node:child_process';
 import { join } from 'node:path';
 import { readFileSync } from 'node:fs';
 
-export interface LoadFigure { rps: number; p50Ms: number; p99Ms: number; errors: number }
+export interface LoadFigure {
+  rps: number;
+  p50Ms: number;
+  p99Ms: number;
+  errors: number;
+}
 
 export async function measure(url: string, seconds: number, connections: number): Promise<LoadFigure> {
   const result = await autocannon({ url, duration: seconds, connections, pipelining: 1 });
@@ -15,7 +20,6 @@ export async function measure(url: string, seconds: number, connections: number)
     errors: result.errors + result.timeouts + result.non2xx,
   };
 }
-
 
 /** Starts a process that prints its port once listening (`PORT n` or `(port n)`); resolves with the port. */
 export function spawnServer(args: string[], env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; port: number }> {
@@ -37,5 +41,7 @@ export function rssMb(pid: number): number {
     const status = readFileSync(`/proc/${pid}/status`, 'utf8');
     const kb = Number(status.match(/VmRSS:\s+(\d+)/)?.[1] ?? 0);
     return Math.round(kb / 1024);
-  } catch { return 0; }
+  } catch {
+    return 0;
+  }
 }

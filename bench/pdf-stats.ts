@@ -5,11 +5,17 @@
 import { PDFDocument, PDFRawStream, PDFArray, PDFName, PDFRef, type PDFDict } from 'pdf-lib';
 import { inflateSync } from 'node:zlib';
 
-export interface DrawStats { pages: Array<{ widthPt: number; heightPt: number; textRuns: number; rects: number }> }
+export interface DrawStats {
+  pages: Array<{ widthPt: number; heightPt: number; textRuns: number; rects: number }>;
+}
 
 function streamText(doc: PDFDocument, ref: unknown): string {
   const obj = ref instanceof PDFRef ? doc.context.lookup(ref) : ref;
-  if (obj instanceof PDFArray) return obj.asArray().map((r) => streamText(doc, r)).join('\n');
+  if (obj instanceof PDFArray)
+    return obj
+      .asArray()
+      .map((r) => streamText(doc, r))
+      .join('\n');
   if (obj instanceof PDFRawStream) {
     const filter = obj.dict.get(PDFName.of('Filter'));
     const bytes = filter ? inflateSync(Buffer.from(obj.contents)) : Buffer.from(obj.contents);

@@ -13,7 +13,12 @@ import { bareDocument } from './pdf-baseline.js';
 import { drawStats } from './pdf-stats.js';
 import { demoPackRenders } from './demo-pack.js';
 
-export interface PdfFigure { name: string; medianMs: number; baselineMs: number; ratio: number }
+export interface PdfFigure {
+  name: string;
+  medianMs: number;
+  baselineMs: number;
+  ratio: number;
+}
 
 const median = (xs: number[]) => [...xs].sort((a, b) => a - b)[Math.floor(xs.length / 2)];
 
@@ -35,7 +40,15 @@ export function requestFor<O extends PrintOutput>(output: O, mediaId: string, sc
     medium: resolveMedium(mediaId),
     options: printOptionSchemas[output].parse({}) as RenderRequest<O>['options'],
     schedule,
-    board: { id: 1, code: 'WM-BENCH1', publicUrl: 'http://localhost:3000/b/bench-token-0123456789abcdef', publicEnabled: true, revision: 3, revisionDate: today, nextInspectionOn: nextInspectionDate(schedule.board) },
+    board: {
+      id: 1,
+      code: 'WM-BENCH1',
+      publicUrl: 'http://localhost:3000/b/bench-token-0123456789abcdef',
+      publicEnabled: true,
+      revision: 3,
+      revisionDate: today,
+      nextInspectionOn: nextInspectionDate(schedule.board),
+    },
     contractor: { name: 'Benchmark Electrical', phone: '01632 960 000', email: 'office@bench.example' },
     findings: checkSchedule(schedule, { today }),
     offset: { xMm: 0, yMm: 0 },
@@ -46,8 +59,12 @@ export function requestFor<O extends PrintOutput>(output: O, mediaId: string, sc
 /** Times a group of renders done together against the baselines of the same PDFs. */
 async function figure(name: string, requests: RenderRequest[], runs: number): Promise<PdfFigure> {
   const samples = await Promise.all(requests.map(async (r) => drawStats((await renderOutput(r)).pdf)));
-  const medianMs = await time(async () => { for (const r of requests) await renderOutput(r); }, runs);
-  const baselineMs = await time(async () => { for (const s of samples) await bareDocument(s); }, runs);
+  const medianMs = await time(async () => {
+    for (const r of requests) await renderOutput(r);
+  }, runs);
+  const baselineMs = await time(async () => {
+    for (const s of samples) await bareDocument(s);
+  }, runs);
   return { name, medianMs, baselineMs, ratio: Math.round((medianMs / baselineMs) * 100) / 100 };
 }
 

@@ -51,7 +51,9 @@ try {
   console.log(`\nWrote bench-results.json (${machine})`);
   const failures = [
     ...pdf.filter((p) => p.ratio > 2).map((p) => `${p.name}: ${p.ratio}× its baseline (target ≤ 2×)`),
-    ...load.filter((l) => l.ratio < 0.4 || l.errors > 0).map((l) => `${l.route}: ${Math.round(l.ratio * 100)} % of bare, ${l.errors} errors (target ≥ 40 %, 0 errors)`),
+    ...load
+      .filter((l) => l.ratio < 0.4 || l.errors > 0)
+      .map((l) => `${l.route}: ${Math.round(l.ratio * 100)} % of bare, ${l.errors} errors (target ≥ 40 %, 0 errors)`),
     ...(queries.at10 !== queries.at1000 ? [`queries differ: ${queries.at10} at 10 circuits, ${queries.at1000} at 1000`] : []),
   ];
   const chart100 = pdf.find((p) => p.name === 'chart-100')?.medianMs ?? 0;

@@ -39,7 +39,12 @@ function ensureNodeModules() {
 
 function hasMariadb() {
   if (existsSync('/usr/sbin/mariadbd')) return true;
-  try { execFileSync('which', ['mariadbd'], { stdio: 'ignore' }); return true; } catch { return false; }
+  try {
+    execFileSync('which', ['mariadbd'], { stdio: 'ignore' });
+    return true;
+  } catch {
+    return false;
+  }
 }
 
 function ensureDebianPackages() {

@@ -68,7 +68,13 @@ async function waitForQuery(port: number, timeoutMs: number): Promise<void> {
  * a back-off (0.5 s, 1 s, 2 s … at most 30 s; back to 0.5 s after a minute up), and each restart is logged.
  * The app's pool makes new connections, so it serves again without a restart of its own.
  */
-export async function startPrivateMariadb(opts: { dataDir: string; port?: number; dbName?: string; durable?: boolean; supervise?: boolean }): Promise<PrivateMariadb> {
+export async function startPrivateMariadb(opts: {
+  dataDir: string;
+  port?: number;
+  dbName?: string;
+  durable?: boolean;
+  supervise?: boolean;
+}): Promise<PrivateMariadb> {
   const dataDir = opts.dataDir;
   const dbName = opts.dbName ?? 'waymark';
   const port = opts.port ?? (await freePort());
@@ -80,10 +86,11 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
 
   if (!existsSync(join(db, 'mysql'))) {
     mkdirSync(db, { recursive: true });
-    execFileSync(binary('mariadb-install-db'), [
-      '--no-defaults', `--datadir=${db}`, '--user=root',
-      '--auth-root-authentication-method=normal', '--skip-test-db',
-    ], { stdio: 'ignore' });
+    execFileSync(
+      binary('mariadb-install-db'),
+      ['--no-defaults', `--datadir=${db}`, '--user=root', '--auth-root-authentication-method=normal', '--skip-test-db'],
+      { stdio: 'ignore' },
+    );
   }
 
   let pid = 0;
@@ -102,17 +109,35 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
     // A server left over from a killed run would hold the data dir: stop it first.
     if (existsSync(pidFile)) {
       const old = Number(readFileSync(pidFile, 'utf8').trim());
-      try { process.kill(old, 'SIGTERM'); await new Promise((r) => setTimeout(r, 1500)); } catch { /* gone */ }
+      try {
+        process.kill(old, 'SIGTERM');
+        await new Promise((r) => setTimeout(r, 1500));
+      } catch {
+        /* gone */
+      }
     }
-    const child = spawn(binary('mariadbd'), [
-      '--no-defaults', `--datadir=${db}`, `--socket=${socket}`, `--pid-file=${pidFile}`,
-      `--port=${port}`, '--bind-address=127.0.0.1', '--user=root',
-      '--character-set-server=utf8mb4', '--collation-server=utf8mb4_unicode_ci',
-      `--log-error=${logFile}`, '--skip-log-bin', '--innodb-buffer-pool-size=64M',
-      // Full durability (flush the log at every commit) unless told otherwise: a power cut must not lose a save the
-      // app has acknowledged. Only the throw-away test and benchmark databases trade that for speed.
-      `--innodb-flush-log-at-trx-commit=${opts.durable === false ? 2 : 1}`, '--max-connections=500',
-    ], { detached: true, stdio: 'ignore' });
+    const child = spawn(
+      binary('mariadbd'),
+      [
+        '--no-defaults',
+        `--datadir=${db}`,
+        `--socket=${socket}`,
+        `--pid-file=${pidFile}`,
+        `--port=${port}`,
+        '--bind-address=127.0.0.1',
+        '--user=root',
+        '--character-set-server=utf8mb4',
+        '--collation-server=utf8mb4_unicode_ci',
+        `--log-error=${logFile}`,
+        '--skip-log-bin',
+        '--innodb-buffer-pool-size=64M',
+        // Full durability (flush the log at every commit) unless told otherwise: a power cut must not lose a save the
+        // app has acknowledged. Only the throw-away test and benchmark databases trade that for speed.
+        `--innodb-flush-log-at-trx-commit=${opts.durable === false ? 2 : 1}`,
+        '--max-connections=500',
+      ],
+      { detached: true, stdio: 'ignore' },
+    );
     child.unref();
     pid = child.pid ?? 0;
     child.on('exit', (code, signal) => {
@@ -134,16 +159,31 @@ export async function startPrivateMariadb(opts: { dataDir: string; port?: number
     if (!pid) return;
     const p = pid;
     pid = 0;
-    try { process.kill(p, 'SIGTERM'); } catch { return; }
+    try {
+      process.kill(p, 'SIGTERM');
+    } catch {
+      return;
+    }
     const deadline = Date.now() + 15_000;
     while (Date.now() < deadline) {
-      try { process.kill(p, 0); } catch { return; }
+      try {
+        process.kill(p, 0);
+      } catch {
+        return;
+      }
       await new Promise((r) => setTimeout(r, 100));
     }
-    try { process.kill(p, 'SIGKILL'); } catch { /* already gone */ }
+    try {
+      process.kill(p, 'SIGKILL');
+    } catch {
+      /* already gone */
+    }
   };
 
-  const startAgain = () => { wanted = true; return start(); };
+  const startAgain = () => {
+    wanted = true;
+    return start();
+  };
   return { url: `mysql://root@127.0.0.1:${port}/${dbName}`, port, socket, dataDir, stop, start: startAgain, pid: () => pid };
 }
 

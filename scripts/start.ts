@@ -73,7 +73,12 @@ try {
   }
 
   const config = configFromEnv(
-    { ...process.env, DATABASE_URL: databaseUrl, SESSION_SECRET: sessionSecret(), ...(capture ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(capture.port) } : {}) },
+    {
+      ...process.env,
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: sessionSecret(),
+      ...(capture ? { SMTP_HOST: '127.0.0.1', SMTP_PORT: String(capture.port) } : {}),
+    },
     { clientDir: join(root, 'dist'), devMail: useCapture },
   );
   server = await startServer(config);

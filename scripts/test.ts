@@ -29,12 +29,17 @@ const cleanup = async () => {
   await mariadb?.stop().catch(() => {});
   removeDir(dataDir);
 };
-for (const sig of ['SIGINT', 'SIGTERM'] as const) process.on(sig, async () => { await cleanup(); process.exit(130); });
+for (const sig of ['SIGINT', 'SIGTERM'] as const)
+  process.on(sig, async () => {
+    await cleanup();
+    process.exit(130);
+  });
 
 try {
   if (!focused) {
     // Errors only: the warnings (each `any` left in tests) are for `npm run lint`, and do not fail.
     if (!step('lint', bin('eslint'), ['.', '--quiet'])) throw new Error('lint failed');
+    if (!step('format', bin('prettier'), ['--check', '--log-level', 'warn', '.'])) throw new Error('format check failed: run `npm run format`');
     if (!step('type check (client)', bin('vue-tsc'), ['--noEmit', '-p', 'tsconfig.app.json'])) throw new Error('type check failed');
     if (!step('type check (server, shared, tests)', bin('tsc'), ['--noEmit', '-p', 'tsconfig.node.json'])) throw new Error('type check failed');
   }

@@ -14,28 +14,33 @@ import { dynamicCompression } from './http/compression.js';
 import { serveClient } from './http/static.js';
 import './http/context.js';
 
-export interface BuiltApp { app: Express; close(): Promise<void> }
+export interface BuiltApp {
+  app: Express;
+  close(): Promise<void>;
+}
 
 export function createApp(ctx: AppContext): BuiltApp {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', ctx.config.trustProxy);
-  app.use(helmet({
-    contentSecurityPolicy: {
-      directives: {
-        'img-src': ["'self'", 'data:', 'blob:'],
-        'frame-src': ["'self'", 'blob:'],
-        'object-src': ["'self'", 'blob:'],
-        'upgrade-insecure-requests': null,
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          'img-src': ["'self'", 'data:', 'blob:'],
+          'frame-src': ["'self'", 'blob:'],
+          'object-src': ["'self'", 'blob:'],
+          'upgrade-insecure-requests': null,
+        },
       },
-    },
-  }));
+    }),
+  );
   app.use(express.json({ limit: '5mb' }));
   const sessions = sessionMiddleware(ctx.database.pool, ctx.config.sessionSecret);
   // Reading a board page needs no session: skipping it there roughly doubles what the busiest
   // public route can serve. Every other API request, and every write, goes through the session.
   const withSession: express.RequestHandler = (req, res, next) =>
-    (req.method === 'GET' && req.path.startsWith('/public/') ? next() : sessions.middleware(req, res, next));
+    req.method === 'GET' && req.path.startsWith('/public/') ? next() : sessions.middleware(req, res, next);
   app.use('/api', dynamicCompression(), cookieParser(), withSession, loadUser(ctx.db), requireCsrf(ctx.config.sessionSecret), apiRoutes(ctx));
   app.use('/api', (_req, _res, next) => next(notFound('No such API route')));
 

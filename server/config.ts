@@ -33,8 +33,7 @@ export const isProduction = (env: NodeJS.ProcessEnv) => env.NODE_ENV === 'produc
  */
 export function checkProductionMail(env: NodeJS.ProcessEnv): void {
   if (isProduction(env) && !env.SMTP_HOST) {
-    throw new Error('NODE_ENV=production needs a mail relay: set SMTP_HOST (and SMTP_PORT, MAIL_FROM). '
-      + 'Waymark does not capture mail in production.');
+    throw new Error('NODE_ENV=production needs a mail relay: set SMTP_HOST (and SMTP_PORT, MAIL_FROM). ' + 'Waymark does not capture mail in production.');
   }
 }
 
@@ -63,7 +62,7 @@ export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerCo
     },
     // Never in production, whatever else is set.
     devMail: !isProduction(env) && (env.WAYMARK_DEV_MAIL ?? (defaults.devMail ? 'on' : 'off')) === 'on',
-    clientDir: env.WAYMARK_CLIENT_DIR ? resolve(env.WAYMARK_CLIENT_DIR) : defaults.clientDir ?? null,
+    clientDir: env.WAYMARK_CLIENT_DIR ? resolve(env.WAYMARK_CLIENT_DIR) : (defaults.clientDir ?? null),
     rateLimits: {
       loginPerAccount: Number(env.RATE_LOGIN_ACCOUNT ?? defaults.rateLimits?.loginPerAccount ?? 10),
       loginPerIp: Number(env.RATE_LOGIN_IP ?? defaults.rateLimits?.loginPerIp ?? 50),

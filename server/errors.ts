@@ -29,15 +29,30 @@ export const conflict = (why: string, fields?: Record<string, string>) => new Ap
  * 409 `stale`: `what` was saved by someone else since this save's `baseRevision` was read. The body carries
  * the current `revision` (as a board's stale save does), so the client can reload instead of overwriting.
  */
-export const stale = (what: string, revision: number) => new AppError(409, 'stale',
-  `Someone saved this ${what} since you opened it; it is now at revision ${revision}. Reload it to see their changes.`,
-  { baseRevision: `The ${what} is at revision ${revision}` }, undefined, { revision });
+export const stale = (what: string, revision: number) =>
+  new AppError(
+    409,
+    'stale',
+    `Someone saved this ${what} since you opened it; it is now at revision ${revision}. Reload it to see their changes.`,
+    { baseRevision: `The ${what} is at revision ${revision}` },
+    undefined,
+    { revision },
+  );
 export const invalid = (why: string, fields?: Record<string, string>) => new AppError(400, 'invalid', why, fields);
 export const tooMany = (why: string, retryAfterSeconds: number) =>
   new AppError(429, 'rate_limited', why, undefined, { 'Retry-After': String(retryAfterSeconds) });
 export const unavailable = (why = 'The database is unavailable; try again in a moment') => new AppError(503, 'unavailable', why);
 
-const DB_DOWN_CODES = new Set(['ECONNREFUSED', 'PROTOCOL_CONNECTION_LOST', 'ETIMEDOUT', 'ECONNRESET', 'EPIPE', 'ER_CON_COUNT_ERROR', 'PROTOCOL_ENQUEUE_AFTER_FATAL_ERROR', 'ER_SERVER_SHUTDOWN']);
+const DB_DOWN_CODES = new Set([
+  'ECONNREFUSED',
+  'PROTOCOL_CONNECTION_LOST',
+  'ETIMEDOUT',
+  'ECONNRESET',
+  'EPIPE',
+  'ER_CON_COUNT_ERROR',
+  'PROTOCOL_ENQUEUE_AFTER_FATAL_ERROR',
+  'ER_SERVER_SHUTDOWN',
+]);
 
 /** True when an error means the database cannot be reached (so the answer is 503, not 500). */
 export function isDatabaseDown(err: unknown): boolean {
@@ -61,13 +76,22 @@ export const errorHandler: ErrorRequestHandler = (err, _req, res, next) => {
   }
   // body-parser: malformed JSON or an oversized body are the client's fault.
   if (err && typeof err.status === 'number' && err.status >= 400 && err.status < 500) {
-    const message = err.type === 'entity.parse.failed' ? 'The request body is not valid JSON'
-      : err.type === 'entity.too.large' ? 'The request body is too large' : (err.expose ? err.message : 'Bad request');
+    const message =
+      err.type === 'entity.parse.failed'
+        ? 'The request body is not valid JSON'
+        : err.type === 'entity.too.large'
+          ? 'The request body is too large'
+          : err.expose
+            ? err.message
+            : 'Bad request';
     res.status(err.status).json({ error: { code: 'invalid', message, fields: err.type === 'entity.parse.failed' ? { body: 'not valid JSON' } : undefined } });
     return;
   }
   if (isDatabaseDown(err)) {
-    res.set('Retry-After', '5').status(503).json({ error: { code: 'unavailable', message: 'The database is unavailable; try again in a moment' } });
+    res
+      .set('Retry-After', '5')
+      .status(503)
+      .json({ error: { code: 'unavailable', message: 'The database is unavailable; try again in a moment' } });
     return;
   }
   console.error('Unhandled error', err);

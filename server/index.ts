@@ -10,5 +10,8 @@ const config = configFromEnv(process.env, { clientDir: join(import.meta.dirname,
 const running = await startServer(config);
 console.log(`Waymark listening on ${config.publicBaseUrl} (port ${running.port})`);
 for (const sig of ['SIGINT', 'SIGTERM'] as const) {
-  process.on(sig, async () => { await running.stop(); process.exit(0); });
+  process.on(sig, async () => {
+    await running.stop();
+    process.exit(0);
+  });
 }

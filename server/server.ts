@@ -5,7 +5,11 @@ import { openDatabase } from './db/client.js';
 import { smtpMailer } from './mail/mailer.js';
 import type { AppContext } from './context.js';
 
-export interface RunningServer { port: number; ctx: AppContext; stop(): Promise<void> }
+export interface RunningServer {
+  port: number;
+  ctx: AppContext;
+  stop(): Promise<void>;
+}
 
 /** Opens the database, builds the app and listens on `config.port` (0 picks a free port). */
 export async function startServer(config: ServerConfig): Promise<RunningServer> {

@@ -12,4 +12,7 @@ installRouteGuards(router, pinia);
 const app = createApp(App).use(pinia).use(router);
 // Mount once the first route is resolved (the sign-in check may take a moment), so the page
 // shows index.html's loading line instead of a blank screen meanwhile.
-void router.isReady().catch(() => undefined).then(() => app.mount('#app'));
+void router
+  .isReady()
+  .catch(() => undefined)
+  .then(() => app.mount('#app'));

@@ -16,8 +16,13 @@ export function loadUser(db: Db): RequestHandler {
     if (!userId) return next();
     const [row] = await db
       .select({
-        id: users.id, email: users.email, name: users.name, role: users.role, disabled: users.disabled,
-        organisationId: users.organisationId, organisationName: organisations.name,
+        id: users.id,
+        email: users.email,
+        name: users.name,
+        role: users.role,
+        disabled: users.disabled,
+        organisationId: users.organisationId,
+        organisationName: organisations.name,
       })
       .from(users)
       .innerJoin(organisations, eq(organisations.id, users.organisationId))

@@ -30,8 +30,11 @@ export async function insertPasswordReset(db: Db, r: { userId: number; tokenHash
 export async function lockPasswordReset(db: Db, tokenHash: string) {
   const [row] = await db
     .select({
-      id: passwordResets.id, userId: passwordResets.userId, expiresAt: passwordResets.expiresAt,
-      usedAt: passwordResets.usedAt, userDisabled: users.disabled,
+      id: passwordResets.id,
+      userId: passwordResets.userId,
+      expiresAt: passwordResets.expiresAt,
+      usedAt: passwordResets.usedAt,
+      userDisabled: users.disabled,
     })
     .from(passwordResets)
     .innerJoin(users, eq(users.id, passwordResets.userId))
@@ -43,7 +46,10 @@ export async function lockPasswordReset(db: Db, tokenHash: string) {
 
 /** Marks every unused reset link of the user as used: after a reset, older links must not work either. */
 export async function retirePasswordResets(db: Db, userId: number, now: Date): Promise<void> {
-  await db.update(passwordResets).set({ usedAt: now }).where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
+  await db
+    .update(passwordResets)
+    .set({ usedAt: now })
+    .where(and(eq(passwordResets.userId, userId), isNull(passwordResets.usedAt)));
 }
 
 /**
@@ -52,7 +58,9 @@ export async function retirePasswordResets(db: Db, userId: number, now: Date): P
  * plain read and deleted by key, so the scan never locks the other users' session rows.
  */
 export async function deleteSessionsOfUser(db: Db, userId: number, exceptSessionId: string): Promise<number> {
-  const rows = await db.select({ id: sessions.sessionId }).from(sessions)
+  const rows = await db
+    .select({ id: sessions.sessionId })
+    .from(sessions)
     .where(sql`CAST(JSON_VALUE(${sessions.data}, '$.userId') AS UNSIGNED) = ${userId}`);
   const ids = rows.map((r) => r.id).filter((id) => id !== exceptSessionId);
   if (ids.length === 0) return 0;

@@ -11,9 +11,7 @@ import { AppError, invalid } from '../errors.js';
 import { deliver } from '../mail/mailer.js';
 import { passwordResetMessage } from '../mail/messages.js';
 import { hashPassword, hashToken, newLinkToken } from './passwords.js';
-import {
-  deleteSessionsOfUser, findUserByEmail, insertPasswordReset, lockPasswordReset, retirePasswordResets, setPasswordHash,
-} from './repository.js';
+import { deleteSessionsOfUser, findUserByEmail, insertPasswordReset, lockPasswordReset, retirePasswordResets, setPasswordHash } from './repository.js';
 
 /** One hour, as the reset e-mail says. */
 export const RESET_LIFETIME_MS = 60 * 60 * 1000;
@@ -40,9 +38,10 @@ export function requestPasswordReset(ctx: AppContext, email: string, now = new D
   });
 }
 
-const linkNotValid = () => invalid('This reset link is not valid any more: ask for a new one', {
-  token: 'Unknown, already used or expired',
-});
+const linkNotValid = () =>
+  invalid('This reset link is not valid any more: ask for a new one', {
+    token: 'Unknown, already used or expired',
+  });
 
 /** Sets the new password from a link; the session making the request (if any) stays signed in. */
 export async function resetPassword(db: Db, input: ResetPasswordInput, currentSessionId: string, now = new Date()): Promise<void> {

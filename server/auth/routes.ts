@@ -22,8 +22,14 @@ function attemptLimiters(ctx: AppContext, what: string) {
   // Counted per account AND address: a stranger's wrong guesses from elsewhere can never lock the real owner out,
   // while one address guessing at one account is still stopped (and the per-address limit bounds guessing across accounts).
   const perAccount = rateLimit({
-    windowMs, limit: ctx.config.rateLimits.loginPerAccount, standardHeaders: 'draft-7', legacyHeaders: false,
-    keyGenerator: (req) => `account:${String(req.body?.email ?? '').trim().toLowerCase()}|${ipKeyGenerator(req.ip ?? '')}`,
+    windowMs,
+    limit: ctx.config.rateLimits.loginPerAccount,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    keyGenerator: (req) =>
+      `account:${String(req.body?.email ?? '')
+        .trim()
+        .toLowerCase()}|${ipKeyGenerator(req.ip ?? '')}`,
     handler,
   });
   return [perIp, perAccount];

@@ -11,14 +11,17 @@ export function sessionMiddleware(pool: Pool, secret: string): { middleware: Req
   // express-mysql-session's types describe a different express-session module shape than the one installed.
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- see above
   const MySQLStore = MySQLStoreFactory(session as any);
-  const store = new MySQLStore({
-    createDatabaseTable: false, // the migration creates it
-    clearExpired: true,
-    checkExpirationInterval: 15 * 60 * 1000,
-    expiration: 14 * 24 * 3600 * 1000,
-    schema: { tableName: 'sessions', columnNames: { session_id: 'session_id', expires: 'expires', data: 'data' } },
-    // eslint-disable-next-line @typescript-eslint/no-explicit-any -- its types want mysql (v1)'s pool; mysql2's promise pool works at run time
-  }, pool as any);
+  const store = new MySQLStore(
+    {
+      createDatabaseTable: false, // the migration creates it
+      clearExpired: true,
+      checkExpirationInterval: 15 * 60 * 1000,
+      expiration: 14 * 24 * 3600 * 1000,
+      schema: { tableName: 'sessions', columnNames: { session_id: 'session_id', expires: 'expires', data: 'data' } },
+      // eslint-disable-next-line @typescript-eslint/no-explicit-any -- its types want mysql (v1)'s pool; mysql2's promise pool works at run time
+    },
+    pool as any,
+  );
   const middleware = session({
     name: 'waymark.sid',
     secret,

@@ -24,12 +24,24 @@ async function sendSignupMail(ctx: AppContext, input: SignupInput, now: Date): P
   const existing = await findUserByEmail(ctx.db, input.email);
   if (existing) {
     const link = `${ctx.config.publicBaseUrl}/forgot`;
-    await deliver(ctx.mailer, existing.email, existing.organisationId, alreadyRegisteredMessage({ name: existing.name, email: existing.email, link, because: 'signup' }));
+    await deliver(
+      ctx.mailer,
+      existing.email,
+      existing.organisationId,
+      alreadyRegisteredMessage({ name: existing.name, email: existing.email, link, because: 'signup' }),
+    );
     return;
   }
   const token = newLinkToken();
   const expiresAt = new Date(now.getTime() + SIGNUP_LIFETIME_MS);
-  await insertSignupRequest(ctx.db, { email: input.email, name: input.name, organisationName: input.organisation, passwordHash, tokenHash: token.hash, expiresAt });
+  await insertSignupRequest(ctx.db, {
+    email: input.email,
+    name: input.name,
+    organisationName: input.organisation,
+    passwordHash,
+    tokenHash: token.hash,
+    expiresAt,
+  });
   const link = `${ctx.config.publicBaseUrl}/signup/${token.raw}`;
   // Mail for no organisation yet: the capture page shows it to nobody, so with no relay the link goes to the server's log.
   if (ctx.config.devMail) console.log(`No mail relay: the sign-up link for ${input.email} is ${link}`);

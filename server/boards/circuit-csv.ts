@@ -7,7 +7,11 @@ import { circuitSchema, type Circuit } from '../../shared/schemas/schedule.js';
 import { CsvSyntaxError, formatCsv, guardFormula, parseCsv, unguardFormula } from './csv.js';
 
 type CellKind = 'text' | 'number' | 'boolean' | 'list' | 'choice';
-interface Column { name: string; path: string[]; kind: CellKind }
+interface Column {
+  name: string;
+  path: string[];
+  kind: CellKind;
+}
 
 const col = (name: string, path: string, kind: CellKind): Column => ({ name, path: path.split('.'), kind });
 
@@ -16,21 +20,43 @@ const col = (name: string, path: string, kind: CellKind): Column => ({ name, pat
  * written before a column existed (e.g. the installation conditions) still import and keep those values.
  */
 export const CIRCUIT_CSV_COLUMNS: Column[] = [
-  col('id', 'id', 'choice'), col('way', 'way', 'number'), col('phase', 'phase', 'choice'), col('device_id', 'deviceId', 'choice'),
-  col('label', 'label', 'text'), col('description', 'description', 'text'), col('kind', 'kind', 'choice'),
-  col('socket_outlets', 'socketOutlets', 'boolean'), col('concealed_in_wall', 'concealedInWall', 'boolean'),
-  col('cable_type', 'cable.type', 'choice'), col('live_csa', 'cable.liveCsa', 'number'), col('cpc_csa', 'cable.cpcCsa', 'number'),
-  col('reference_method', 'cable.referenceMethod', 'choice'), col('length_m', 'cable.lengthM', 'number'),
-  col('diameter_mm', 'cable.diameterMm', 'number'), col('ambient_c', 'cable.ambientC', 'number'), col('grouped_with', 'cable.groupedWith', 'number'),
-  col('insulated_length_mm', 'cable.insulatedLengthMm', 'number'), col('points', 'points', 'number'), col('locations', 'locations', 'list'),
-  col('previous_reference', 'previousReference', 'text'), col('measured_zs', 'measuredZs', 'number'),
-  col('zs_at_ambient', 'zsAtAmbient', 'boolean'), col('legs', 'legs', 'number'), col('notes', 'notes', 'text'),
-  col('notes_public', 'notesPublic', 'boolean'), col('feeds_board_id', 'feedsBoardId', 'number'),
+  col('id', 'id', 'choice'),
+  col('way', 'way', 'number'),
+  col('phase', 'phase', 'choice'),
+  col('device_id', 'deviceId', 'choice'),
+  col('label', 'label', 'text'),
+  col('description', 'description', 'text'),
+  col('kind', 'kind', 'choice'),
+  col('socket_outlets', 'socketOutlets', 'boolean'),
+  col('concealed_in_wall', 'concealedInWall', 'boolean'),
+  col('cable_type', 'cable.type', 'choice'),
+  col('live_csa', 'cable.liveCsa', 'number'),
+  col('cpc_csa', 'cable.cpcCsa', 'number'),
+  col('reference_method', 'cable.referenceMethod', 'choice'),
+  col('length_m', 'cable.lengthM', 'number'),
+  col('diameter_mm', 'cable.diameterMm', 'number'),
+  col('ambient_c', 'cable.ambientC', 'number'),
+  col('grouped_with', 'cable.groupedWith', 'number'),
+  col('insulated_length_mm', 'cable.insulatedLengthMm', 'number'),
+  col('points', 'points', 'number'),
+  col('locations', 'locations', 'list'),
+  col('previous_reference', 'previousReference', 'text'),
+  col('measured_zs', 'measuredZs', 'number'),
+  col('zs_at_ambient', 'zsAtAmbient', 'boolean'),
+  col('legs', 'legs', 'number'),
+  col('notes', 'notes', 'text'),
+  col('notes_public', 'notesPublic', 'boolean'),
+  col('feeds_board_id', 'feedsBoardId', 'number'),
   // Test readings on the new circuit (Zs stays in measured_zs): MΩ for insulation, Ω for the rest.
-  col('ir_test_voltage', 'readings.insulation.testVoltage', 'number'), col('ir_line_line', 'readings.insulation.lineLine', 'number'),
-  col('ir_line_earth', 'readings.insulation.lineEarth', 'number'), col('ir_neutral_earth', 'readings.insulation.neutralEarth', 'number'),
-  col('r1_plus_r2', 'readings.r1PlusR2', 'number'), col('r2', 'readings.r2', 'number'),
-  col('ring_r1', 'readings.ring.r1', 'number'), col('ring_rn', 'readings.ring.rn', 'number'), col('ring_r2', 'readings.ring.r2', 'number'),
+  col('ir_test_voltage', 'readings.insulation.testVoltage', 'number'),
+  col('ir_line_line', 'readings.insulation.lineLine', 'number'),
+  col('ir_line_earth', 'readings.insulation.lineEarth', 'number'),
+  col('ir_neutral_earth', 'readings.insulation.neutralEarth', 'number'),
+  col('r1_plus_r2', 'readings.r1PlusR2', 'number'),
+  col('r2', 'readings.r2', 'number'),
+  col('ring_r1', 'readings.ring.r1', 'number'),
+  col('ring_rn', 'readings.ring.rn', 'number'),
+  col('ring_r2', 'readings.ring.r2', 'number'),
   col('polarity', 'readings.polarity', 'choice'),
 ];
 const READING_COLUMNS = CIRCUIT_CSV_COLUMNS.filter((c) => c.path[0] === 'readings');
@@ -77,10 +103,17 @@ function valueOf(c: Column, raw: string): unknown {
       const n = cell.replace(/^(\d+),(\d+)$/, '$1.$2');
       return /^-?\d+(\.\d+)?$/.test(n) ? Number(n) : cell;
     }
-    case 'boolean': return TRUE.has(cell.toLowerCase()) ? true : FALSE.has(cell.toLowerCase()) ? false : cell;
-    case 'list': return cell.split(LOCATION_SEPARATOR).map((s) => unguardFormula(s.trim())).filter(Boolean);
-    case 'text': return unguardFormula(cell);
-    default: return cell;
+    case 'boolean':
+      return TRUE.has(cell.toLowerCase()) ? true : FALSE.has(cell.toLowerCase()) ? false : cell;
+    case 'list':
+      return cell
+        .split(LOCATION_SEPARATOR)
+        .map((s) => unguardFormula(s.trim()))
+        .filter(Boolean);
+    case 'text':
+      return unguardFormula(cell);
+    default:
+      return cell;
   }
 }
 
@@ -110,14 +143,18 @@ function newCircuitId(way: unknown, phase: unknown, isTaken: (id: string) => boo
 }
 
 /** The current circuits, looked up by id and by way and phase, and the ids already given out. */
-interface Matching { byId: Map<string, Circuit>; byWay: Map<string, Circuit>; taken: Set<string> }
+interface Matching {
+  byId: Map<string, Circuit>;
+  byWay: Map<string, Circuit>;
+  taken: Set<string>;
+}
 
 /** One data row as a checked circuit, or its faults keyed by column name. */
 function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Circuit } | { faults: Record<string, string> } {
   const input: Loose = {};
   columns.forEach((c, i) => setPath(input, c.path, valueOf(c, cells[i])));
   const match = (typeof input.id === 'string' ? m.byId.get(input.id) : undefined) ?? m.byWay.get(`${input.way}/${input.phase ?? ''}`);
-  const merged: Loose = match ? structuredClone(match) as unknown as Loose : {};
+  const merged: Loose = match ? (structuredClone(match) as unknown as Loose) : {};
   for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
   // A circuit with no reading in the file or before keeps no readings record, as the editor leaves it.
   if (READING_COLUMNS.every((c) => getPath(merged, c.path) == null) && match?.readings == null) delete merged.readings;
@@ -143,7 +180,9 @@ function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Ci
  */
 export function circuitsFromCsv(text: string, current: Circuit[]): CsvResult {
   let records: string[][];
-  try { records = parseCsv(text); } catch (err) {
+  try {
+    records = parseCsv(text);
+  } catch (err) {
     if (err instanceof CsvSyntaxError) return { ok: false, fields: { [`rows.${err.row}`]: err.message } };
     throw err;
   }
@@ -157,11 +196,20 @@ export function circuitsFromCsv(text: string, current: Circuit[]): CsvResult {
   records.forEach((cells, index) => {
     const row = index + 1;
     if (index === 0 || cells.every((c) => c.trim() === '')) return;
-    if (cells.length !== columns.length) { fields[`rows.${row}`] = `Has ${cells.length} cells; the header has ${columns.length}`; return; }
+    if (cells.length !== columns.length) {
+      fields[`rows.${row}`] = `Has ${cells.length} cells; the header has ${columns.length}`;
+      return;
+    }
     const result = readRow(columns, cells, m);
-    if ('faults' in result) { for (const [column, message] of Object.entries(result.faults)) fields[`rows.${row}.${column}`] = message; return; }
+    if ('faults' in result) {
+      for (const [column, message] of Object.entries(result.faults)) fields[`rows.${row}.${column}`] = message;
+      return;
+    }
     const seenAt = firstRowOfId.get(result.circuit.id);
-    if (seenAt) { fields[`rows.${row}.id`] = `The same circuit as row ${seenAt}`; return; }
+    if (seenAt) {
+      fields[`rows.${row}.id`] = `The same circuit as row ${seenAt}`;
+      return;
+    }
     firstRowOfId.set(result.circuit.id, row);
     m.taken.add(result.circuit.id);
     circuits.push(result.circuit);

@@ -8,7 +8,10 @@ import { stringify } from 'csv-stringify/sync';
 
 /** A cell that cannot be read as CSV, with the spreadsheet row it is on (the first line is row 1). */
 export class CsvSyntaxError extends Error {
-  constructor(readonly row: number, message: string) {
+  constructor(
+    readonly row: number,
+    message: string,
+  ) {
     super(message);
   }
 }

@@ -38,7 +38,12 @@ export const NOT_A_BOARD_FILE = 'This is not a Waymark board file: export one fr
 
 /** A safe file name from the board code and name: "WM-7K3QX2-main-consumer-unit". */
 export function fileBaseName(code: string, name: string): string {
-  const slug = name.toLowerCase().normalize('NFKD').replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 60);
+  const slug = name
+    .toLowerCase()
+    .normalize('NFKD')
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60);
   return slug ? `${code}-${slug}` : code;
 }
 
@@ -53,7 +58,7 @@ export async function exportBoardFile(db: Db, organisationId: number, id: number
 export async function importBoardFile(db: Db, actor: Actor, input: BoardImport): Promise<number> {
   const wrapped = 'file' in input;
   const file = wrapped ? input.file : input;
-  const siteId = wrapped ? input.siteId ?? null : null;
+  const siteId = wrapped ? (input.siteId ?? null) : null;
   await checkSiteField(db, actor.organisationId, siteId);
   const schedule = { board: file.board, devices: file.devices, circuits: file.circuits, ...(file.survey ? { survey: file.survey } : {}) };
   await checkFeedsBoardIds(db, actor.organisationId, schedule, null, (i) => `${wrapped ? 'file.' : ''}circuits.${i}.feedsBoardId`);

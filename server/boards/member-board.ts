@@ -22,8 +22,14 @@ export interface MemberBoardRow {
 export async function findMemberBoard(db: Db, organisationId: number, boardId: number): Promise<MemberBoardRow | null> {
   const [row] = await db
     .select({
-      id: boards.id, organisationId: boards.organisationId, name: boards.name, code: boards.code,
-      publicToken: boards.publicToken, publicEnabled: boards.publicEnabled, revision: boards.revision, schedule: boards.schedule,
+      id: boards.id,
+      organisationId: boards.organisationId,
+      name: boards.name,
+      code: boards.code,
+      publicToken: boards.publicToken,
+      publicEnabled: boards.publicEnabled,
+      revision: boards.revision,
+      schedule: boards.schedule,
     })
     .from(boards)
     .where(and(eq(boards.id, boardId), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))

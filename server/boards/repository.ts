@@ -27,32 +27,62 @@ export interface BoardScheduleRow {
 
 /** The board and its whole schedule in one query (not deleted). */
 export async function findBoardSchedule(db: Db, organisationId: number, id: number): Promise<BoardScheduleRow | null> {
-  const [row] = await db.select({
-    id: boards.id, code: boards.code, siteId: boards.siteId, revision: boards.revision, updatedAt: boards.updatedAt, schedule: boards.schedule,
-    publicToken: boards.publicToken, publicEnabled: boards.publicEnabled,
-  }).from(boards).where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), isNull(boards.deletedAt))).limit(1);
+  const [row] = await db
+    .select({
+      id: boards.id,
+      code: boards.code,
+      siteId: boards.siteId,
+      revision: boards.revision,
+      updatedAt: boards.updatedAt,
+      schedule: boards.schedule,
+      publicToken: boards.publicToken,
+      publicEnabled: boards.publicEnabled,
+    })
+    .from(boards)
+    .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
+    .limit(1);
   return row ? { ...row, updatedAt: iso(row.updatedAt), schedule: readStoredSchedule(row.schedule) } : null;
 }
 
 /** Id, revision and deletion time: enough for the writes that do not touch the schedule. */
 export async function findBoardState(db: Db, organisationId: number, id: number) {
-  const [row] = await db.select({ id: boards.id, revision: boards.revision, deletedAt: boards.deletedAt, code: boards.code })
-    .from(boards).where(and(eq(boards.id, id), eq(boards.organisationId, organisationId))).limit(1);
+  const [row] = await db
+    .select({ id: boards.id, revision: boards.revision, deletedAt: boards.deletedAt, code: boards.code })
+    .from(boards)
+    .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId)))
+    .limit(1);
   return row ?? null;
 }
 
 export async function findBoardSummary(db: Db, organisationId: number, id: number): Promise<BoardSummary | null> {
-  const [row] = await db.select({
-    id: boards.id, name: boards.name, location: boards.location, code: boards.code, publicEnabled: boards.publicEnabled,
-    publicToken: boards.publicToken, revision: boards.revision, createdAt: boards.createdAt, updatedAt: boards.updatedAt,
-    circuitCount, siteId: boards.siteId, siteReference: sites.reference, siteClientName: sites.clientName,
-  }).from(boards).leftJoin(sites, eq(sites.id, boards.siteId))
-    .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), isNull(boards.deletedAt))).limit(1);
+  const [row] = await db
+    .select({
+      id: boards.id,
+      name: boards.name,
+      location: boards.location,
+      code: boards.code,
+      publicEnabled: boards.publicEnabled,
+      publicToken: boards.publicToken,
+      revision: boards.revision,
+      createdAt: boards.createdAt,
+      updatedAt: boards.updatedAt,
+      circuitCount,
+      siteId: boards.siteId,
+      siteReference: sites.reference,
+      siteClientName: sites.clientName,
+    })
+    .from(boards)
+    .leftJoin(sites, eq(sites.id, boards.siteId))
+    .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
+    .limit(1);
   if (!row) return null;
   const { siteReference, siteClientName, ...rest } = row;
   return {
-    ...rest, publicEnabled: Boolean(rest.publicEnabled), circuitCount: Number(rest.circuitCount),
-    createdAt: iso(rest.createdAt), updatedAt: iso(rest.updatedAt),
+    ...rest,
+    publicEnabled: Boolean(rest.publicEnabled),
+    circuitCount: Number(rest.circuitCount),
+    createdAt: iso(rest.createdAt),
+    updatedAt: iso(rest.updatedAt),
     site: rest.siteId != null ? { id: rest.siteId, reference: siteReference ?? '', clientName: siteClientName ?? '' } : null,
   };
 }
@@ -72,13 +102,30 @@ function listConditions(organisationId: number, query: BoardListQuery): SQL {
 export async function listBoards(db: Db, organisationId: number, query: BoardListQuery): Promise<{ items: BoardListItem[]; total: number }> {
   const where = listConditions(organisationId, query);
   const [{ total }] = await db.select({ total: count() }).from(boards).leftJoin(sites, eq(sites.id, boards.siteId)).where(where);
-  const rows = await db.select({
-    id: boards.id, name: boards.name, location: boards.location, code: boards.code, siteId: boards.siteId,
-    siteReference: sites.reference, revision: boards.revision, updatedAt: boards.updatedAt, circuitCount, deletedAt: boards.deletedAt,
-  }).from(boards).leftJoin(sites, eq(sites.id, boards.siteId)).where(where)
-    .orderBy(desc(boards.updatedAt), desc(boards.id)).limit(query.pageSize).offset((query.page - 1) * query.pageSize);
+  const rows = await db
+    .select({
+      id: boards.id,
+      name: boards.name,
+      location: boards.location,
+      code: boards.code,
+      siteId: boards.siteId,
+      siteReference: sites.reference,
+      revision: boards.revision,
+      updatedAt: boards.updatedAt,
+      circuitCount,
+      deletedAt: boards.deletedAt,
+    })
+    .from(boards)
+    .leftJoin(sites, eq(sites.id, boards.siteId))
+    .where(where)
+    .orderBy(desc(boards.updatedAt), desc(boards.id))
+    .limit(query.pageSize)
+    .offset((query.page - 1) * query.pageSize);
   const items = rows.map((r) => ({
-    ...r, circuitCount: Number(r.circuitCount), updatedAt: iso(r.updatedAt), deletedAt: r.deletedAt ? iso(r.deletedAt) : null,
+    ...r,
+    circuitCount: Number(r.circuitCount),
+    updatedAt: iso(r.updatedAt),
+    deletedAt: r.deletedAt ? iso(r.deletedAt) : null,
   }));
   return { items, total: Number(total) };
 }
@@ -93,10 +140,20 @@ export interface NewBoard {
 }
 
 export async function insertBoard(db: Db, b: NewBoard): Promise<number> {
-  const [res] = await db.insert(boards).values({
-    organisationId: b.organisationId, siteId: b.siteId, code: b.code, publicToken: b.publicToken,
-    name: b.schedule.board.name, location: b.schedule.board.location, schedule: b.schedule, searchText: b.searchText, revision: 1,
-  }).$returningId();
+  const [res] = await db
+    .insert(boards)
+    .values({
+      organisationId: b.organisationId,
+      siteId: b.siteId,
+      code: b.code,
+      publicToken: b.publicToken,
+      name: b.schedule.board.name,
+      location: b.schedule.board.location,
+      schedule: b.schedule,
+      searchText: b.searchText,
+      revision: 1,
+    })
+    .$returningId();
   return res.id;
 }
 
@@ -104,30 +161,62 @@ export async function insertBoard(db: Db, b: NewBoard): Promise<number> {
  * Writes a new schedule only if the board is still at `baseRevision`: of two saves made from the
  * same revision exactly one matches (the row lock serialises them). Returns whether this one won.
  */
-export async function updateScheduleIfAt(db: Db, organisationId: number, id: number, baseRevision: number, schedule: Schedule, searchText: string): Promise<boolean> {
-  const [res] = await db.update(boards).set({
-    schedule, searchText, name: schedule.board.name, location: schedule.board.location,
-    revision: sql`${boards.revision} + 1`, updatedAt: new Date(),
-  }).where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), eq(boards.revision, baseRevision), isNull(boards.deletedAt)));
+export async function updateScheduleIfAt(
+  db: Db,
+  organisationId: number,
+  id: number,
+  baseRevision: number,
+  schedule: Schedule,
+  searchText: string,
+): Promise<boolean> {
+  const [res] = await db
+    .update(boards)
+    .set({
+      schedule,
+      searchText,
+      name: schedule.board.name,
+      location: schedule.board.location,
+      revision: sql`${boards.revision} + 1`,
+      updatedAt: new Date(),
+    })
+    .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), eq(boards.revision, baseRevision), isNull(boards.deletedAt)));
   return res.affectedRows === 1;
 }
 
 /** Changes columns that are not part of the schedule (site, public page, deletion). */
-export async function updateBoardColumns(db: Db, organisationId: number, id: number, set: Partial<{
-  siteId: number | null; publicEnabled: boolean; publicToken: string; deletedAt: Date | null;
-}>): Promise<void> {
-  await db.update(boards).set(set).where(and(eq(boards.id, id), eq(boards.organisationId, organisationId)));
+export async function updateBoardColumns(
+  db: Db,
+  organisationId: number,
+  id: number,
+  set: Partial<{
+    siteId: number | null;
+    publicEnabled: boolean;
+    publicToken: string;
+    deletedAt: Date | null;
+  }>,
+): Promise<void> {
+  await db
+    .update(boards)
+    .set(set)
+    .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId)));
 }
 
 /** Which of these board ids belong to the organisation (deleted ones count: they can be restored). */
 export async function existingBoardIds(db: Db, organisationId: number, ids: number[]): Promise<Set<number>> {
   if (!ids.length) return new Set();
-  const rows = await db.select({ id: boards.id }).from(boards).where(and(eq(boards.organisationId, organisationId), inArray(boards.id, ids)));
+  const rows = await db
+    .select({ id: boards.id })
+    .from(boards)
+    .where(and(eq(boards.organisationId, organisationId), inArray(boards.id, ids)));
   return new Set(rows.map((r) => r.id));
 }
 
 /** True when the site exists in the organisation. */
 export async function siteExists(db: Db, organisationId: number, siteId: number): Promise<boolean> {
-  const [row] = await db.select({ id: sites.id }).from(sites).where(and(eq(sites.id, siteId), eq(sites.organisationId, organisationId))).limit(1);
+  const [row] = await db
+    .select({ id: sites.id })
+    .from(sites)
+    .where(and(eq(sites.id, siteId), eq(sites.organisationId, organisationId)))
+    .limit(1);
   return Boolean(row);
 }

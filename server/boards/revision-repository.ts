@@ -24,19 +24,31 @@ export async function insertRevision(db: Db, r: NewRevision): Promise<void> {
 
 /** Newest first; without the snapshots, which can be large. */
 export async function listRevisions(db: Db, organisationId: number, boardId: number): Promise<RevisionListItem[]> {
-  const rows = await db.select({
-    number: boardRevisions.number, authorName: boardRevisions.authorName, createdAt: boardRevisions.createdAt, summary: boardRevisions.summary,
-  }).from(boardRevisions).innerJoin(boards, eq(boards.id, boardRevisions.boardId))
+  const rows = await db
+    .select({
+      number: boardRevisions.number,
+      authorName: boardRevisions.authorName,
+      createdAt: boardRevisions.createdAt,
+      summary: boardRevisions.summary,
+    })
+    .from(boardRevisions)
+    .innerJoin(boards, eq(boards.id, boardRevisions.boardId))
     .where(and(eq(boardRevisions.boardId, boardId), eq(boards.organisationId, organisationId)))
     .orderBy(desc(boardRevisions.number));
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }
 
 export async function findRevision(db: Db, organisationId: number, boardId: number, number: number): Promise<RevisionSnapshot | null> {
-  const [row] = await db.select({
-    number: boardRevisions.number, authorName: boardRevisions.authorName, createdAt: boardRevisions.createdAt,
-    summary: boardRevisions.summary, snapshot: boardRevisions.snapshot,
-  }).from(boardRevisions).innerJoin(boards, eq(boards.id, boardRevisions.boardId))
+  const [row] = await db
+    .select({
+      number: boardRevisions.number,
+      authorName: boardRevisions.authorName,
+      createdAt: boardRevisions.createdAt,
+      summary: boardRevisions.summary,
+      snapshot: boardRevisions.snapshot,
+    })
+    .from(boardRevisions)
+    .innerJoin(boards, eq(boards.id, boardRevisions.boardId))
     .where(and(eq(boardRevisions.boardId, boardId), eq(boardRevisions.number, number), eq(boards.organisationId, organisationId)))
     .limit(1);
   if (!row) return null;

@@ -7,7 +7,14 @@ import type { AppContext } from '../context.js';
 import type { Db } from '../db/client.js';
 import { scheduleSaveSchema } from '../../shared/schemas/schedule.js';
 import {
-  baseRevisionQuerySchema, boardCreateSchema, changeoverApplySchema, boardListQuerySchema, boardPatchSchema, boardPublicSchema, circuitCsvImportSchema, diffQuerySchema,
+  baseRevisionQuerySchema,
+  boardCreateSchema,
+  changeoverApplySchema,
+  boardListQuerySchema,
+  boardPatchSchema,
+  boardPublicSchema,
+  circuitCsvImportSchema,
+  diffQuerySchema,
 } from '../../shared/schemas/boards.js';
 import { canEdit, ownerOnly, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
@@ -123,9 +130,8 @@ function mountFiles(r: Router, db: Db): void {
   });
   r.post('/:id/circuits/import-csv', canEdit, csvBody, async (req, res) => {
     const id = idParam(req.params);
-    const { csv, baseRevision } = typeof req.body === 'string'
-      ? { csv: req.body, ...parse(baseRevisionQuerySchema, req.query) }
-      : parse(circuitCsvImportSchema, req.body);
+    const { csv, baseRevision } =
+      typeof req.body === 'string' ? { csv: req.body, ...parse(baseRevisionQuerySchema, req.query) } : parse(circuitCsvImportSchema, req.body);
     sendSave(res, await importCircuitsCsv(db, actor(req), id, csv, baseRevision));
   });
 }

@@ -52,7 +52,6 @@ export function saveSchedule(db: Db, actor: Actor, id: number, input: ScheduleSa
   return saveScheduleAt(db, actor, id, baseRevision, { board, devices, circuits, ...(survey ? { survey } : {}) });
 }
 
-
 /** `GET /api/boards/:id/check`: the rule set applied to the saved schedule, today. */
 export async function checkBoard(db: Db, organisationId: number, id: number, today = todayIso()): Promise<{ findings: Finding[] }> {
   const row = await findBoardSchedule(db, organisationId, id);

@@ -15,12 +15,17 @@ const cell = (v: Cell): string => (v == null ? '' : typeof v === 'boolean' ? (v 
 /** "3 Sockets front (RCBO B32 30 mA; leg 2 via JB1)": one new way as the plan names it. */
 function newWays(w: SurveyWay, survey: Survey): string {
   const box = new Map(survey.junctionBoxes.map((b) => [b.id, b.name]));
-  return w.targets.map((t) => {
-    const d = t.device;
-    const device = d.kind === 'rcbo' ? `RCBO ${d.curve ?? ''}${d.rating ?? '?'}${d.residualMa ? ` ${d.residualMa} mA` : ''}` : `MCB ${d.curve ?? ''}${d.rating ?? '?'}${d.rcdGroup ? ` behind ${d.rcdGroup}` : ''}`;
-    const via = t.legs.filter((l) => l.junctionBoxId).map((l) => `leg ${l.leg} via ${box.get(l.junctionBoxId!) ?? '?'}`);
-    return `${t.way}${t.phase ? ` ${t.phase}` : ''} ${t.label} (${[device, ...via].join('; ')})`;
-  }).join(' | ');
+  return w.targets
+    .map((t) => {
+      const d = t.device;
+      const device =
+        d.kind === 'rcbo'
+          ? `RCBO ${d.curve ?? ''}${d.rating ?? '?'}${d.residualMa ? ` ${d.residualMa} mA` : ''}`
+          : `MCB ${d.curve ?? ''}${d.rating ?? '?'}${d.rcdGroup ? ` behind ${d.rcdGroup}` : ''}`;
+      const via = t.legs.filter((l) => l.junctionBoxId).map((l) => `leg ${l.leg} via ${box.get(l.junctionBoxId!) ?? '?'}`);
+      return `${t.way}${t.phase ? ` ${t.phase}` : ''} ${t.label} (${[device, ...via].join('; ')})`;
+    })
+    .join(' | ');
 }
 
 function verdict(list: Finding[]): string {
@@ -30,20 +35,40 @@ function verdict(list: Finding[]): string {
 }
 
 const COLUMNS: Array<[string, (w: SurveyWay, s: Survey, f: Finding[]) => Cell]> = [
-  ['old_way_id', (w) => w.id], ['reference', (w) => w.reference], ['feeds', (w) => w.feeds], ['identified_by', (w) => w.identifiedBy],
-  ['kind', (w) => w.kind], ['socket_outlets', (w) => w.socketOutlets],
-  ['device', (w) => w.device.kind], ['fuse_standard', (w) => w.device.fuseStandard], ['rating_a', (w) => w.device.rating],
-  ['curve', (w) => w.device.curve], ['residual_ma', (w) => w.device.residualMa],
-  ['cable_type', (w) => w.cable.type], ['live_csa', (w) => w.cable.liveCsa], ['cpc_csa', (w) => w.cable.cpcCsa],
-  ['length_m', (w) => w.cable.lengthM], ['reference_method', (w) => w.cable.referenceMethod], ['legs', (w) => w.legs],
-  ['ir_test_voltage', (w) => w.readings.insulation.testVoltage], ['ir_line_line', (w) => w.readings.insulation.lineLine],
-  ['ir_line_earth', (w) => w.readings.insulation.lineEarth], ['ir_neutral_earth', (w) => w.readings.insulation.neutralEarth],
-  ['r1_plus_r2', (w) => w.readings.r1PlusR2], ['r2', (w) => w.readings.r2],
-  ['ring_r1', (w) => w.readings.ring.r1], ['ring_rn', (w) => w.readings.ring.rn], ['ring_r2', (w) => w.readings.ring.r2],
-  ['polarity', (w) => w.readings.polarity], ['zs', (w) => w.readings.zs],
-  ['rcd_trip_ms', (w) => w.device.rcdTrip.atRated], ['rcd_trip_5x_ms', (w) => w.device.rcdTrip.atFiveTimes],
-  ['action', (w) => w.action], ['new_ways', (w, s) => newWays(w, s)],
-  ['verdict', (_w, _s, f) => verdict(f)], ['findings', (_w, _s, f) => f.map((x) => `${x.severity}: ${x.message} (${x.rule})`).join(' | ')],
+  ['old_way_id', (w) => w.id],
+  ['reference', (w) => w.reference],
+  ['feeds', (w) => w.feeds],
+  ['identified_by', (w) => w.identifiedBy],
+  ['kind', (w) => w.kind],
+  ['socket_outlets', (w) => w.socketOutlets],
+  ['device', (w) => w.device.kind],
+  ['fuse_standard', (w) => w.device.fuseStandard],
+  ['rating_a', (w) => w.device.rating],
+  ['curve', (w) => w.device.curve],
+  ['residual_ma', (w) => w.device.residualMa],
+  ['cable_type', (w) => w.cable.type],
+  ['live_csa', (w) => w.cable.liveCsa],
+  ['cpc_csa', (w) => w.cable.cpcCsa],
+  ['length_m', (w) => w.cable.lengthM],
+  ['reference_method', (w) => w.cable.referenceMethod],
+  ['legs', (w) => w.legs],
+  ['ir_test_voltage', (w) => w.readings.insulation.testVoltage],
+  ['ir_line_line', (w) => w.readings.insulation.lineLine],
+  ['ir_line_earth', (w) => w.readings.insulation.lineEarth],
+  ['ir_neutral_earth', (w) => w.readings.insulation.neutralEarth],
+  ['r1_plus_r2', (w) => w.readings.r1PlusR2],
+  ['r2', (w) => w.readings.r2],
+  ['ring_r1', (w) => w.readings.ring.r1],
+  ['ring_rn', (w) => w.readings.ring.rn],
+  ['ring_r2', (w) => w.readings.ring.r2],
+  ['polarity', (w) => w.readings.polarity],
+  ['zs', (w) => w.readings.zs],
+  ['rcd_trip_ms', (w) => w.device.rcdTrip.atRated],
+  ['rcd_trip_5x_ms', (w) => w.device.rcdTrip.atFiveTimes],
+  ['action', (w) => w.action],
+  ['new_ways', (w, s) => newWays(w, s)],
+  ['verdict', (_w, _s, f) => verdict(f)],
+  ['findings', (_w, _s, f) => f.map((x) => `${x.severity}: ${x.message} (${x.rule})`).join(' | ')],
   ['notes', (w) => w.notes],
 ];
 export const SURVEY_CSV_COLUMNS = COLUMNS.map(([name]) => name);

@@ -15,9 +15,11 @@ import { insertRevision } from './revision-repository.js';
 import { sameSchedule, searchTextOf } from './stored.js';
 
 /** Who is writing: the signed-in member (or the demo owner when seeding). */
-export interface Actor { id: number; name: string; organisationId: number }
-
-
+export interface Actor {
+  id: number;
+  name: string;
+  organisationId: number;
+}
 
 /** A site id given in a request body must be one of the organisation's sites: else 400 on that field. */
 export async function checkSiteField(db: Db, organisationId: number, siteId: number | null | undefined, field = 'siteId'): Promise<void> {
@@ -29,7 +31,10 @@ export async function checkSiteField(db: Db, organisationId: number, siteId: num
  * itself: else 400 on `circuits.<i>.feedsBoardId`. Other cross-references are findings, not errors.
  */
 export async function checkFeedsBoardIds(
-  db: Db, organisationId: number, schedule: Schedule, selfId: number | null,
+  db: Db,
+  organisationId: number,
+  schedule: Schedule,
+  selfId: number | null,
   fieldFor: (index: number) => string = (i) => `circuits.${i}.feedsBoardId`,
 ): Promise<void> {
   const wanted = [...new Set(schedule.circuits.map((c) => c.feedsBoardId).filter((v): v is number => v != null))];
@@ -51,7 +56,12 @@ export async function createBoardRecord(db: Db, actor: Actor, schedule: Schedule
     try {
       return await inTransaction(db, async (tx) => {
         const id = await insertBoard(tx, {
-          organisationId: actor.organisationId, siteId, code, publicToken: newPublicToken(), schedule, searchText: searchTextOf(schedule, code),
+          organisationId: actor.organisationId,
+          siteId,
+          code,
+          publicToken: newPublicToken(),
+          schedule,
+          searchText: searchTextOf(schedule, code),
         });
         await insertRevision(tx, { boardId: id, number: 1, authorId: actor.id, authorName: actor.name, summary, snapshot: schedule });
         return id;

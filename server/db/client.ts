@@ -27,7 +27,10 @@ export function openDatabase(url: string, opts: { connectionLimit?: number } = {
   const countingPool = new Proxy(pool, {
     get(target, prop, receiver) {
       if (prop === 'query' || prop === 'execute') {
-        return (...args: unknown[]) => { count++; return (target[prop] as (...a: unknown[]) => unknown).apply(target, args); };
+        return (...args: unknown[]) => {
+          count++;
+          return (target[prop] as (...a: unknown[]) => unknown).apply(target, args);
+        };
       }
       const value = Reflect.get(target, prop, receiver);
       return typeof value === 'function' ? value.bind(target) : value;

@@ -20,7 +20,10 @@ export async function listCapturedMail(db: Db, organisationId: number, to?: stri
 }
 
 export async function findCapturedMail(db: Db, organisationId: number, id: number) {
-  const [row] = await db.select({ ...summary, raw: capturedMail.raw }).from(capturedMail)
-    .where(and(eq(capturedMail.id, id), eq(capturedMail.organisationId, organisationId))).limit(1);
+  const [row] = await db
+    .select({ ...summary, raw: capturedMail.raw })
+    .from(capturedMail)
+    .where(and(eq(capturedMail.id, id), eq(capturedMail.organisationId, organisationId)))
+    .limit(1);
   return row ?? null;
 }

@@ -16,5 +16,12 @@ export async function capturedMailMessage(db: Db, organisationId: number, id: nu
   if (!row) throw notFound('No such captured message');
   const { raw, ...rest } = row;
   const read = await readMessage(raw);
-  return { ...rest, createdAt: rest.createdAt.toISOString(), from: read.from, subject: read.subject || rest.subject, text: read.text, attachments: read.attachments };
+  return {
+    ...rest,
+    createdAt: rest.createdAt.toISOString(),
+    from: read.from,
+    subject: read.subject || rest.subject,
+    text: read.text,
+    attachments: read.attachments,
+  };
 }

@@ -35,7 +35,9 @@ export async function sendHandover(ctx: AppContext, user: CurrentUser, boardId: 
   });
   try {
     await ctx.mailer.send({
-      to: input.to, organisationId: user.organisationId, ...mail,
+      to: input.to,
+      organisationId: user.organisationId,
+      ...mail,
       attachments: [{ filename: `${source.board.code}-circuit-chart.pdf`, content: Buffer.from(pdf), contentType: 'application/pdf' }],
     });
   } catch (err) {

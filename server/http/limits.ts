@@ -12,7 +12,11 @@ const HOUR = 60 * 60 * 1000;
 
 function limiter(limit: number, message: string, keyGenerator: (req: Request) => string): RequestHandler {
   return rateLimit({
-    windowMs: HOUR, limit, standardHeaders: 'draft-7', legacyHeaders: false, keyGenerator,
+    windowMs: HOUR,
+    limit,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
+    keyGenerator,
     handler: (_req: Request, _res: Response, next: NextFunction) => next(tooMany(message, HOUR / 1000)),
   });
 }

@@ -13,7 +13,10 @@ import { preferredCoding, type ContentCoding } from './compression.js';
 function readShell(clientDir: string): Map<ContentCoding, Buffer> {
   const file = join(clientDir, 'index.html');
   const shell = new Map<ContentCoding, Buffer>([['identity', readFileSync(file)]]);
-  for (const [coding, ext] of [['br', '.br'], ['gzip', '.gz']] as const) {
+  for (const [coding, ext] of [
+    ['br', '.br'],
+    ['gzip', '.gz'],
+  ] as const) {
     if (existsSync(file + ext)) shell.set(coding, readFileSync(file + ext));
   }
   return shell;
@@ -25,17 +28,20 @@ export function serveClient(app: Express, dir: string | null): void {
   // express-static-gzip finds the twins by path under this root: give it no trailing separator.
   const clientDir = resolve(dir);
   const assetsDir = join(clientDir, 'assets');
-  app.use(expressStaticGzip(clientDir, {
-    enableBrotli: true,
-    orderPreference: ['br', 'gzip'],
-    index: false,
-    serveStatic: {
-      index: false, maxAge: '1h',
-      setHeaders: (res, path) => {
-        if (path.startsWith(assetsDir)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+  app.use(
+    expressStaticGzip(clientDir, {
+      enableBrotli: true,
+      orderPreference: ['br', 'gzip'],
+      index: false,
+      serveStatic: {
+        index: false,
+        maxAge: '1h',
+        setHeaders: (res, path) => {
+          if (path.startsWith(assetsDir)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+        },
       },
-    },
-  }));
+    }),
+  );
   // Every other path is a client route. The shell page is read once: it only changes with a new
   // build, and serving it from memory keeps the board page fast under load.
   const shell = readShell(clientDir);

@@ -8,7 +8,10 @@ import type { Db } from '../db/client.js';
 import { capturedMail } from '../db/schema.js';
 import { ORGANISATION_HEADER } from './mailer.js';
 
-export interface CaptureServer { port: number; close(): Promise<void> }
+export interface CaptureServer {
+  port: number;
+  close(): Promise<void>;
+}
 
 /** The subject (encoded words decoded) and the sending organisation's header, read by mailparser. */
 async function headersOf(raw: string): Promise<{ subject: string; organisation: number }> {

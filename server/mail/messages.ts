@@ -5,7 +5,10 @@
 import { isoDay, shortDate } from '../../shared/rules/dates.js';
 import type { Role } from '../../shared/schemas/auth.js';
 
-export interface MessageText { subject: string; text: string }
+export interface MessageText {
+  subject: string;
+  text: string;
+}
 
 const ROLE_DUTIES: Record<Role, string> = {
   owner: 'an owner: you can do everything, including inviting members and changing the organisation settings',
@@ -73,7 +76,12 @@ export function passwordResetMessage(input: PasswordResetMessageInput): MessageT
   };
 }
 
-export interface SignupLinkMessageInput { name: string; organisationName: string; link: string; expiresAt: Date }
+export interface SignupLinkMessageInput {
+  name: string;
+  organisationName: string;
+  link: string;
+  expiresAt: Date;
+}
 
 /** The link that finishes a sign-up: the account exists only once it is opened. */
 export function signupLinkMessage(input: SignupLinkMessageInput): MessageText {
@@ -93,16 +101,23 @@ export function signupLinkMessage(input: SignupLinkMessageInput): MessageText {
   };
 }
 
-export interface AlreadyRegisteredMessageInput { name: string; email: string; link: string; because: 'signup' | 'invitation'; organisationName?: string }
+export interface AlreadyRegisteredMessageInput {
+  name: string;
+  email: string;
+  link: string;
+  because: 'signup' | 'invitation';
+  organisationName?: string;
+}
 
 /**
  * Sent instead of a link when the address already has an account: the answer on screen is the same
  * as for a new address (it must not tell a stranger who has an account), so the owner of the address hears it here.
  */
 export function alreadyRegisteredMessage(input: AlreadyRegisteredMessageInput): MessageText {
-  const what = input.because === 'signup'
-    ? `Someone asked to open a new Waymark account with this address (${input.email}).`
-    : `${input.organisationName ?? 'An organisation'} invited this address (${input.email}) to join them on Waymark.`;
+  const what =
+    input.because === 'signup'
+      ? `Someone asked to open a new Waymark account with this address (${input.email}).`
+      : `${input.organisationName ?? 'An organisation'} invited this address (${input.email}) to join them on Waymark.`;
   return {
     subject: input.because === 'signup' ? 'Your address already has a Waymark account' : 'An invitation to an address that already has a Waymark account',
     text: [
@@ -113,7 +128,9 @@ export function alreadyRegisteredMessage(input: AlreadyRegisteredMessageInput): 
       '',
       'If it was you and you have forgotten the password, choose a new one here:',
       input.link,
-      input.because === 'invitation' ? 'To join the other organisation, ask them to invite a different address.' : 'If it was not you, you can ignore this e-mail.',
+      input.because === 'invitation'
+        ? 'To join the other organisation, ask them to invite a different address.'
+        : 'If it was not you, you can ignore this e-mail.',
       '',
       '— Waymark',
     ].join('\n'),

@@ -14,21 +14,27 @@ import { alreadyRegisteredMessage, invitationMessage } from '../mail/messages.js
 import { hashPassword, hashToken, newLinkToken } from '../auth/passwords.js';
 import { findUserByEmail, insertUser } from '../auth/repository.js';
 import {
-  deleteUnusedInvitation, deleteUnusedInvitationsFor, findInvitationByTokenHash, insertInvitation,
-  listPendingInvitations, markInvitationUsed,
+  deleteUnusedInvitation,
+  deleteUnusedInvitationsFor,
+  findInvitationByTokenHash,
+  insertInvitation,
+  listPendingInvitations,
+  markInvitationUsed,
 } from './invitation-repository.js';
 
 /** Seven days, as the invitation e-mail says. */
 export const INVITATION_LIFETIME_MS = 7 * 24 * 60 * 60 * 1000;
 
-const alreadyMember = () => conflict('This address is already a member of your organisation', {
-  email: 'Already a member: see the members list',
-});
+const alreadyMember = () =>
+  conflict('This address is already a member of your organisation', {
+    email: 'Already a member: see the members list',
+  });
 
 /** Said only to the holder of the link, who owns the address. */
-const alreadyRegistered = () => conflict('This address already has a Waymark account: sign in instead', {
-  email: 'Already has an account',
-});
+const alreadyRegistered = () =>
+  conflict('This address already has a Waymark account: sign in instead', {
+    email: 'Already has an account',
+  });
 
 /** Records the invitation and sends its link; if the mail cannot be sent, the invitation is withdrawn. */
 export async function inviteMember(ctx: AppContext, owner: CurrentUser, input: InviteInput, now = new Date()): Promise<PendingInvitation> {
@@ -42,20 +48,39 @@ export async function inviteMember(ctx: AppContext, owner: CurrentUser, input: I
   // links left by a simultaneous double invite are harmless (both are listed and revocable).
   await deleteUnusedInvitationsFor(ctx.db, owner.organisationId, input.email);
   const created = await insertInvitation(ctx.db, {
-    ...input, organisationId: owner.organisationId, tokenHash: token.hash, invitedBy: owner.id, expiresAt,
+    ...input,
+    organisationId: owner.organisationId,
+    tokenHash: token.hash,
+    invitedBy: owner.id,
+    expiresAt,
   });
   const link = `${ctx.config.publicBaseUrl}/invite/${token.raw}`;
   try {
-    await deliver(ctx.mailer, input.email, owner.organisationId, existing
-      ? alreadyRegisteredMessage({ name: existing.name, email: existing.email, link: `${ctx.config.publicBaseUrl}/forgot`, because: 'invitation', organisationName: owner.organisationName })
-      : invitationMessage({ organisationName: owner.organisationName, inviterName: owner.name, role: input.role, link, expiresAt }));
+    await deliver(
+      ctx.mailer,
+      input.email,
+      owner.organisationId,
+      existing
+        ? alreadyRegisteredMessage({
+            name: existing.name,
+            email: existing.email,
+            link: `${ctx.config.publicBaseUrl}/forgot`,
+            because: 'invitation',
+            organisationName: owner.organisationName,
+          })
+        : invitationMessage({ organisationName: owner.organisationName, inviterName: owner.name, role: input.role, link, expiresAt }),
+    );
   } catch (err) {
     await deleteUnusedInvitation(ctx.db, owner.organisationId, created.id);
     throw err;
   }
   return {
-    id: created.id, email: input.email, role: input.role, invitedBy: owner.name,
-    createdAt: created.createdAt.toISOString(), expiresAt: expiresAt.toISOString(),
+    id: created.id,
+    email: input.email,
+    role: input.role,
+    invitedBy: owner.name,
+    createdAt: created.createdAt.toISOString(),
+    expiresAt: expiresAt.toISOString(),
   };
 }
 
@@ -69,8 +94,7 @@ export async function revokeInvitation(db: Db, organisationId: number, id: numbe
 }
 
 type InvitationRow = NonNullable<Awaited<ReturnType<typeof findInvitationByTokenHash>>>;
-const usable = (row: InvitationRow | null, now: Date): row is InvitationRow =>
-  !!row && !row.usedAt && row.expiresAt.getTime() > now.getTime();
+const usable = (row: InvitationRow | null, now: Date): row is InvitationRow => !!row && !row.usedAt && row.expiresAt.getTime() > now.getTime();
 
 /** What the link page shows. Unknown, used and expired links all answer the same 404. */
 export async function invitationByToken(db: Db, rawToken: string, now = new Date()): Promise<InvitationInfo> {
@@ -78,7 +102,6 @@ export async function invitationByToken(db: Db, rawToken: string, now = new Date
   if (!usable(row, now)) throw notFound('This invitation link is not valid any more: ask for a new invitation');
   return { email: row.email, role: row.role, organisation: { name: row.organisationName }, expiresAt: row.expiresAt.toISOString() };
 }
-
 
 /** Creates the member from a link and uses the link up, in one transaction. Returns the new user's id. */
 export async function acceptInvitation(db: Db, input: AcceptInvitationInput, now = new Date()): Promise<number> {

@@ -5,10 +5,22 @@ import { users } from '../db/schema.js';
 import type { MemberUpdate } from '../../shared/schemas/members.js';
 import type { Role } from '../../shared/schemas/auth.js';
 
-export interface MemberRow { id: number; email: string; name: string; role: Role; disabled: boolean; createdAt: Date }
+export interface MemberRow {
+  id: number;
+  email: string;
+  name: string;
+  role: Role;
+  disabled: boolean;
+  createdAt: Date;
+}
 
 const memberColumns = {
-  id: users.id, email: users.email, name: users.name, role: users.role, disabled: users.disabled, createdAt: users.createdAt,
+  id: users.id,
+  email: users.email,
+  name: users.name,
+  role: users.role,
+  disabled: users.disabled,
+  createdAt: users.createdAt,
 };
 
 export async function listMembers(db: Db, organisationId: number): Promise<MemberRow[]> {
@@ -16,8 +28,11 @@ export async function listMembers(db: Db, organisationId: number): Promise<Membe
 }
 
 export async function findMember(db: Db, organisationId: number, id: number): Promise<MemberRow | null> {
-  const [row] = await db.select(memberColumns).from(users)
-    .where(and(eq(users.organisationId, organisationId), eq(users.id, id))).limit(1);
+  const [row] = await db
+    .select(memberColumns)
+    .from(users)
+    .where(and(eq(users.organisationId, organisationId), eq(users.id, id)))
+    .limit(1);
   return row ?? null;
 }
 
@@ -26,12 +41,17 @@ export async function findMember(db: Db, organisationId: number, id: number): Pr
  * owners demoting each other at the same moment cannot leave the organisation with none.
  */
 export async function lockActiveOwnerIds(db: Db, organisationId: number): Promise<number[]> {
-  const rows = await db.select({ id: users.id }).from(users)
+  const rows = await db
+    .select({ id: users.id })
+    .from(users)
     .where(and(eq(users.organisationId, organisationId), eq(users.role, 'owner'), eq(users.disabled, false)))
     .for('update');
   return rows.map((r) => r.id);
 }
 
 export async function updateMember(db: Db, organisationId: number, id: number, change: MemberUpdate): Promise<void> {
-  await db.update(users).set(change).where(and(eq(users.organisationId, organisationId), eq(users.id, id)));
+  await db
+    .update(users)
+    .set(change)
+    .where(and(eq(users.organisationId, organisationId), eq(users.id, id)));
 }

@@ -9,8 +9,13 @@ import { organisations } from '../db/schema.js';
 import type { Organisation, OrganisationSettings } from '../../shared/schemas/organisation.js';
 
 const columns = {
-  id: organisations.id, name: organisations.name, contactPhone: organisations.contactPhone, contactEmail: organisations.contactEmail,
-  printOffsetXMm: organisations.printOffsetXMm, printOffsetYMm: organisations.printOffsetYMm, revision: organisations.revision,
+  id: organisations.id,
+  name: organisations.name,
+  contactPhone: organisations.contactPhone,
+  contactEmail: organisations.contactEmail,
+  printOffsetXMm: organisations.printOffsetXMm,
+  printOffsetYMm: organisations.printOffsetYMm,
+  revision: organisations.revision,
   // Written out with table names: in a one-table select Drizzle leaves columns unqualified, and an
   // unqualified `id` inside the subquery would mean the file's id, not the organisation's.
   hasLogo: sql<number>`exists(select 1 from files where files.organisation_id = organisations.id and files.kind = 'logo')`,
@@ -23,7 +28,9 @@ export async function findOrganisation(db: Db, id: number): Promise<Organisation
 
 /** Writes `values` only while the row is at `baseRevision`, bumping it; true when it did. */
 async function updateIfAt(db: Db, id: number, baseRevision: number, values: Partial<typeof organisations.$inferInsert>): Promise<boolean> {
-  const [res] = await db.update(organisations).set({ ...values, revision: sql`${organisations.revision} + 1` })
+  const [res] = await db
+    .update(organisations)
+    .set({ ...values, revision: sql`${organisations.revision} + 1` })
     .where(and(eq(organisations.id, id), eq(organisations.revision, baseRevision)));
   return res.affectedRows > 0;
 }

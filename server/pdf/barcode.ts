@@ -34,10 +34,16 @@ export function barcodeItems(text: string, box: Box, xMm: number): Item[] {
   const boxes: Box[] = [];
   let i = 0;
   while (i < pattern.length) {
-    if (pattern[i] !== '1') { i++; continue; }
+    if (pattern[i] !== '1') {
+      i++;
+      continue;
+    }
     const start = i;
     while (i < pattern.length && pattern[i] === '1') i++;
     boxes.push({ x: area.x + (CODE128_QUIET_X + start) * xMm, y: area.y, w: (i - start) * xMm, h: area.h });
   }
-  return [{ kind: 'rect', box: area, fill: WHITE }, { kind: 'modules', purpose: 'barcode', area, boxes, color: BLACK }];
+  return [
+    { kind: 'rect', box: area, fill: WHITE },
+    { kind: 'modules', purpose: 'barcode', area, boxes, color: BLACK },
+  ];
 }

@@ -4,8 +4,26 @@
  * added to every position. Fonts are embedded as subsets, once per document, only if used.
  */
 import {
-  PDFDocument, closePath, degrees, fill, fillAndStroke, lineTo, moveTo, popGraphicsState, pushGraphicsState, rectangle,
-  rgb, setDashPattern, setFillingRgbColor, setLineWidth, setStrokingRgbColor, stroke, type PDFFont, type PDFImage, type PDFOperator, type PDFPage,
+  PDFDocument,
+  closePath,
+  degrees,
+  fill,
+  fillAndStroke,
+  lineTo,
+  moveTo,
+  popGraphicsState,
+  pushGraphicsState,
+  rectangle,
+  rgb,
+  setDashPattern,
+  setFillingRgbColor,
+  setLineWidth,
+  setStrokingRgbColor,
+  stroke,
+  type PDFFont,
+  type PDFImage,
+  type PDFOperator,
+  type PDFPage,
 } from 'pdf-lib';
 import { cachingFontkit, fontBytes, unshaped } from './fonts.js';
 import type { Color, FontFace, Item, LayoutDoc, Point } from './model.js';
@@ -13,16 +31,31 @@ import type { Color, FontFace, Item, LayoutDoc, Point } from './model.js';
 /** Points per millimetre. // ISO 32000-1 8.3.2.1: 1 pt = 1/72 in */
 export const PT_PER_MM = 72 / 25.4;
 
-interface Frame { heightMm: number; dx: number; dy: number }
+interface Frame {
+  heightMm: number;
+  dx: number;
+  dy: number;
+}
 
 const px = (f: Frame, xMm: number) => (xMm + f.dx) * PT_PER_MM;
 const py = (f: Frame, yMm: number) => (f.heightMm - (yMm + f.dy)) * PT_PER_MM;
 
-function paint(fillColor: Color | undefined, strokeColor: Color | undefined, lineMm: number | undefined, dashMm?: readonly number[]): { pre: PDFOperator[]; op: PDFOperator | null } {
+function paint(
+  fillColor: Color | undefined,
+  strokeColor: Color | undefined,
+  lineMm: number | undefined,
+  dashMm?: readonly number[],
+): { pre: PDFOperator[]; op: PDFOperator | null } {
   const pre: PDFOperator[] = [];
   if (fillColor) pre.push(setFillingRgbColor(...fillColor));
   if (strokeColor) pre.push(setStrokingRgbColor(...strokeColor), setLineWidth((lineMm ?? 0.2) * PT_PER_MM));
-  if (strokeColor && dashMm) pre.push(setDashPattern(dashMm.map((d) => d * PT_PER_MM), 0));
+  if (strokeColor && dashMm)
+    pre.push(
+      setDashPattern(
+        dashMm.map((d) => d * PT_PER_MM),
+        0,
+      ),
+    );
   const op = fillColor && strokeColor ? fillAndStroke() : fillColor ? fill() : strokeColor ? stroke() : null;
   return { pre, op };
 }
@@ -42,7 +75,14 @@ function vectorOps(item: Exclude<Item, { kind: 'text' | 'image' | 'circle' }>, f
     }
     case 'line': {
       const { pre } = paint(undefined, item.color, item.lineMm, item.dashMm);
-      return [pushGraphicsState(), ...pre, moveTo(px(f, item.from.x), py(f, item.from.y)), lineTo(px(f, item.to.x), py(f, item.to.y)), stroke(), popGraphicsState()];
+      return [
+        pushGraphicsState(),
+        ...pre,
+        moveTo(px(f, item.from.x), py(f, item.from.y)),
+        lineTo(px(f, item.to.x), py(f, item.to.y)),
+        stroke(),
+        popGraphicsState(),
+      ];
     }
     case 'polygon': {
       const { pre, op } = paint(item.fill, item.stroke, item.lineMm);
@@ -79,7 +119,14 @@ async function embedImages(doc: PDFDocument, layout: LayoutDoc): Promise<Map<Uin
 
 function drawItem(page: PDFPage, item: Item, f: Frame, fonts: Map<FontFace, PDFFont>, images: Map<Uint8Array, PDFImage | null>, ops: PDFOperator[]): void {
   if (item.kind === 'text') {
-    const options = { x: px(f, item.x), y: py(f, item.y), size: item.sizePt, font: fonts.get(item.face)!, color: rgb(...item.color), rotate: degrees(-item.rotation) };
+    const options = {
+      x: px(f, item.x),
+      y: py(f, item.y),
+      size: item.sizePt,
+      font: fonts.get(item.face)!,
+      color: rgb(...item.color),
+      rotate: degrees(-item.rotation),
+    };
     try {
       page.drawText(item.text, options);
     } catch {
@@ -92,7 +139,14 @@ function drawItem(page: PDFPage, item: Item, f: Frame, fonts: Map<FontFace, PDFF
     if (image) page.drawImage(image, { x: px(f, b.x), y: py(f, b.y + b.h), width: b.w * PT_PER_MM, height: b.h * PT_PER_MM });
   } else if (item.kind === 'circle') {
     const c = item;
-    page.drawCircle({ x: px(f, c.centre.x), y: py(f, c.centre.y), size: c.radiusMm * PT_PER_MM, color: c.fill && rgb(...c.fill), borderColor: c.stroke && rgb(...c.stroke), borderWidth: c.stroke ? (c.lineMm ?? 0.2) * PT_PER_MM : 0 });
+    page.drawCircle({
+      x: px(f, c.centre.x),
+      y: py(f, c.centre.y),
+      size: c.radiusMm * PT_PER_MM,
+      color: c.fill && rgb(...c.fill),
+      borderColor: c.stroke && rgb(...c.stroke),
+      borderWidth: c.stroke ? (c.lineMm ?? 0.2) * PT_PER_MM : 0,
+    });
   } else {
     ops.push(...vectorOps(item, f));
     return;
@@ -109,7 +163,10 @@ export interface DrawOptions {
   subsetFonts?: boolean;
 }
 
-export interface DrawResult { pdf: Uint8Array; imagesLeftOut: number }
+export interface DrawResult {
+  pdf: Uint8Array;
+  imagesLeftOut: number;
+}
 
 /** Draw a layout into a new PDF; `offsetMm` is the printer's feed correction (x right, y down). */
 export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm: number }, options: DrawOptions = {}): Promise<DrawResult> {
@@ -128,7 +185,10 @@ export async function drawLayout(layout: LayoutDoc, offsetMm: { xMm: number; yMm
     for (const item of p.items) {
       if (item.kind === 'text' || item.kind === 'image' || item.kind === 'circle') {
         // Keep the painting order: flush shapes gathered so far before a pdf-lib call.
-        if (ops.length) { pushAll(page, ops); ops = []; }
+        if (ops.length) {
+          pushAll(page, ops);
+          ops = [];
+        }
       }
       drawItem(page, item, f, fonts, images, ops);
     }

@@ -95,7 +95,10 @@ function advance(font: FontkitFont, cp: number, cache: Map<number, number>): num
 function emWidth(text: string, face: FontFace): number {
   const font = parsed(face);
   let cache = advanceCache.get(face);
-  if (!cache) { cache = new Map(); advanceCache.set(face, cache); }
+  if (!cache) {
+    cache = new Map();
+    advanceCache.set(face, cache);
+  }
   let sum = 0;
   for (let i = 0; i < text.length; i++) {
     const cp = text.codePointAt(i)!;
@@ -141,7 +144,11 @@ function printable(text: string, face: FontFace): string {
     if (!isSimple(cp)) simple = false;
   }
   if (!simple) {
-    try { font.layout(out); } catch { out = unshaped(out); }
+    try {
+      font.layout(out);
+    } catch {
+      out = unshaped(out);
+    }
   }
   printableCache.set(key, out);
   return out;

@@ -6,7 +6,11 @@
 import type { Box, Item, Point, Rotation, TextRun } from './model.js';
 
 /** Local origin goes to (x, y) and the local axes turn clockwise by `rotation`. */
-export interface Placement { x: number; y: number; rotation: Rotation }
+export interface Placement {
+  x: number;
+  y: number;
+  rotation: Rotation;
+}
 
 export const IDENTITY: Placement = { x: 0, y: 0, rotation: 0 };
 
@@ -31,10 +35,14 @@ export function mapBox(b: Box, at: Placement): Box {
  */
 export function placeFrame(w: number, h: number, target: Box, rotation: Rotation): Placement {
   switch (rotation) {
-    case 0: return { x: target.x, y: target.y, rotation };
-    case 90: return { x: target.x + h, y: target.y, rotation };
-    case 180: return { x: target.x + w, y: target.y + h, rotation };
-    case 270: return { x: target.x, y: target.y + w, rotation };
+    case 0:
+      return { x: target.x, y: target.y, rotation };
+    case 90:
+      return { x: target.x + h, y: target.y, rotation };
+    case 180:
+      return { x: target.x + w, y: target.y + h, rotation };
+    case 270:
+      return { x: target.x, y: target.y + w, rotation };
   }
 }
 
@@ -50,13 +58,20 @@ function mapRun(run: TextRun, at: Placement): TextRun {
 /** One item in another frame. */
 export function mapItem(item: Item, at: Placement): Item {
   switch (item.kind) {
-    case 'text': return mapRun(item, at);
-    case 'rect': return { ...item, box: mapBox(item.box, at) };
-    case 'line': return { ...item, from: mapPoint(item.from, at), to: mapPoint(item.to, at) };
-    case 'polygon': return { ...item, points: item.points.map((p) => mapPoint(p, at)) };
-    case 'circle': return { ...item, centre: mapPoint(item.centre, at) };
-    case 'modules': return { ...item, area: mapBox(item.area, at), boxes: item.boxes.map((b) => mapBox(b, at)) };
-    case 'image': return { ...item, box: mapBox(item.box, at) };
+    case 'text':
+      return mapRun(item, at);
+    case 'rect':
+      return { ...item, box: mapBox(item.box, at) };
+    case 'line':
+      return { ...item, from: mapPoint(item.from, at), to: mapPoint(item.to, at) };
+    case 'polygon':
+      return { ...item, points: item.points.map((p) => mapPoint(p, at)) };
+    case 'circle':
+      return { ...item, centre: mapPoint(item.centre, at) };
+    case 'modules':
+      return { ...item, area: mapBox(item.area, at), boxes: item.boxes.map((b) => mapBox(b, at)) };
+    case 'image':
+      return { ...item, box: mapBox(item.box, at) };
   }
 }
 

@@ -42,7 +42,8 @@ export type TapeSettings = Partial<Record<TapeWidth, { printableMm?: number; mar
  * Throws a LayoutError (field `media`) for an unknown id or a sheet layout not passed in.
  */
 export function resolveMedium(mediaId: string, sheetLayouts?: SheetLayouts, tapeSettings: TapeSettings = {}): Medium {
-  if (!mediaIdSchema.safeParse(mediaId).success) throw new LayoutError(`Unknown medium "${mediaId}": use tape-6…tape-36, a4, a5, a4-landscape, a5-landscape, custom-<w>x<h> or sheet-<id>`, 'media');
+  if (!mediaIdSchema.safeParse(mediaId).success)
+    throw new LayoutError(`Unknown medium "${mediaId}": use tape-6…tape-36, a4, a5, a4-landscape, a5-landscape, custom-<w>x<h> or sheet-<id>`, 'media');
   const [kind, rest] = [mediaId.split('-')[0], mediaId.slice(mediaId.indexOf('-') + 1)];
   if (kind === 'tape') {
     const widthMm = Number(rest) as TapeWidth;
@@ -67,7 +68,13 @@ export function resolveMedium(mediaId: string, sheetLayouts?: SheetLayouts, tape
 /** The medium each output goes on unless the user picks another. */
 export function defaultMediumFor(output: PrintOutput): string {
   const defaults: Record<PrintOutput, string> = {
-    flags: 'tape-12', 'way-labels': 'tape-12', chart: 'a4', notices: 'a4', tag: 'tape-24', calibration: 'a4', changeover: 'a4',
+    flags: 'tape-12',
+    'way-labels': 'tape-12',
+    chart: 'a4',
+    notices: 'a4',
+    tag: 'tape-24',
+    calibration: 'a4',
+    changeover: 'a4',
   };
   return defaults[output];
 }

@@ -24,8 +24,16 @@ export const RED: Color = [0.75, 0.05, 0.05];
 /** Safety yellow for warning signs (ISO 3864-4 specifies it colorimetrically); sRGB ≈ #FFD100. // from memory */
 export const SAFETY_YELLOW: Color = [1, 0xd1 / 255, 0];
 
-export interface Point { x: number; y: number }
-export interface Box { x: number; y: number; w: number; h: number }
+export interface Point {
+  x: number;
+  y: number;
+}
+export interface Box {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
 
 /**
  * One line of real (extractable) text. `x, y` is the start of the baseline; `cell` is the box the
@@ -48,20 +56,66 @@ export interface TextRun {
   descentMm: number;
 }
 
-export interface RectItem { kind: 'rect'; box: Box; fill?: Color; stroke?: Color; lineMm?: number; dashMm?: readonly number[] }
-export interface LineItem { kind: 'line'; from: Point; to: Point; lineMm: number; color: Color; dashMm?: readonly number[] }
-export interface PolygonItem { kind: 'polygon'; points: Point[]; fill?: Color; stroke?: Color; lineMm?: number }
-export interface CircleItem { kind: 'circle'; centre: Point; radiusMm: number; fill?: Color; stroke?: Color; lineMm?: number }
+export interface RectItem {
+  kind: 'rect';
+  box: Box;
+  fill?: Color;
+  stroke?: Color;
+  lineMm?: number;
+  dashMm?: readonly number[];
+}
+export interface LineItem {
+  kind: 'line';
+  from: Point;
+  to: Point;
+  lineMm: number;
+  color: Color;
+  dashMm?: readonly number[];
+}
+export interface PolygonItem {
+  kind: 'polygon';
+  points: Point[];
+  fill?: Color;
+  stroke?: Color;
+  lineMm?: number;
+}
+export interface CircleItem {
+  kind: 'circle';
+  centre: Point;
+  radiusMm: number;
+  fill?: Color;
+  stroke?: Color;
+  lineMm?: number;
+}
 /** Many filled rectangles of one colour (QR modules, barcode bars), drawn as one path. */
-export interface ModulesItem { kind: 'modules'; purpose: 'qr' | 'barcode'; area: Box; boxes: Box[]; color: Color }
-export interface ImageItem { kind: 'image'; box: Box; bytes: Uint8Array; mime: 'image/png' | 'image/jpeg' }
+export interface ModulesItem {
+  kind: 'modules';
+  purpose: 'qr' | 'barcode';
+  area: Box;
+  boxes: Box[];
+  color: Color;
+}
+export interface ImageItem {
+  kind: 'image';
+  box: Box;
+  bytes: Uint8Array;
+  mime: 'image/png' | 'image/jpeg';
+}
 
 export type Item = TextRun | RectItem | LineItem | PolygonItem | CircleItem | ModulesItem | ImageItem;
 
-export interface LayoutPage { widthMm: number; heightMm: number; items: Item[] }
+export interface LayoutPage {
+  widthMm: number;
+  heightMm: number;
+  items: Item[];
+}
 
 /** A whole output laid out, ready to draw. */
-export interface LayoutDoc { title: string; pages: LayoutPage[]; warnings: PrintWarning[] }
+export interface LayoutDoc {
+  title: string;
+  pages: LayoutPage[];
+  warnings: PrintWarning[];
+}
 
 /** Text width in mm of `text` set in `face` at `sizePt`. */
 export type Measure = (text: string, face: FontFace, sizePt: number) => number;
@@ -82,8 +136,10 @@ export function runBox(run: TextRun): Box {
   const cos = Math.round(Math.cos(rad));
   const sin = Math.round(Math.sin(rad));
   const corners: Point[] = [
-    { x: 0, y: -run.ascentMm }, { x: run.widthMm, y: -run.ascentMm },
-    { x: 0, y: run.descentMm }, { x: run.widthMm, y: run.descentMm },
+    { x: 0, y: -run.ascentMm },
+    { x: run.widthMm, y: -run.ascentMm },
+    { x: 0, y: run.descentMm },
+    { x: run.widthMm, y: run.descentMm },
   ].map((p) => ({ x: run.x + p.x * cos - p.y * sin, y: run.y + p.x * sin + p.y * cos }));
   const xs = corners.map((p) => p.x);
   const ys = corners.map((p) => p.y);
@@ -94,8 +150,12 @@ export function runBox(run: TextRun): Box {
 
 /** Whether `inner` lies within `outer`, allowing for rounding (`toleranceMm`). */
 export function boxInside(inner: Box, outer: Box, toleranceMm = 1e-6): boolean {
-  return inner.x >= outer.x - toleranceMm && inner.y >= outer.y - toleranceMm
-    && inner.x + inner.w <= outer.x + outer.w + toleranceMm && inner.y + inner.h <= outer.y + outer.h + toleranceMm;
+  return (
+    inner.x >= outer.x - toleranceMm &&
+    inner.y >= outer.y - toleranceMm &&
+    inner.x + inner.w <= outer.x + outer.w + toleranceMm &&
+    inner.y + inner.h <= outer.y + outer.h + toleranceMm
+  );
 }
 
 export function insetBox(b: Box, by: number): Box {

@@ -13,7 +13,10 @@ export const QR_QUIET_MODULES = 4;
 /** Smallest printed module a phone reads at hand distance (mm). // common practice (printing guidance for phone cameras) */
 export const QR_MIN_MODULE_MM = 0.4;
 
-export interface QrMatrix { size: number; dark: Uint8Array }
+export interface QrMatrix {
+  size: number;
+  dark: Uint8Array;
+}
 
 /** A board's URL is encoded again and again; the most recent few hundred are kept. */
 const cache = new LRUCache<string, QrMatrix>({ max: 200 });
@@ -44,18 +47,27 @@ export function qrItems(text: string, box: Box, fixHint: string): Item[] {
   const modules = m.size + 2 * QR_QUIET_MODULES;
   const moduleMm = side / modules;
   if (moduleMm < QR_MIN_MODULE_MM - 1e-9) {
-    throw new LayoutError(`The QR code needs at least ${qrMinSideMm(text).toFixed(1)} mm square (${m.size} modules plus the quiet zone, at ${QR_MIN_MODULE_MM} mm each) but only ${side.toFixed(1)} mm fits here: ${fixHint}`, 'media');
+    throw new LayoutError(
+      `The QR code needs at least ${qrMinSideMm(text).toFixed(1)} mm square (${m.size} modules plus the quiet zone, at ${QR_MIN_MODULE_MM} mm each) but only ${side.toFixed(1)} mm fits here: ${fixHint}`,
+      'media',
+    );
   }
   const area: Box = { x: box.x + (box.w - side) / 2, y: box.y + (box.h - side) / 2, w: side, h: side };
   const boxes: Box[] = [];
   for (let r = 0; r < m.size; r++) {
     let c = 0;
     while (c < m.size) {
-      if (!m.dark[r * m.size + c]) { c++; continue; }
+      if (!m.dark[r * m.size + c]) {
+        c++;
+        continue;
+      }
       const start = c;
       while (c < m.size && m.dark[r * m.size + c]) c++;
       boxes.push({ x: area.x + (start + QR_QUIET_MODULES) * moduleMm, y: area.y + (r + QR_QUIET_MODULES) * moduleMm, w: (c - start) * moduleMm, h: moduleMm });
     }
   }
-  return [{ kind: 'rect', box: area, fill: WHITE }, { kind: 'modules', purpose: 'qr', area, boxes, color: BLACK }];
+  return [
+    { kind: 'rect', box: area, fill: WHITE },
+    { kind: 'modules', purpose: 'qr', area, boxes, color: BLACK },
+  ];
 }

@@ -19,7 +19,13 @@ import { emptyDoc } from './layout/empty.js';
 
 type Layouts = { [O in PrintOutput]: (ctx: LayoutContext<O>) => LayoutDoc };
 const layouts: Layouts = {
-  flags: layoutFlags, 'way-labels': layoutWayLabels, chart: layoutChart, notices: layoutNotices, tag: layoutTag, calibration: layoutCalibration, changeover: layoutChangeover,
+  flags: layoutFlags,
+  'way-labels': layoutWayLabels,
+  chart: layoutChart,
+  notices: layoutNotices,
+  tag: layoutTag,
+  calibration: layoutCalibration,
+  changeover: layoutChangeover,
 };
 
 /** The output laid out in mm, without drawing: what tests and previews measure. */

@@ -59,5 +59,10 @@ export interface RenderResult {
 
 /** Thrown when a request cannot be laid out (e.g. QR too small on this tape); the message says what would work. */
 export class LayoutError extends Error {
-  constructor(message: string, readonly field?: string) { super(message); }
+  constructor(
+    message: string,
+    readonly field?: string,
+  ) {
+    super(message);
+  }
 }

@@ -28,7 +28,14 @@ const packMedia: Record<(typeof packOutputs)[number], MediaId[]> = {
   changeover: [defaultMedia.changeover],
 };
 
-interface PackFile { output: PrintOutput; media: MediaId; name: string; pdf: Uint8Array; pageCount: number; warnings: string[] }
+interface PackFile {
+  output: PrintOutput;
+  media: MediaId;
+  name: string;
+  pdf: Uint8Array;
+  pageCount: number;
+  warnings: string[];
+}
 
 async function renderFirstFitting(ctx: AppContext, user: CurrentUser, source: PrintSource, output: (typeof packOutputs)[number]): Promise<PackFile | string> {
   const options = printOptionSchemas[output].parse({}) as PrintOptions[typeof output];
@@ -73,6 +80,10 @@ export async function printPack(ctx: AppContext, user: CurrentUser, boardId: num
   }
   const entries: ZipEntry[] = [...files.map((f) => ({ name: f.name, data: f.pdf })), { name: 'READ-ME.txt', data: readMe(source, files, skipped) }];
   const zip = await zipEntries(entries);
-  if (record) await repo.insertPrints(ctx.db, files.map((f) => printRecordFor(user, source, f.output, f.media)));
+  if (record)
+    await repo.insertPrints(
+      ctx.db,
+      files.map((f) => printRecordFor(user, source, f.output, f.media)),
+    );
   return { zip, filename: `${source.board.code}-pack-r${source.board.revision}.zip` };
 }

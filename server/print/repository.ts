@@ -7,7 +7,14 @@ import { desc, eq } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { prints } from '../db/schema.js';
 
-export interface NewPrintRecord { boardId: number; userId: number; userName: string; output: string; media: string; revision: number }
+export interface NewPrintRecord {
+  boardId: number;
+  userId: number;
+  userName: string;
+  output: string;
+  media: string;
+  revision: number;
+}
 
 /** Records prints in one statement, so a pack's files are recorded together or not at all. */
 export async function insertPrints(db: Db, records: NewPrintRecord[]): Promise<void> {
@@ -16,8 +23,17 @@ export async function insertPrints(db: Db, records: NewPrintRecord[]): Promise<v
 
 /** A board's print history, newest first (capped: the page shows recent prints, not an archive). */
 export async function listPrints(db: Db, boardId: number, limit = 200) {
-  return db.select({
-    id: prints.id, output: prints.output, media: prints.media, revision: prints.revision,
-    userName: prints.userName, createdAt: prints.createdAt,
-  }).from(prints).where(eq(prints.boardId, boardId)).orderBy(desc(prints.id)).limit(limit);
+  return db
+    .select({
+      id: prints.id,
+      output: prints.output,
+      media: prints.media,
+      revision: prints.revision,
+      userName: prints.userName,
+      createdAt: prints.createdAt,
+    })
+    .from(prints)
+    .where(eq(prints.boardId, boardId))
+    .orderBy(desc(prints.id))
+    .limit(limit);
 }

@@ -22,8 +22,9 @@ import { todayIso as today } from '../http/clock.js';
 import { findBoardState } from '../boards/repository.js';
 import { findOrganisation, updatePrintOffsetIfAt } from '../organisation/repository.js';
 
-export interface PrintedPdf extends RenderResult { filename: string }
-
+export interface PrintedPdf extends RenderResult {
+  filename: string;
+}
 
 /** A layout the engine cannot make (e.g. a QR too small on this tape): the message says what would work. */
 function cannotLayOut(err: LayoutError): AppError {
@@ -55,7 +56,9 @@ async function onlyWaysFor(ctx: AppContext, organisationId: number, source: Prin
   const before = await scheduleAtRevision(ctx.db, organisationId, source, since);
   const ways = waysChangedBetween(before, source.schedule);
   if (!ways.length) {
-    throw new AppError(422, 'nothing_changed', `No way's label changed since revision ${since}: nothing to print`, { changedSince: `Nothing changed since revision ${since}` });
+    throw new AppError(422, 'nothing_changed', `No way's label changed since revision ${since}: nothing to print`, {
+      changedSince: `Nothing changed since revision ${since}`,
+    });
   }
   return ways;
 }
@@ -92,8 +95,14 @@ export async function renderWith(ctx: AppContext, user: CurrentUser, source: Pri
 }
 
 /** The history row for one printed file. */
-export const printRecordFor = (user: CurrentUser, source: PrintSource, output: string, media: string): repo.NewPrintRecord =>
-  ({ boardId: source.board.id, userId: user.id, userName: user.name, output, media, revision: source.board.revision });
+export const printRecordFor = (user: CurrentUser, source: PrintSource, output: string, media: string): repo.NewPrintRecord => ({
+  boardId: source.board.id,
+  userId: user.id,
+  userName: user.name,
+  output,
+  media,
+  revision: source.board.revision,
+});
 
 /** One output as a PDF; recorded in the history when the query asks (`record=1`). */
 export async function printPdf(ctx: AppContext, user: CurrentUser, boardId: number, query: PrintQuery): Promise<PrintedPdf> {
@@ -115,7 +124,12 @@ export async function printCalibration(ctx: AppContext, user: CurrentUser, media
  * What a print would warn about, for the print page's list (never recorded). Laid out only, never
  * drawn: the list is asked for at every change of an option, and drawing is most of a print's cost.
  */
-export async function checkPrint(ctx: AppContext, user: CurrentUser, boardId: number, query: PrintQuery): Promise<{ warnings: PrintWarning[]; pageCount: number }> {
+export async function checkPrint(
+  ctx: AppContext,
+  user: CurrentUser,
+  boardId: number,
+  query: PrintQuery,
+): Promise<{ warnings: PrintWarning[]; pageCount: number }> {
   const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
   const req = await renderRequestFor(ctx, user, source, query);
   const layout = await engine(() => layoutOutput(req));
@@ -146,4 +160,3 @@ export async function setPrintOffset(ctx: AppContext, user: CurrentUser, save: P
   if (!won) throw stale('organisation', now.revision);
   return now;
 }
-

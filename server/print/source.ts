@@ -41,10 +41,7 @@ async function contractorOf(db: Db, organisationId: number): Promise<{ contracto
 export async function loadPrintSource(db: Db, config: ServerConfig, organisationId: number, boardId: number, today: string): Promise<PrintSource> {
   const row = await findBoardSchedule(db, organisationId, boardId);
   if (!row) throw notFound('No such board');
-  const [{ contractor, offset }, current] = await Promise.all([
-    contractorOf(db, organisationId),
-    findRevision(db, organisationId, row.id, row.revision),
-  ]);
+  const [{ contractor, offset }, current] = await Promise.all([contractorOf(db, organisationId), findRevision(db, organisationId, row.id, row.revision)]);
   const schedule = row.schedule;
   const board: BoardMeta = {
     id: row.id,
@@ -64,7 +61,9 @@ export async function loadPrintSource(db: Db, config: ServerConfig, organisation
  */
 export async function scheduleAtRevision(db: Db, organisationId: number, source: PrintSource, revision: number): Promise<Schedule> {
   if (revision > source.board.revision) {
-    throw invalid(`The board is at revision ${source.board.revision}`, { changedSince: `No revision ${revision} yet: the board is at revision ${source.board.revision}` });
+    throw invalid(`The board is at revision ${source.board.revision}`, {
+      changedSince: `No revision ${revision} yet: the board is at revision ${source.board.revision}`,
+    });
   }
   const found = await findRevision(db, organisationId, source.board.id, revision);
   if (!found) throw invalid(`Revision ${revision} is not stored`, { changedSince: `Revision ${revision} is not stored for this board` });
@@ -79,7 +78,13 @@ export async function loadCalibrationSource(db: Db, config: ServerConfig, organi
   const { contractor, offset } = await contractorOf(db, organisationId);
   const schedule = scheduleSchema.parse({ board: { name: 'Printer calibration', supply: { earthing: 'TN-C-S' } }, devices: [], circuits: [] });
   const board: BoardMeta = {
-    id: 0, code: 'CALIBRATION', publicUrl: config.publicBaseUrl, publicEnabled: false, revision: 0, revisionDate: today, nextInspectionOn: null,
+    id: 0,
+    code: 'CALIBRATION',
+    publicUrl: config.publicBaseUrl,
+    publicEnabled: false,
+    revision: 0,
+    revisionDate: today,
+    nextInspectionOn: null,
   };
   return { schedule, board, contractor, findings: [], offset, maxZsByCircuit: {} };
 }

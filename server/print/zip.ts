@@ -5,7 +5,10 @@
  */
 import { ZipArchive } from 'archiver';
 
-export interface ZipEntry { name: string; data: Uint8Array | string }
+export interface ZipEntry {
+  name: string;
+  data: Uint8Array | string;
+}
 
 export async function zipEntries(entries: ZipEntry[], date = new Date()): Promise<Buffer> {
   const archive = new ZipArchive({ zlib: { level: 6 } });

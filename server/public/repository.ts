@@ -50,7 +50,9 @@ const livePage = and(eq(boards.publicEnabled, true), isNull(boards.deletedAt));
  * time assembling the same SQL again.
  */
 function buildHeadQuery(db: Db) {
-  return db.select(headColumns()).from(boards)
+  return db
+    .select(headColumns())
+    .from(boards)
     .innerJoin(organisations, eq(organisations.id, boards.organisationId))
     .where(and(eq(boards.publicToken, sql.placeholder('token')), livePage))
     .limit(1)
@@ -65,11 +67,14 @@ function toHead({ boardName, name, contactPhone, contactEmail, hasLogo, publicTo
 /** Heads for several tokens in one statement (the prepared one when there is a single token). */
 async function findHeads(db: Db, query: ReturnType<typeof buildHeadQuery>, tokens: readonly string[]): Promise<(PublicBoardHead | null)[]> {
   const distinct = [...new Set(tokens)];
-  const rows = distinct.length === 1
-    ? await query.execute({ token: distinct[0]! })
-    : await db.select(headColumns()).from(boards)
-      .innerJoin(organisations, eq(organisations.id, boards.organisationId))
-      .where(and(inArray(boards.publicToken, distinct), livePage));
+  const rows =
+    distinct.length === 1
+      ? await query.execute({ token: distinct[0]! })
+      : await db
+          .select(headColumns())
+          .from(boards)
+          .innerJoin(organisations, eq(organisations.id, boards.organisationId))
+          .where(and(inArray(boards.publicToken, distinct), livePage));
   const byToken = new Map(rows.map((r) => [r.publicToken, toHead(r)]));
   return tokens.map((t) => byToken.get(t) ?? null);
 }
@@ -87,15 +92,23 @@ function buildHeadLoader(db: Db): DataLoader<string, PublicBoardHead | null> {
   return new DataLoader(
     (tokens) => {
       const read = findHeads(db, query, tokens);
-      const settled = read.then(() => undefined, () => undefined);
+      const settled = read.then(
+        () => undefined,
+        () => undefined,
+      );
       onWire = settled;
-      void settled.then(() => { if (onWire === settled) onWire = null; });
+      void settled.then(() => {
+        if (onWire === settled) onWire = null;
+      });
       return read;
     },
     {
       cache: false,
       maxBatchSize: 200,
-      batchScheduleFn: (dispatch) => { if (onWire) void onWire.then(() => setImmediate(dispatch)); else setImmediate(dispatch); },
+      batchScheduleFn: (dispatch) => {
+        if (onWire) void onWire.then(() => setImmediate(dispatch));
+        else setImmediate(dispatch);
+      },
     },
   );
 }
@@ -124,4 +137,3 @@ export async function findPublicBoard(db: Db, token: string): Promise<PublicBoar
   const body = head && (await findPublicBoardBody(db, head.id));
   return head && body ? { ...head, ...body } : null;
 }
-

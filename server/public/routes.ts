@@ -22,7 +22,10 @@ const BOARD_REPORTS_FACTOR = 3;
 
 function limiter(windowMs: number, limit: number, message: string, keyGenerator?: (req: Request) => string) {
   return rateLimit({
-    windowMs, limit, standardHeaders: 'draft-7', legacyHeaders: false,
+    windowMs,
+    limit,
+    standardHeaders: 'draft-7',
+    legacyHeaders: false,
     keyGenerator: keyGenerator ?? addressKey,
     handler: (_req: Request, _res: Response, next: NextFunction) => next(tooMany(message, Math.ceil(windowMs / 1000))),
   });
@@ -48,7 +51,10 @@ export function publicRoutes(ctx: AppContext): Router {
   const limits = ctx.config.rateLimits;
   r.use(limiter(MINUTE, limits.publicPerMinute, 'Too many requests; wait a minute and try again'));
   // The page is read-only and may change at any save, token rotation or switch-off: no shared caches, no indexing.
-  r.use((_req, res, next) => { res.set({ 'Cache-Control': 'no-store', 'X-Robots-Tag': 'noindex, nofollow' }); next(); });
+  r.use((_req, res, next) => {
+    res.set({ 'Cache-Control': 'no-store', 'X-Robots-Tag': 'noindex, nofollow' });
+    next();
+  });
 
   r.get('/boards/:token', async (req, res) => {
     // Serialised once per revision; the entity tag set here spares Express hashing the body again.
@@ -58,14 +64,16 @@ export function publicRoutes(ctx: AppContext): Router {
   r.get('/boards/:token/logo', async (req, res) => {
     sendImage(res, await publicLogo(ctx.db, token(req)), 'no-store');
   });
-  r.post('/boards/:token/reports',
+  r.post(
+    '/boards/:token/reports',
     limiter(HOUR, limits.reportsPerHour, 'Too many reports from this connection; try again later'),
     limiter(HOUR, limits.reportsPerHour * BOARD_REPORTS_FACTOR, 'This board has had many reports recently; try again later', (req) => `board:${token(req)}`),
     async (req, res) => {
       const input = parse(reportSubmitSchema, req.body);
       await submitReport(ctx, await boardForToken(ctx.db, token(req)), input);
       res.status(202).json({ received: true });
-    });
+    },
+  );
   return r;
 }
 

@@ -38,7 +38,11 @@ export async function boardForToken(db: Db, token: string) {
  * process); only fetching, parsing and projecting the schedule document is saved.
  */
 /** A board page serialised once per projection, with its entity tag. */
-export interface PublicBoardBody { page: PublicBoard; json: Buffer; etag: string }
+export interface PublicBoardBody {
+  page: PublicBoard;
+  json: Buffer;
+  etag: string;
+}
 
 /**
  * Bytes the projections may hold together. Bounded by size, not by count: one tenant's 2,000-way

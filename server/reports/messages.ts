@@ -15,7 +15,11 @@ export interface ReportMailInput {
   reviewUrl: string;
 }
 
-const quote = (text: string) => text.split(/\r?\n/).map((line) => `> ${line}`).join('\n');
+const quote = (text: string) =>
+  text
+    .split(/\r?\n/)
+    .map((line) => `> ${line}`)
+    .join('\n');
 
 export function reportMail(input: ReportMailInput): { subject: string; text: string } {
   // Everything the visitor typed sits below a label, each line behind "> ", so none of it can pass

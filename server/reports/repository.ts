@@ -24,37 +24,58 @@ export async function insertReport(db: Db, report: { boardId: number; message: s
 }
 
 const reportColumns = {
-  id: reports.id, message: reports.message, reporterName: reports.reporterName, reporterContact: reports.reporterContact,
-  status: reports.status, resolvedByName: users.name, resolvedAt: reports.resolvedAt, createdAt: reports.createdAt,
+  id: reports.id,
+  message: reports.message,
+  reporterName: reports.reporterName,
+  reporterContact: reports.reporterContact,
+  status: reports.status,
+  resolvedByName: users.name,
+  resolvedAt: reports.resolvedAt,
+  createdAt: reports.createdAt,
 };
 
 /** Open reports first, newest first within each status. */
 export async function listReports(db: Db, boardId: number): Promise<ReportRow[]> {
-  const rows = await db.select(reportColumns).from(reports).leftJoin(users, eq(users.id, reports.resolvedBy))
-    .where(eq(reports.boardId, boardId)).orderBy(asc(reports.status), desc(reports.id));
+  const rows = await db
+    .select(reportColumns)
+    .from(reports)
+    .leftJoin(users, eq(users.id, reports.resolvedBy))
+    .where(eq(reports.boardId, boardId))
+    .orderBy(asc(reports.status), desc(reports.id));
   return rows;
 }
 
 export async function findReport(db: Db, boardId: number, reportId: number): Promise<ReportRow | null> {
-  const [row] = await db.select(reportColumns).from(reports).leftJoin(users, eq(users.id, reports.resolvedBy))
-    .where(and(eq(reports.boardId, boardId), eq(reports.id, reportId))).limit(1);
+  const [row] = await db
+    .select(reportColumns)
+    .from(reports)
+    .leftJoin(users, eq(users.id, reports.resolvedBy))
+    .where(and(eq(reports.boardId, boardId), eq(reports.id, reportId)))
+    .limit(1);
   return row ?? null;
 }
 
 export async function resolveReport(db: Db, boardId: number, reportId: number, status: Exclude<ReportStatus, 'open'>, userId: number): Promise<boolean> {
-  const [result] = await db.update(reports).set({ status, resolvedBy: userId, resolvedAt: new Date() })
+  const [result] = await db
+    .update(reports)
+    .set({ status, resolvedBy: userId, resolvedAt: new Date() })
     .where(and(eq(reports.boardId, boardId), eq(reports.id, reportId)));
   return result.affectedRows > 0;
 }
 
 export async function countOpenReports(db: Db, boardId: number): Promise<number> {
-  const [row] = await db.select({ n: count() }).from(reports).where(and(eq(reports.boardId, boardId), eq(reports.status, 'open')));
+  const [row] = await db
+    .select({ n: count() })
+    .from(reports)
+    .where(and(eq(reports.boardId, boardId), eq(reports.status, 'open')));
   return Number(row?.n ?? 0);
 }
 
 /** E-mail addresses of the organisation's active owners: where reports go when no contact address is set. */
 export async function ownerEmails(db: Db, organisationId: number): Promise<string[]> {
-  const rows = await db.select({ email: users.email }).from(users)
+  const rows = await db
+    .select({ email: users.email })
+    .from(users)
     .where(and(eq(users.organisationId, organisationId), eq(users.role, 'owner'), eq(users.disabled, false)));
   return rows.map((r) => r.email);
 }

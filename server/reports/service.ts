@@ -47,7 +47,11 @@ async function notifyOrganisation(ctx: AppContext, organisationId: number, to: s
 
 /** What a report needs of the board it is sent from (the board page resolves its token to it). */
 export interface ReportedBoard {
-  id: number; organisationId: number; name: string; code: string; schedule: unknown;
+  id: number;
+  organisationId: number;
+  name: string;
+  code: string;
+  schedule: unknown;
   organisation: { contactEmail: string | null };
 }
 
@@ -60,28 +64,50 @@ export async function submitReport(ctx: AppContext, board: ReportedBoard, input:
   const schedule = readStoredSchedule(board.schedule);
   checkReportedWay(schedule, input);
   await repo.insertReport(ctx.db, {
-    boardId: board.id, message: storedMessage(input), reporterName: input.name ?? '', reporterContact: input.contact ?? '',
+    boardId: board.id,
+    message: storedMessage(input),
+    reporterName: input.name ?? '',
+    reporterContact: input.contact ?? '',
   });
   const to = board.organisation.contactEmail ? [board.organisation.contactEmail] : await repo.ownerEmails(ctx.db, board.organisationId);
-  await notifyOrganisation(ctx, board.organisationId, to, reportMail({
-    boardName: board.name, boardCode: board.code, way: reportedWay(input), message: input.message,
-    reporterName: input.name ?? '', reporterContact: input.contact ?? '',
-    reviewUrl: `${ctx.config.publicBaseUrl}/boards/${board.id}/page`,
-  }));
+  await notifyOrganisation(
+    ctx,
+    board.organisationId,
+    to,
+    reportMail({
+      boardName: board.name,
+      boardCode: board.code,
+      way: reportedWay(input),
+      message: input.message,
+      reporterName: input.name ?? '',
+      reporterContact: input.contact ?? '',
+      reviewUrl: `${ctx.config.publicBaseUrl}/boards/${board.id}/page`,
+    }),
+  );
 }
 
 const toReport = (row: repo.ReportRow): Report => ({
-  ...row, resolvedAt: row.resolvedAt ? row.resolvedAt.toISOString() : null, createdAt: row.createdAt.toISOString(),
+  ...row,
+  resolvedAt: row.resolvedAt ? row.resolvedAt.toISOString() : null,
+  createdAt: row.createdAt.toISOString(),
 });
 
-const requireBoard = async (db: Db, organisationId: number, boardId: number) => { await requireMemberBoard(db, organisationId, boardId); };
+const requireBoard = async (db: Db, organisationId: number, boardId: number) => {
+  await requireMemberBoard(db, organisationId, boardId);
+};
 
 export async function boardReports(db: Db, organisationId: number, boardId: number): Promise<Report[]> {
   await requireBoard(db, organisationId, boardId);
   return (await repo.listReports(db, boardId)).map(toReport);
 }
 
-export async function resolveBoardReport(db: Db, user: { id: number; organisationId: number }, boardId: number, reportId: number, input: ReportResolve): Promise<Report> {
+export async function resolveBoardReport(
+  db: Db,
+  user: { id: number; organisationId: number },
+  boardId: number,
+  reportId: number,
+  input: ReportResolve,
+): Promise<Report> {
   await requireBoard(db, user.organisationId, boardId);
   if (!(await repo.resolveReport(db, boardId, reportId, input.status, user.id))) throw notFound('No such report');
   const row = await repo.findReport(db, boardId, reportId);

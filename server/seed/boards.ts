@@ -30,13 +30,20 @@ function insertOrder(boards: DemoBoard[]): DemoBoard[] {
   while (order.length < boards.length) {
     const ready = boards.filter((b) => !done.has(b.key) && boards.every((c) => c.feedsFromKey !== b.key || done.has(c.key)));
     if (!ready.length) throw new Error('The demo boards feed each other in a loop');
-    for (const b of ready) { done.add(b.key); order.push(b); }
+    for (const b of ready) {
+      done.add(b.key);
+      order.push(b);
+    }
   }
   return order;
 }
 
 export const seedDemoBoards: DemoBoardsSeeder = async (db: Db, organisationId: number, ownerId: number) => {
-  const [owner] = await db.select({ name: users.name }).from(users).where(and(eq(users.id, ownerId), eq(users.organisationId, organisationId))).limit(1);
+  const [owner] = await db
+    .select({ name: users.name })
+    .from(users)
+    .where(and(eq(users.id, ownerId), eq(users.organisationId, organisationId)))
+    .limit(1);
   if (!owner) throw new Error(`No owner ${ownerId} in organisation ${organisationId}`);
   const actor: Actor = { id: ownerId, name: owner.name, organisationId };
   await inTransaction(db, async (tx) => {

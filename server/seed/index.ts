@@ -27,7 +27,10 @@ export async function seedDemo(db: Db, seedBoards?: DemoBoardsSeeder): Promise<'
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   return inTransaction(db, async (tx) => {
     const organisationId = await insertOrganisation(tx, DEMO_CONTRACTOR);
-    await tx.update(organisations).set({ contactPhone: '01632 960 418', contactEmail: 'office@quillmarsh.example' }).where(eq(organisations.id, organisationId));
+    await tx
+      .update(organisations)
+      .set({ contactPhone: '01632 960 418', contactEmail: 'office@quillmarsh.example' })
+      .where(eq(organisations.id, organisationId));
     let ownerId = 0;
     for (const u of DEMO_USERS) {
       const id = await insertUser(tx, { organisationId, email: u.email, name: u.name, role: u.role, passwordHash });

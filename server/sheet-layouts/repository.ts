@@ -9,12 +9,19 @@ import type { SheetLayout } from '../../shared/schemas/print.js';
 import type { SheetLayoutRecord } from '../../shared/schemas/print-records.js';
 
 const columns = {
-  id: sheetLayouts.id, name: sheetLayouts.name,
-  pageWidthMm: sheetLayouts.pageWidthMm, pageHeightMm: sheetLayouts.pageHeightMm,
-  labelWidthMm: sheetLayouts.labelWidthMm, labelHeightMm: sheetLayouts.labelHeightMm,
-  columns: sheetLayouts.columns, rows: sheetLayouts.rows,
-  marginTopMm: sheetLayouts.marginTopMm, marginLeftMm: sheetLayouts.marginLeftMm,
-  gapXMm: sheetLayouts.gapXMm, gapYMm: sheetLayouts.gapYMm, cornerRadiusMm: sheetLayouts.cornerRadiusMm,
+  id: sheetLayouts.id,
+  name: sheetLayouts.name,
+  pageWidthMm: sheetLayouts.pageWidthMm,
+  pageHeightMm: sheetLayouts.pageHeightMm,
+  labelWidthMm: sheetLayouts.labelWidthMm,
+  labelHeightMm: sheetLayouts.labelHeightMm,
+  columns: sheetLayouts.columns,
+  rows: sheetLayouts.rows,
+  marginTopMm: sheetLayouts.marginTopMm,
+  marginLeftMm: sheetLayouts.marginLeftMm,
+  gapXMm: sheetLayouts.gapXMm,
+  gapYMm: sheetLayouts.gapYMm,
+  cornerRadiusMm: sheetLayouts.cornerRadiusMm,
   revision: sheetLayouts.revision,
 };
 
@@ -23,13 +30,19 @@ export async function listSheetLayouts(db: Db, organisationId: number): Promise<
 }
 
 export async function findSheetLayout(db: Db, organisationId: number, id: number): Promise<SheetLayoutRecord | null> {
-  const [row] = await db.select(columns).from(sheetLayouts)
-    .where(and(eq(sheetLayouts.id, id), eq(sheetLayouts.organisationId, organisationId))).limit(1);
+  const [row] = await db
+    .select(columns)
+    .from(sheetLayouts)
+    .where(and(eq(sheetLayouts.id, id), eq(sheetLayouts.organisationId, organisationId)))
+    .limit(1);
   return row ?? null;
 }
 
 export async function insertSheetLayout(db: Db, organisationId: number, layout: SheetLayout): Promise<number> {
-  const [res] = await db.insert(sheetLayouts).values({ ...layout, organisationId }).$returningId();
+  const [res] = await db
+    .insert(sheetLayouts)
+    .values({ ...layout, organisationId })
+    .$returningId();
   return res.id;
 }
 
@@ -38,7 +51,9 @@ export async function insertSheetLayout(db: Db, organisationId: number, layout: 
  * matched row always changes, so 0 affected rows is a missing or stale row, never an unchanged one.
  */
 export async function updateSheetLayoutIfAt(db: Db, organisationId: number, id: number, baseRevision: number, layout: SheetLayout): Promise<boolean> {
-  const [res] = await db.update(sheetLayouts).set({ ...layout, revision: sql`${sheetLayouts.revision} + 1` })
+  const [res] = await db
+    .update(sheetLayouts)
+    .set({ ...layout, revision: sql`${sheetLayouts.revision} + 1` })
     .where(and(eq(sheetLayouts.id, id), eq(sheetLayouts.organisationId, organisationId), eq(sheetLayouts.revision, baseRevision)));
   return res.affectedRows > 0;
 }

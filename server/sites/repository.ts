@@ -12,8 +12,16 @@ import { likeContains } from '../boards/stored.js';
 // Written out in SQL: in a one-table select Drizzle leaves column names unqualified, which inside a subquery would bind to the wrong table.
 const boardCount = sql<number>`(SELECT COUNT(*) FROM \`boards\` AS b WHERE b.site_id = \`sites\`.\`id\` AND b.deleted_at IS NULL)`;
 const columns = {
-  id: sites.id, reference: sites.reference, clientName: sites.clientName, address: sites.address, clientEmail: sites.clientEmail,
-  clientPhone: sites.clientPhone, notes: sites.notes, createdAt: sites.createdAt, boardCount, revision: sites.revision,
+  id: sites.id,
+  reference: sites.reference,
+  clientName: sites.clientName,
+  address: sites.address,
+  clientEmail: sites.clientEmail,
+  clientPhone: sites.clientPhone,
+  notes: sites.notes,
+  createdAt: sites.createdAt,
+  boardCount,
+  revision: sites.revision,
 };
 type Row = { createdAt: Date; boardCount: number } & Omit<Site, 'createdAt' | 'boardCount'>;
 const toSite = (r: Row): Site => ({ ...r, createdAt: r.createdAt.toISOString(), boardCount: Number(r.boardCount) });
@@ -25,41 +33,66 @@ export async function listSites(db: Db, organisationId: number, q?: string): Pro
     const p = likeContains(word);
     conditions.push(or(like(sites.reference, p), like(sites.clientName, p), like(sites.address, p))!);
   }
-  const rows = await db.select(columns).from(sites).where(and(...conditions)).orderBy(asc(sites.reference), asc(sites.id));
+  const rows = await db
+    .select(columns)
+    .from(sites)
+    .where(and(...conditions))
+    .orderBy(asc(sites.reference), asc(sites.id));
   return rows.map(toSite);
 }
 
 export async function findSite(db: Db, organisationId: number, id: number): Promise<Site | null> {
-  const [row] = await db.select(columns).from(sites).where(and(eq(sites.id, id), eq(sites.organisationId, organisationId))).limit(1);
+  const [row] = await db
+    .select(columns)
+    .from(sites)
+    .where(and(eq(sites.id, id), eq(sites.organisationId, organisationId)))
+    .limit(1);
   return row ? toSite(row) : null;
 }
 
 /** The site's boards that are not deleted, most recently changed first. */
 export async function siteBoards(db: Db, organisationId: number, siteId: number): Promise<BoardListItem[]> {
-  const rows = await db.select({
-    id: boards.id, name: boards.name, location: boards.location, code: boards.code, siteId: boards.siteId, siteReference: sites.reference,
-    revision: boards.revision, updatedAt: boards.updatedAt, circuitCount: sql<number>`JSON_LENGTH(${boards.schedule}, '$.circuits')`,
-  }).from(boards).innerJoin(sites, eq(sites.id, boards.siteId))
+  const rows = await db
+    .select({
+      id: boards.id,
+      name: boards.name,
+      location: boards.location,
+      code: boards.code,
+      siteId: boards.siteId,
+      siteReference: sites.reference,
+      revision: boards.revision,
+      updatedAt: boards.updatedAt,
+      circuitCount: sql<number>`JSON_LENGTH(${boards.schedule}, '$.circuits')`,
+    })
+    .from(boards)
+    .innerJoin(sites, eq(sites.id, boards.siteId))
     .where(and(eq(boards.siteId, siteId), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
     .orderBy(desc(boards.updatedAt), desc(boards.id));
   return rows.map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString(), circuitCount: Number(r.circuitCount), deletedAt: null }));
 }
 
 export async function insertSite(db: Db, organisationId: number, input: SiteInput): Promise<number> {
-  const [res] = await db.insert(sites).values({ ...input, organisationId }).$returningId();
+  const [res] = await db
+    .insert(sites)
+    .values({ ...input, organisationId })
+    .$returningId();
   return res.id;
 }
 
 /** Writes only while the site is still at `baseRevision`, and bumps it: true when it did (of two saves from one revision, one wins). */
 export async function updateSiteIfAt(db: Db, organisationId: number, id: number, baseRevision: number, input: SiteInput): Promise<boolean> {
-  const [res] = await db.update(sites).set({ ...input, revision: sql`${sites.revision} + 1` })
+  const [res] = await db
+    .update(sites)
+    .set({ ...input, revision: sql`${sites.revision} + 1` })
     .where(and(eq(sites.id, id), eq(sites.organisationId, organisationId), eq(sites.revision, baseRevision)));
   return res.affectedRows > 0;
 }
 
 /** Deleted boards keep their schedule but let go of the site, so the site row can go. */
 export async function detachDeletedBoards(db: Db, organisationId: number, siteId: number): Promise<void> {
-  await db.update(boards).set({ siteId: null })
+  await db
+    .update(boards)
+    .set({ siteId: null })
     .where(and(eq(boards.siteId, siteId), eq(boards.organisationId, organisationId), isNotNull(boards.deletedAt)));
 }
 

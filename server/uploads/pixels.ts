@@ -17,22 +17,33 @@ export const LOGO_STORED_SIDE_PX = 600;
 /** Longest side a photo is stored at: enough to read a device's markings on a phone screen. */
 export const PHOTO_STORED_SIDE_PX = 2000;
 
-export interface StoredUpload { mime: ImageMime; data: Buffer; width: number; height: number }
+export interface StoredUpload {
+  mime: ImageMime;
+  data: Buffer;
+  width: number;
+  height: number;
+}
 
 /** Reads the declared size, refuses zero or absurd ones with a 400 naming the limit, and stores at most `storedSide` on the longest side. */
 export async function fitUpload(image: { mime: ImageMime; data: Buffer }, what: string, storedSide: number): Promise<StoredUpload> {
-  const meta = await sharp(image.data, { limitInputPixels: false }).metadata().catch(() => null);
+  const meta = await sharp(image.data, { limitInputPixels: false })
+    .metadata()
+    .catch(() => null);
   const width = meta?.width ?? 0;
   const height = meta?.height ?? 0;
   if (!width || !height) throw invalid(`The ${what} has no readable size; save it again as PNG or JPEG`, { file: 'The image header gives no width or height' });
   if (width > MAX_SIDE_PX || height > MAX_SIDE_PX || width * height > MAX_PIXELS) {
-    throw invalid(`The ${what} is ${width} × ${height} pixels; at most ${MAX_SIDE_PX} pixels a side and ${MAX_PIXELS / 1_000_000} megapixels are accepted`,
-      { file: `At most ${MAX_SIDE_PX} × ${MAX_SIDE_PX} pixels and ${MAX_PIXELS / 1_000_000} megapixels` });
+    throw invalid(`The ${what} is ${width} × ${height} pixels; at most ${MAX_SIDE_PX} pixels a side and ${MAX_PIXELS / 1_000_000} megapixels are accepted`, {
+      file: `At most ${MAX_SIDE_PX} × ${MAX_SIDE_PX} pixels and ${MAX_PIXELS / 1_000_000} megapixels`,
+    });
   }
-  const pipeline = sharp(image.data, { limitInputPixels: MAX_PIXELS }).rotate()
+  const pipeline = sharp(image.data, { limitInputPixels: MAX_PIXELS })
+    .rotate()
     .resize({ width: storedSide, height: storedSide, fit: 'inside', withoutEnlargement: true });
   const out = await (image.mime === 'image/png' ? pipeline.png({ compressionLevel: 9 }) : pipeline.jpeg({ quality: 85 }))
     .toBuffer({ resolveWithObject: true })
-    .catch(() => { throw invalid(`The ${what} could not be read; save it again as PNG or JPEG`, { file: 'The image data is damaged' }); });
+    .catch(() => {
+      throw invalid(`The ${what} could not be read; save it again as PNG or JPEG`, { file: 'The image data is damaged' });
+    });
   return { mime: image.mime, data: out.data, width: out.info.width, height: out.info.height };
 }

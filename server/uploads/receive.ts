@@ -19,7 +19,9 @@ function uploadError(err: unknown, maxBytes: number, what: string): unknown {
     return err instanceof Error ? invalid(`The upload could not be read: ${err.message}`, { file: 'Not a valid upload' }) : err;
   }
   if (err.code === 'LIMIT_FILE_SIZE') {
-    return new AppError(413, 'too_large', `The ${what} is larger than ${megabytes(maxBytes)}; choose a smaller file`, { file: `At most ${megabytes(maxBytes)}` });
+    return new AppError(413, 'too_large', `The ${what} is larger than ${megabytes(maxBytes)}; choose a smaller file`, {
+      file: `At most ${megabytes(maxBytes)}`,
+    });
   }
   if (err.code === 'LIMIT_UNEXPECTED_FILE' || err.code === 'LIMIT_FILE_COUNT') {
     return invalid('Send one file, in the form field "file"', { file: 'Exactly one file in the field "file"' });

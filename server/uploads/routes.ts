@@ -12,7 +12,6 @@ import { LOGO_MAX_BYTES, PHOTO_MAX_BYTES, receiveOneFile, uploadedImage } from '
 import { fitUpload, LOGO_STORED_SIDE_PX, PHOTO_STORED_SIDE_PX } from './pixels.js';
 import * as uploads from './service.js';
 
-
 /** Mounted at `/organisation/logo`. */
 export function logoRoutes(ctx: AppContext): Router {
   const r = Router();

@@ -5,7 +5,11 @@
 import type { BoardDetails } from '../schemas/schedule.js';
 
 const ALTERNATIVE_SUPPLY_NAMES: Record<BoardDetails['alternativeSupply']['kinds'][number], string> = {
-  pv: 'solar PV', battery: 'battery storage', generator: 'a generator', wind: 'a wind turbine', other: 'another source',
+  pv: 'solar PV',
+  battery: 'battery storage',
+  generator: 'a generator',
+  wind: 'a wind turbine',
+  other: 'another source',
 };
 
 /** Cautions that apply to every board, in the order a visitor should read them. */

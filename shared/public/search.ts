@@ -9,13 +9,18 @@ import type { PublicWay } from '../schemas/public-board.js';
 
 /** Lower case without accents, so "Cafe" finds "Café". */
 export function foldText(s: string): string {
-  return s.normalize('NFD').replace(/[\u0300-\u036f]/g, '').toLowerCase();
+  return s
+    .normalize('NFD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase();
 }
 
 /** The words of a query; punctuation separates words, and "4l2" is read as "4 l2". */
 export function queryWords(query: string): string[] {
-  return foldText(query).split(/[^\p{L}\p{N}]+/u).filter(Boolean)
-    .flatMap((word) => /^\d+l[123]$/.exec(word) ? [word.slice(0, -2), word.slice(-2)] : [word]);
+  return foldText(query)
+    .split(/[^\p{L}\p{N}]+/u)
+    .filter(Boolean)
+    .flatMap((word) => (/^\d+l[123]$/.exec(word) ? [word.slice(0, -2), word.slice(-2)] : [word]));
 }
 
 const WAY_WORDS = new Set(['way', 'ways']);

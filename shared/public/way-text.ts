@@ -23,9 +23,7 @@ export function wayProtectionText(way: Pick<PublicWay, 'rcd' | 'feedsAnotherBoar
       ? `Own RCBO${ma}: when it trips, this way and everything on the board it feeds go off`
       : `Own RCBO${ma}: only this way goes off when it trips`;
   }
-  return way.feedsAnotherBoard
-    ? `Goes off when ${rcd.name}${ma} trips, and so does everything on the board it feeds`
-    : `Goes off when ${rcd.name}${ma} trips`;
+  return way.feedsAnotherBoard ? `Goes off when ${rcd.name}${ma} trips, and so does everything on the board it feeds` : `Goes off when ${rcd.name}${ma} trips`;
 }
 
 /** "No RCD protection is recorded for way 4." or "… for ways 1, 2 and 3."; empty when every way has one. */

@@ -19,8 +19,9 @@ export const DEFAULT_RULE_SET_ID = 'bs7671-2018-a2';
 export const ruleSets: ReadonlyMap<string, RuleSet> = new Map([[bs7671.id, bs7671]]);
 
 /** The caution shown with findings wherever they appear. */
-export const CHECKS_CAUTION = 'These checks help and do not replace the judgement of the designer and the inspector. '
-  + 'Confirm every value against the current edition of the wiring regulations and local codes; work on installations is for competent persons only.';
+export const CHECKS_CAUTION =
+  'These checks help and do not replace the judgement of the designer and the inspector. ' +
+  'Confirm every value against the current edition of the wiring regulations and local codes; work on installations is for competent persons only.';
 
 /** The rule set for an id; an unknown id is a programming mistake, so it throws. */
 export function getRuleSet(id: string = DEFAULT_RULE_SET_ID): RuleSet {
@@ -51,7 +52,7 @@ export function maxZsFor(schedule: Schedule, circuit: Circuit, ruleSetId: string
   if (!limits) return null;
   // The circuit as found in the schedule; a copy (e.g. from a form) is matched by its id.
   const own = limits.has(circuit) ? circuit : schedule.circuits.find((c) => c.id === circuit.id);
-  return own ? limits.get(own) ?? null : null;
+  return own ? (limits.get(own) ?? null) : null;
 }
 
 /** Maximum Zs for every circuit by circuit id, the map the print engine's chart takes. */

@@ -16,17 +16,20 @@ import { legsOf } from './legs.js';
 /** Modules a planned device takes on the DIN rail (DIN 43880 module, 17.5 mm): one-module MCBs and RCBOs, a two-module RCD. */
 const MODULES = { mcb: 1, rcbo: 1, rcd: 2 } as const; // common practice
 
-export type PlanOutcome =
-  | { ok: true; schedule: Schedule; created: string[]; updated: string[] }
-  | { ok: false; fields: Record<string, string> };
+export type PlanOutcome = { ok: true; schedule: Schedule; created: string[]; updated: string[] } | { ok: false; fields: Record<string, string> };
 
 /** The id of the device the plan makes for a circuit. */
 export const plannedDeviceId = (circuitId: string) => `dev-${circuitId}`.slice(0, 40);
 
 const moves = (w: SurveyWay) => w.action === 'keep' || w.action === 'split' || w.action === 'join';
 
-
-interface Contribution { way: SurveyWay; index: number; target: PlannedWay; j: number; legs: number[] }
+interface Contribution {
+  way: SurveyWay;
+  index: number;
+  target: PlannedWay;
+  j: number;
+  legs: number[];
+}
 
 /** Everything wrong with the plan that stops it being applied, by field. */
 function planProblems(schedule: Schedule, groups: Map<string, Contribution[]>): Record<string, string> {
@@ -35,12 +38,18 @@ function planProblems(schedule: Schedule, groups: Map<string, Contribution[]>): 
   const boxes = new Set(survey.junctionBoxes.map((b) => b.id));
   survey.ways.forEach((w, i) => {
     const at = `survey.ways.${i}`;
-    if (w.action == null) { fields[`${at}.action`] = `Old ${w.reference} has no plan: keep, split, join, retire or spare`; return; }
+    if (w.action == null) {
+      fields[`${at}.action`] = `Old ${w.reference} has no plan: keep, split, join, retire or spare`;
+      return;
+    }
     if (!moves(w)) {
       if (w.targets.length) fields[`${at}.targets`] = `Old ${w.reference} is marked ${w.action} but names new ways: remove them or change the plan`;
       return;
     }
-    if (!w.targets.length) { fields[`${at}.targets`] = `Old ${w.reference} is planned to ${w.action} but names no new way`; return; }
+    if (!w.targets.length) {
+      fields[`${at}.targets`] = `Old ${w.reference} is planned to ${w.action} but names no new way`;
+      return;
+    }
     const landed = new Set(w.targets.flatMap((t) => legsOf(w, t)));
     const missing = Array.from({ length: w.legs }, (_, k) => k + 1).filter((leg) => !landed.has(leg));
     if (missing.length) fields[`${at}.targets`] = `Old ${w.reference}: leg ${missing.join(' and ')} of ${w.legs} lands on no new way`;
@@ -58,7 +67,8 @@ function planProblems(schedule: Schedule, groups: Map<string, Contribution[]>): 
     const first = list[0]!;
     for (const c of list.slice(1)) {
       if (c.target.way !== first.target.way || c.target.phase !== first.target.phase) {
-        fields[`survey.ways.${c.index}.targets.${c.j}.way`] = `Joined onto ${circuitId}, which is planned for way ${wayText(first.target)}: use one way for a joined circuit`;
+        fields[`survey.ways.${c.index}.targets.${c.j}.way`] =
+          `Joined onto ${circuitId}, which is planned for way ${wayText(first.target)}: use one way for a joined circuit`;
       }
     }
     const slot = wayText(first.target);
@@ -94,10 +104,22 @@ function placeDevice(schedule: Schedule, modules: number): number {
 function rcdNamed(schedule: Schedule, name: string, t: PlannedWay): Device {
   const found = schedule.devices.find((d) => d.kind === 'rcd' && d.label === name);
   if (found) return found;
-  const id = `rcd-${name.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-|-$/g, '') || 'x'}`.slice(0, 40);
+  const id = `rcd-${
+    name
+      .toLowerCase()
+      .replace(/[^a-z0-9]+/g, '-')
+      .replace(/^-|-$/g, '') || 'x'
+  }`.slice(0, 40);
   const rcd = deviceSchema.parse({
-    id, row: placeDevice(schedule, MODULES.rcd), kind: 'rcd', modules: MODULES.rcd, poles: 2, rating: 63, // common practice: a 63 A two-pole RCD
-    residualMa: t.device.residualMa ?? 30, rcdType: t.device.rcdType ?? 'A', label: name,
+    id,
+    row: placeDevice(schedule, MODULES.rcd),
+    kind: 'rcd',
+    modules: MODULES.rcd,
+    poles: 2,
+    rating: 63, // common practice: a 63 A two-pole RCD
+    residualMa: t.device.residualMa ?? 30,
+    rcdType: t.device.rcdType ?? 'A',
+    label: name,
   });
   schedule.devices.push(rcd);
   return rcd;
@@ -118,13 +140,18 @@ function applyDevice(schedule: Schedule, circuit: Circuit | undefined, circuitId
   const rcbo = t.device.kind === 'rcbo';
   const protectedBy = !rcbo && t.device.rcdGroup ? rcdNamed(schedule, t.device.rcdGroup, t).id : null;
   const fields = {
-    kind: t.device.kind, rating: t.device.rating, curve: t.device.curve,
-    residualMa: rcbo ? t.device.residualMa : null, rcdType: rcbo ? t.device.rcdType : null, protectedBy,
+    kind: t.device.kind,
+    rating: t.device.rating,
+    curve: t.device.curve,
+    residualMa: rcbo ? t.device.residualMa : null,
+    rcdType: rcbo ? t.device.rcdType : null,
+    protectedBy,
   };
   const id = circuit?.deviceId && schedule.devices.some((d) => d.id === circuit.deviceId) ? circuit.deviceId : plannedDeviceId(circuitId);
   const existing = schedule.devices.find((d) => d.id === id);
   if (existing) Object.assign(existing, fields, existing.kind === 'mcb' || existing.kind === 'rcbo' ? {} : { modules: MODULES[t.device.kind], poles: 1 });
-  else schedule.devices.push(deviceSchema.parse({ id, row: placeDevice(schedule, MODULES[t.device.kind]), modules: MODULES[t.device.kind], poles: 1, ...fields }));
+  else
+    schedule.devices.push(deviceSchema.parse({ id, row: placeDevice(schedule, MODULES[t.device.kind]), modules: MODULES[t.device.kind], poles: 1, ...fields }));
   return id;
 }
 
@@ -159,10 +186,22 @@ export function applyPlan(given: Schedule): PlanOutcome {
     const t = first.target;
     const circuit = schedule.circuits.find((c) => c.id === circuitId);
     const deviceId = applyDevice(schedule, circuit, circuitId, t);
-    const legs = Math.min(8, Math.max(1, list.reduce((n, c) => n + c.legs.length, 0)));
+    const legs = Math.min(
+      8,
+      Math.max(
+        1,
+        list.reduce((n, c) => n + c.legs.length, 0),
+      ),
+    );
     const { previousReference, description } = provenance(list);
     const planned = {
-      way: t.way, phase: t.phase, label: t.label, kind: t.kind, deviceId, legs, previousReference,
+      way: t.way,
+      phase: t.phase,
+      label: t.label,
+      kind: t.kind,
+      deviceId,
+      legs,
+      previousReference,
       socketOutlets: list.some((c) => c.way.socketOutlets),
     };
     if (circuit) {

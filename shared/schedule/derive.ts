@@ -10,29 +10,49 @@ const BREAKERS = new Set(['mcb', 'rcbo']);
 export function deviceShortText(d: Device): string {
   const rating = d.rating != null ? `${d.rating}` : '';
   switch (d.kind) {
-    case 'mcb': return `${d.curve ?? ''}${rating}` || 'MCB';
-    case 'rcbo': return [`${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ') || 'RCBO';
-    case 'rcd': return ['RCD', rating && `${rating} A`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
-    case 'main-switch': return ['Main switch', rating && `${rating} A`].filter(Boolean).join(' ');
-    case 'afdd': return ['AFDD', rating && `${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
-    case 'fuse': return [rating && `${rating} A`, d.fuseStandard ?? 'fuse'].filter(Boolean).join(' ');
-    case 'spd': return 'SPD';
-    case 'isolator': return ['Isolator', rating && `${rating} A`].filter(Boolean).join(' ');
-    case 'timer': return 'Timer';
-    case 'blank': return '';
+    case 'mcb':
+      return `${d.curve ?? ''}${rating}` || 'MCB';
+    case 'rcbo':
+      return [`${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ') || 'RCBO';
+    case 'rcd':
+      return ['RCD', rating && `${rating} A`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
+    case 'main-switch':
+      return ['Main switch', rating && `${rating} A`].filter(Boolean).join(' ');
+    case 'afdd':
+      return ['AFDD', rating && `${d.curve ?? ''}${rating}`, d.residualMa != null ? `${d.residualMa} mA` : ''].filter(Boolean).join(' ');
+    case 'fuse':
+      return [rating && `${rating} A`, d.fuseStandard ?? 'fuse'].filter(Boolean).join(' ');
+    case 'spd':
+      return 'SPD';
+    case 'isolator':
+      return ['Isolator', rating && `${rating} A`].filter(Boolean).join(' ');
+    case 'timer':
+      return 'Timer';
+    case 'blank':
+      return '';
   }
 }
 
 /** Device kind as the trade names it. */
 export function deviceKindName(d: Device): string {
   const names: Record<Device['kind'], string> = {
-    'main-switch': 'Main switch', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', fuse: 'Fuse', afdd: 'AFDD', spd: 'SPD',
-    isolator: 'Isolator', timer: 'Timer/contactor', blank: 'Blank',
+    'main-switch': 'Main switch',
+    rcd: 'RCD',
+    rcbo: 'RCBO',
+    mcb: 'MCB',
+    fuse: 'Fuse',
+    afdd: 'AFDD',
+    spd: 'SPD',
+    isolator: 'Isolator',
+    timer: 'Timer/contactor',
+    blank: 'Blank',
   };
   return names[d.kind];
 }
 
-export function isBreaker(d: Device): boolean { return BREAKERS.has(d.kind); }
+export function isBreaker(d: Device): boolean {
+  return BREAKERS.has(d.kind);
+}
 /**
  * A device that is its own residual-current protection: an RCBO, or an AFDD with an IΔn recorded
  * (a combined AFDD/RCBO unit).
@@ -40,7 +60,9 @@ export function isBreaker(d: Device): boolean { return BREAKERS.has(d.kind); }
 export function hasOwnRcd(d: Device): boolean {
   return d.kind === 'rcbo' || (d.kind === 'afdd' && d.residualMa != null);
 }
-export function givesRcdProtection(d: Device): boolean { return d.kind === 'rcd' || hasOwnRcd(d); }
+export function givesRcdProtection(d: Device): boolean {
+  return d.kind === 'rcd' || hasOwnRcd(d);
+}
 
 /** Devices of one row in their order along the DIN rail. */
 export function devicesOnRow(schedule: Schedule, row: number): Device[] {
@@ -69,7 +91,10 @@ export function rcdFor(schedule: Schedule): Map<string, Device | null> {
   const out = new Map<string, Device | null>();
   if (schedule.board.rcdMode === 'manual') {
     for (const d of schedule.devices) {
-      if (hasOwnRcd(d)) { out.set(d.id, d); continue; }
+      if (hasOwnRcd(d)) {
+        out.set(d.id, d);
+        continue;
+      }
       const rcd = d.protectedBy ? byId.get(d.protectedBy) : undefined;
       out.set(d.id, rcd && rcd.kind === 'rcd' ? rcd : null);
     }
@@ -78,9 +103,20 @@ export function rcdFor(schedule: Schedule): Map<string, Device | null> {
   let current: Device | null = null;
   let row = -1;
   for (const d of schedule.devices) {
-    if (d.row !== row) { row = d.row; current = null; }
-    if (d.kind === 'rcd') { current = d; out.set(d.id, null); continue; }
-    if (d.kind === 'main-switch' || d.kind === 'isolator') { current = null; out.set(d.id, null); continue; }
+    if (d.row !== row) {
+      row = d.row;
+      current = null;
+    }
+    if (d.kind === 'rcd') {
+      current = d;
+      out.set(d.id, null);
+      continue;
+    }
+    if (d.kind === 'main-switch' || d.kind === 'isolator') {
+      current = null;
+      out.set(d.id, null);
+      continue;
+    }
     out.set(d.id, hasOwnRcd(d) ? d : current);
   }
   return out;

@@ -23,41 +23,80 @@ export interface ScheduleDiff {
 }
 
 /** How a field is named and its values written; `quiet` fields say "changed" without printing long or private text. */
-interface FieldText { label: string; unit?: string; quiet?: boolean }
+interface FieldText {
+  label: string;
+  unit?: string;
+  quiet?: boolean;
+}
 
 const BOARD_FIELDS: Partial<Record<keyof BoardDetails, FieldText>> = {
-  name: { label: 'board name' }, location: { label: 'board location' }, rows: { label: 'rows' },
-  modulesPerRow: { label: 'modules per row' }, phases: { label: 'phases' }, installationType: { label: 'installation type' },
-  installedOn: { label: 'installation date' }, lastInspectionOn: { label: 'last inspection' },
-  inspectionIntervalMonths: { label: 'inspection interval', unit: 'months' }, mixedWiringColours: { label: 'mixed wiring colours' },
-  alternativeSupply: { label: 'alternative supply', quiet: true }, rcdMode: { label: 'RCD assignment' },
-  privateNotes: { label: 'private notes', quiet: true }, publicNotes: { label: 'public notes', quiet: true },
+  name: { label: 'board name' },
+  location: { label: 'board location' },
+  rows: { label: 'rows' },
+  modulesPerRow: { label: 'modules per row' },
+  phases: { label: 'phases' },
+  installationType: { label: 'installation type' },
+  installedOn: { label: 'installation date' },
+  lastInspectionOn: { label: 'last inspection' },
+  inspectionIntervalMonths: { label: 'inspection interval', unit: 'months' },
+  mixedWiringColours: { label: 'mixed wiring colours' },
+  alternativeSupply: { label: 'alternative supply', quiet: true },
+  rcdMode: { label: 'RCD assignment' },
+  privateNotes: { label: 'private notes', quiet: true },
+  publicNotes: { label: 'public notes', quiet: true },
 };
 
 const SUPPLY_FIELDS: Record<keyof BoardDetails['supply'], FieldText> = {
-  earthing: { label: 'supply earthing' }, nominalVoltage: { label: 'supply voltage', unit: 'V' }, ze: { label: 'supply Ze', unit: 'Ω' },
-  pfcKa: { label: 'prospective fault current', unit: 'kA' }, mainSwitchRating: { label: 'main switch rating', unit: 'A' },
-  tailsCsa: { label: 'tails', unit: 'mm²' }, mainEarthCsa: { label: 'main earthing conductor', unit: 'mm²' }, mainBondingCsa: { label: 'main bonding', unit: 'mm²' },
+  earthing: { label: 'supply earthing' },
+  nominalVoltage: { label: 'supply voltage', unit: 'V' },
+  ze: { label: 'supply Ze', unit: 'Ω' },
+  pfcKa: { label: 'prospective fault current', unit: 'kA' },
+  mainSwitchRating: { label: 'main switch rating', unit: 'A' },
+  tailsCsa: { label: 'tails', unit: 'mm²' },
+  mainEarthCsa: { label: 'main earthing conductor', unit: 'mm²' },
+  mainBondingCsa: { label: 'main bonding', unit: 'mm²' },
 };
 
 const DEVICE_FIELDS: Partial<Record<keyof Device, FieldText>> = {
-  row: { label: 'row' }, kind: { label: 'kind' }, modules: { label: 'width', unit: 'modules' }, poles: { label: 'poles' },
-  rating: { label: 'rating', unit: 'A' }, curve: { label: 'curve' }, breakingCapacityKa: { label: 'breaking capacity', unit: 'kA' },
-  residualMa: { label: 'IΔn', unit: 'mA' }, rcdType: { label: 'RCD type' }, protectedBy: { label: 'RCD' },
+  row: { label: 'row' },
+  kind: { label: 'kind' },
+  modules: { label: 'width', unit: 'modules' },
+  poles: { label: 'poles' },
+  rating: { label: 'rating', unit: 'A' },
+  curve: { label: 'curve' },
+  breakingCapacityKa: { label: 'breaking capacity', unit: 'kA' },
+  residualMa: { label: 'IΔn', unit: 'mA' },
+  rcdType: { label: 'RCD type' },
+  protectedBy: { label: 'RCD' },
 };
 
 const CIRCUIT_FIELDS: Partial<Record<keyof Circuit, FieldText>> = {
-  phase: { label: 'phase' }, description: { label: 'description', quiet: true }, kind: { label: 'kind' },
-  socketOutlets: { label: 'socket-outlets' }, concealedInWall: { label: 'concealed in wall' }, points: { label: 'points' },
-  locations: { label: 'locations' }, previousReference: { label: 'old board reference' }, measuredZs: { label: 'measured Zs', unit: 'Ω' },
-  zsAtAmbient: { label: 'Zs measured cold' }, legs: { label: 'cable legs' }, notes: { label: 'notes', quiet: true },
-  notesPublic: { label: 'notes public' }, feedsBoardId: { label: 'board fed', quiet: true },
+  phase: { label: 'phase' },
+  description: { label: 'description', quiet: true },
+  kind: { label: 'kind' },
+  socketOutlets: { label: 'socket-outlets' },
+  concealedInWall: { label: 'concealed in wall' },
+  points: { label: 'points' },
+  locations: { label: 'locations' },
+  previousReference: { label: 'old board reference' },
+  measuredZs: { label: 'measured Zs', unit: 'Ω' },
+  zsAtAmbient: { label: 'Zs measured cold' },
+  legs: { label: 'cable legs' },
+  notes: { label: 'notes', quiet: true },
+  notesPublic: { label: 'notes public' },
+  feedsBoardId: { label: 'board fed', quiet: true },
 };
 
 const CABLE_FIELDS: Record<keyof Circuit['cable'], FieldText> = {
-  type: { label: 'cable type' }, liveCsa: { label: 'live csa', unit: 'mm²' }, cpcCsa: { label: 'cpc csa', unit: 'mm²' },
-  referenceMethod: { label: 'reference method' }, lengthM: { label: 'route length', unit: 'm' }, diameterMm: { label: 'cable diameter', unit: 'mm' },
-  ambientC: { label: 'ambient temperature', unit: '°C' }, groupedWith: { label: 'circuits grouped' }, insulatedLengthMm: { label: 'length in insulation', unit: 'mm' },
+  type: { label: 'cable type' },
+  liveCsa: { label: 'live csa', unit: 'mm²' },
+  cpcCsa: { label: 'cpc csa', unit: 'mm²' },
+  referenceMethod: { label: 'reference method' },
+  lengthM: { label: 'route length', unit: 'm' },
+  diameterMm: { label: 'cable diameter', unit: 'mm' },
+  ambientC: { label: 'ambient temperature', unit: '°C' },
+  groupedWith: { label: 'circuits grouped' },
+  insulatedLengthMm: { label: 'length in insulation', unit: 'mm' },
 };
 
 const SUMMARY_MAX_PHRASES = 8;
@@ -127,8 +166,18 @@ function deviceChanges(a: Schedule, b: Schedule): ScheduleChange[] {
   b.devices.forEach((d, i) => {
     const old = matched[i];
     const title = deviceTitle(d, namesB);
-    if (!old) { out.push({ path: `devices.${i}`, kind: 'added', after: d, text: `${title} added` }); return; }
-    if (old.label !== d.label) out.push({ path: `devices.${i}.label`, kind: 'changed', before: old.label, after: d.label, text: d.label ? `${deviceTitle(old, namesA)} renamed ${d.label}` : `${deviceTitle(old, namesA)} label cleared` });
+    if (!old) {
+      out.push({ path: `devices.${i}`, kind: 'added', after: d, text: `${title} added` });
+      return;
+    }
+    if (old.label !== d.label)
+      out.push({
+        path: `devices.${i}.label`,
+        kind: 'changed',
+        before: old.label,
+        after: d.label,
+        text: d.label ? `${deviceTitle(old, namesA)} renamed ${d.label}` : `${deviceTitle(old, namesA)} label cleared`,
+      });
     // Named as it was, so "MCB B40 rating 40 → 32 A" says which device changed.
     out.push(...compareFields(`devices.${i}`, deviceTitle(old, namesA), DEVICE_FIELDS, old, d));
   });
@@ -160,16 +209,22 @@ function circuitChanges(a: Schedule, b: Schedule): ScheduleChange[] {
   b.circuits.forEach((c, i) => {
     const old = matched[i];
     const way = `way ${wayText(c)}`;
-    if (!old) { out.push({ path: `circuits.${i}`, kind: 'added', after: c, text: `${way} added (${c.label})` }); return; }
-    if (old.way !== c.way) out.push({ path: `circuits.${i}.way`, kind: 'changed', before: old.way, after: c.way, text: `way ${wayText(old)} moved to way ${c.way}` });
+    if (!old) {
+      out.push({ path: `circuits.${i}`, kind: 'added', after: c, text: `${way} added (${c.label})` });
+      return;
+    }
+    if (old.way !== c.way)
+      out.push({ path: `circuits.${i}.way`, kind: 'changed', before: old.way, after: c.way, text: `way ${wayText(old)} moved to way ${c.way}` });
     if (old.label !== c.label) out.push({ path: `circuits.${i}.label`, kind: 'changed', before: old.label, after: c.label, text: `${way} renamed ${c.label}` });
     const devA = deviceTextOf(a, old.deviceId);
     const devB = deviceTextOf(b, c.deviceId);
-    if (old.deviceId !== c.deviceId) out.push({ path: `circuits.${i}.deviceId`, kind: 'changed', before: old.deviceId, after: c.deviceId, text: `${way} device ${devA} → ${devB}` });
+    if (old.deviceId !== c.deviceId)
+      out.push({ path: `circuits.${i}.deviceId`, kind: 'changed', before: old.deviceId, after: c.deviceId, text: `${way} device ${devA} → ${devB}` });
     out.push(...compareFields(`circuits.${i}`, way, CIRCUIT_FIELDS, old, c));
     out.push(...compareFields(`circuits.${i}.cable`, way, CABLE_FIELDS, old.cable, c.cable));
   });
-  for (const i of removed) out.push({ path: `circuits.${i}`, kind: 'removed', before: a.circuits[i], text: `way ${wayText(a.circuits[i])} removed (${a.circuits[i].label})` });
+  for (const i of removed)
+    out.push({ path: `circuits.${i}`, kind: 'removed', before: a.circuits[i], text: `way ${wayText(a.circuits[i])} removed (${a.circuits[i].label})` });
   return out;
 }
 

@@ -11,14 +11,30 @@ export type TemplateId = (typeof templateIds)[number];
 /** For request bodies that name a starting layout, e.g. `POST /api/boards {template}`. */
 export const templateIdSchema = z.enum(templateIds, { error: `template must be one of ${templateIds.join(', ')}` });
 
-export interface TemplateInfo { id: TemplateId; name: string; description: string }
+export interface TemplateInfo {
+  id: TemplateId;
+  name: string;
+  description: string;
+}
 
 /** The layouts as the "new board" picker lists them. */
 export const scheduleTemplates: readonly TemplateInfo[] = [
-  { id: 'split-load-10', name: '10-way split-load', description: 'Domestic consumer unit: main switch, two 30 mA RCDs sharing ten MCB ways, lighting split across both.' },
-  { id: 'dual-rcd-18', name: '18-way dual-RCD', description: 'Larger home on two rows: main switch and RCD 1 on row 1, RCD 2 on row 2, nine ways behind each.' },
+  {
+    id: 'split-load-10',
+    name: '10-way split-load',
+    description: 'Domestic consumer unit: main switch, two 30 mA RCDs sharing ten MCB ways, lighting split across both.',
+  },
+  {
+    id: 'dual-rcd-18',
+    name: '18-way dual-RCD',
+    description: 'Larger home on two rows: main switch and RCD 1 on row 1, RCD 2 on row 2, nine ways behind each.',
+  },
   { id: 'all-rcbo-12', name: '12-way all-RCBO', description: 'Main switch, surge protection and twelve 30 mA RCBOs, so one fault trips one circuit only.' },
-  { id: 'three-phase-12', name: '3-phase 12-way', description: 'Three-phase board for a small commercial unit: four-pole main switch, three-phase machine ways, single-phase RCBO ways on L1–L3.' },
+  {
+    id: 'three-phase-12',
+    name: '3-phase 12-way',
+    description: 'Three-phase board for a small commercial unit: four-pole main switch, three-phase machine ways, single-phase RCBO ways on L1–L3.',
+  },
 ];
 
 type DeviceSpec = ScheduleInput['devices'][number];
@@ -51,8 +67,26 @@ function breaker(id: string, row: number, kind: 'mcb' | 'rcbo', rating: number, 
     : { id, row, kind, rating, curve, breakingCapacityKa: 6 };
 }
 
-const mainSwitch = (row: number, poles = 2, rating = 100): DeviceSpec => ({ id: 'main', row, kind: 'main-switch', modules: poles, poles, rating, label: 'Main switch' });
-const rcd = (n: number, row: number): DeviceSpec => ({ id: `rcd${n}`, row, kind: 'rcd', modules: 2, poles: 2, rating: 80, residualMa: 30, rcdType: 'A', label: `RCD ${n}` });
+const mainSwitch = (row: number, poles = 2, rating = 100): DeviceSpec => ({
+  id: 'main',
+  row,
+  kind: 'main-switch',
+  modules: poles,
+  poles,
+  rating,
+  label: 'Main switch',
+});
+const rcd = (n: number, row: number): DeviceSpec => ({
+  id: `rcd${n}`,
+  row,
+  kind: 'rcd',
+  modules: 2,
+  poles: 2,
+  rating: 80,
+  residualMa: 30,
+  rcdType: 'A',
+  label: `RCD ${n}`,
+});
 
 /** MCB ways on a row: a breaker per way, a circuit for each way that has a use, the rest spare. */
 function mcbWays(row: number, ways: WaySpec[], spares: number[]): { devices: DeviceSpec[]; circuits: CircuitSpec[] } {
@@ -67,23 +101,91 @@ function mcbWays(row: number, ways: WaySpec[], spares: number[]): { devices: Dev
 }
 
 function board(name: string, location: string, extra: Partial<ScheduleInput['board']> = {}): ScheduleInput['board'] {
-  return { name, location, supply: { earthing: 'TN-C-S', nominalVoltage: 230, mainSwitchRating: 100, tailsCsa: 25, mainEarthCsa: 16, mainBondingCsa: 10 }, ...extra };
+  return {
+    name,
+    location,
+    supply: { earthing: 'TN-C-S', nominalVoltage: 230, mainSwitchRating: 100, tailsCsa: 25, mainEarthCsa: 16, mainBondingCsa: 10 },
+    ...extra,
+  };
 }
 
 function splitLoad10(name: string, location: string): ScheduleInput {
-  const a = mcbWays(1, [[1, 'Cooker', 'cooker', ['Kitchen']], [2, 'Kitchen sockets', 'ring', ['Kitchen']], [3, 'Downstairs sockets', 'ring', ['Lounge', 'Dining room']], [4, 'Downstairs lights', 'lighting', ['Hall', 'Lounge', 'Kitchen']], [5, 'Smoke alarms', 'smoke', ['Hall', 'Landing']]], []);
-  const b = mcbWays(1, [[6, 'Shower', 'shower', ['Bathroom']], [7, 'Upstairs sockets', 'ring', ['Bedrooms']], [8, 'Immersion heater', 'immersion', ['Airing cupboard']], [9, 'Upstairs lights', 'lighting', ['Landing', 'Bedrooms', 'Bathroom']]], [10]);
-  return { board: board(name, location, { rows: 1, modulesPerRow: 18 }), devices: [mainSwitch(1), rcd(1, 1), ...a.devices, rcd(2, 1), ...b.devices], circuits: [...a.circuits, ...b.circuits] };
+  const a = mcbWays(
+    1,
+    [
+      [1, 'Cooker', 'cooker', ['Kitchen']],
+      [2, 'Kitchen sockets', 'ring', ['Kitchen']],
+      [3, 'Downstairs sockets', 'ring', ['Lounge', 'Dining room']],
+      [4, 'Downstairs lights', 'lighting', ['Hall', 'Lounge', 'Kitchen']],
+      [5, 'Smoke alarms', 'smoke', ['Hall', 'Landing']],
+    ],
+    [],
+  );
+  const b = mcbWays(
+    1,
+    [
+      [6, 'Shower', 'shower', ['Bathroom']],
+      [7, 'Upstairs sockets', 'ring', ['Bedrooms']],
+      [8, 'Immersion heater', 'immersion', ['Airing cupboard']],
+      [9, 'Upstairs lights', 'lighting', ['Landing', 'Bedrooms', 'Bathroom']],
+    ],
+    [10],
+  );
+  return {
+    board: board(name, location, { rows: 1, modulesPerRow: 18 }),
+    devices: [mainSwitch(1), rcd(1, 1), ...a.devices, rcd(2, 1), ...b.devices],
+    circuits: [...a.circuits, ...b.circuits],
+  };
 }
 
 function dualRcd18(name: string, location: string): ScheduleInput {
-  const a = mcbWays(1, [[1, 'Kitchen sockets', 'ring', ['Kitchen']], [2, 'Cooker', 'cooker', ['Kitchen']], [3, 'Utility sockets', 'radialSockets', ['Utility room']], [4, 'Ground floor lights', 'lighting', ['Hall', 'Lounge', 'Kitchen']], [5, 'Ground floor sockets', 'ring', ['Lounge', 'Dining room']], [6, 'Outside lights', 'lighting', ['Garden']], [7, 'Boiler', 'fixed', ['Kitchen']]], [8, 9]);
-  const b = mcbWays(2, [[10, 'Shower', 'shower', ['Bathroom']], [11, 'First floor sockets', 'ring', ['Bedrooms']], [12, 'First floor lights', 'lighting', ['Landing', 'Bedrooms']], [13, 'Immersion heater', 'immersion', ['Airing cupboard']], [14, 'Smoke alarms', 'smoke', ['Hall', 'Landing']], [15, 'Garage sockets', 'radialSockets', ['Garage']], [16, 'Loft lights', 'lighting', ['Loft']]], [17, 18]);
-  return { board: board(name, location, { rows: 2, modulesPerRow: 14 }), devices: [mainSwitch(1), rcd(1, 1), ...a.devices, rcd(2, 2), ...b.devices], circuits: [...a.circuits, ...b.circuits] };
+  const a = mcbWays(
+    1,
+    [
+      [1, 'Kitchen sockets', 'ring', ['Kitchen']],
+      [2, 'Cooker', 'cooker', ['Kitchen']],
+      [3, 'Utility sockets', 'radialSockets', ['Utility room']],
+      [4, 'Ground floor lights', 'lighting', ['Hall', 'Lounge', 'Kitchen']],
+      [5, 'Ground floor sockets', 'ring', ['Lounge', 'Dining room']],
+      [6, 'Outside lights', 'lighting', ['Garden']],
+      [7, 'Boiler', 'fixed', ['Kitchen']],
+    ],
+    [8, 9],
+  );
+  const b = mcbWays(
+    2,
+    [
+      [10, 'Shower', 'shower', ['Bathroom']],
+      [11, 'First floor sockets', 'ring', ['Bedrooms']],
+      [12, 'First floor lights', 'lighting', ['Landing', 'Bedrooms']],
+      [13, 'Immersion heater', 'immersion', ['Airing cupboard']],
+      [14, 'Smoke alarms', 'smoke', ['Hall', 'Landing']],
+      [15, 'Garage sockets', 'radialSockets', ['Garage']],
+      [16, 'Loft lights', 'lighting', ['Loft']],
+    ],
+    [17, 18],
+  );
+  return {
+    board: board(name, location, { rows: 2, modulesPerRow: 14 }),
+    devices: [mainSwitch(1), rcd(1, 1), ...a.devices, rcd(2, 2), ...b.devices],
+    circuits: [...a.circuits, ...b.circuits],
+  };
 }
 
 function allRcbo12(name: string, location: string): ScheduleInput {
-  const ways: WaySpec[] = [[1, 'Kitchen sockets', 'ring', ['Kitchen']], [2, 'Cooker', 'cooker', ['Kitchen']], [3, 'Ground floor sockets', 'ring', ['Lounge']], [4, 'Ground floor lights', 'lighting', ['Hall', 'Lounge', 'Kitchen']], [5, 'First floor sockets', 'ring', ['Bedrooms']], [6, 'First floor lights', 'lighting', ['Landing', 'Bedrooms']], [7, 'Shower', 'shower', ['Bathroom']], [8, 'Immersion heater', 'immersion', ['Airing cupboard']], [9, 'Smoke alarms', 'smoke', ['Hall', 'Landing']], [10, 'Boiler', 'fixed', ['Kitchen']], [11, 'Outside sockets', 'radialSockets', ['Garden']]];
+  const ways: WaySpec[] = [
+    [1, 'Kitchen sockets', 'ring', ['Kitchen']],
+    [2, 'Cooker', 'cooker', ['Kitchen']],
+    [3, 'Ground floor sockets', 'ring', ['Lounge']],
+    [4, 'Ground floor lights', 'lighting', ['Hall', 'Lounge', 'Kitchen']],
+    [5, 'First floor sockets', 'ring', ['Bedrooms']],
+    [6, 'First floor lights', 'lighting', ['Landing', 'Bedrooms']],
+    [7, 'Shower', 'shower', ['Bathroom']],
+    [8, 'Immersion heater', 'immersion', ['Airing cupboard']],
+    [9, 'Smoke alarms', 'smoke', ['Hall', 'Landing']],
+    [10, 'Boiler', 'fixed', ['Kitchen']],
+    [11, 'Outside sockets', 'radialSockets', ['Garden']],
+  ];
   const devices: DeviceSpec[] = [mainSwitch(1), { id: 'spd', row: 1, kind: 'spd', modules: 2, poles: 2, label: 'Surge protection' }];
   for (const spec of ways) devices.push(breaker(`w${spec[0]}`, 1, 'rcbo', USES[spec[2]].rating));
   devices.push({ ...breaker('w12', 1, 'rcbo', 16), label: 'Spare' });
@@ -91,14 +193,33 @@ function allRcbo12(name: string, location: string): ScheduleInput {
 }
 
 function threePhase12(name: string, location: string): ScheduleInput {
-  const machines: Array<[number, string, number]> = [[1, 'Machine 1', 20], [2, 'Machine 2', 16], [3, 'Machine 3', 20], [4, 'Machine 4', 32]];
+  const machines: Array<[number, string, number]> = [
+    [1, 'Machine 1', 20],
+    [2, 'Machine 2', 16],
+    [3, 'Machine 3', 20],
+    [4, 'Machine 4', 32],
+  ];
   const devices: DeviceSpec[] = [mainSwitch(1, 4, 100)];
   const circuits: CircuitSpec[] = [];
   for (const [way, label, rating] of machines) {
     devices.push({ ...breaker(`w${way}`, 1, 'mcb', rating, 'C'), modules: 3, poles: 3, breakingCapacityKa: 10 });
-    circuits.push({ id: `c${way}`, way, deviceId: `w${way}`, label, kind: 'fixed-appliance', locations: ['Workshop'], cable: { type: 'swa', liveCsa: rating > 20 ? 6 : 4 } });
+    circuits.push({
+      id: `c${way}`,
+      way,
+      deviceId: `w${way}`,
+      label,
+      kind: 'fixed-appliance',
+      locations: ['Workshop'],
+      cable: { type: 'swa', liveCsa: rating > 20 ? 6 : 4 },
+    });
   }
-  const single: Array<[number, 'L1' | 'L2' | 'L3', string, Use, string]> = [[5, 'L1', 'Office sockets', 'radialSockets', 'Office'], [5, 'L2', 'Office lights', 'lighting', 'Office'], [5, 'L3', 'Workshop sockets', 'ring', 'Workshop'], [6, 'L1', 'Workshop lights', 'lighting', 'Workshop'], [6, 'L2', 'Welfare sockets', 'radialSockets', 'Kitchenette']];
+  const single: Array<[number, 'L1' | 'L2' | 'L3', string, Use, string]> = [
+    [5, 'L1', 'Office sockets', 'radialSockets', 'Office'],
+    [5, 'L2', 'Office lights', 'lighting', 'Office'],
+    [5, 'L3', 'Workshop sockets', 'ring', 'Workshop'],
+    [6, 'L1', 'Workshop lights', 'lighting', 'Workshop'],
+    [6, 'L2', 'Welfare sockets', 'radialSockets', 'Kitchenette'],
+  ];
   for (let way = 5; way <= 9; way++) {
     for (const phase of ['L1', 'L2', 'L3'] as const) {
       const spec = single.find(([w, p]) => w === way && p === phase);
@@ -113,7 +234,10 @@ function threePhase12(name: string, location: string): ScheduleInput {
 }
 
 const BUILDERS: Record<TemplateId, (name: string, location: string) => ScheduleInput> = {
-  'split-load-10': splitLoad10, 'dual-rcd-18': dualRcd18, 'all-rcbo-12': allRcbo12, 'three-phase-12': threePhase12,
+  'split-load-10': splitLoad10,
+  'dual-rcd-18': dualRcd18,
+  'all-rcbo-12': allRcbo12,
+  'three-phase-12': threePhase12,
 };
 
 /** A complete schedule for a starting layout, named as the user asked. */

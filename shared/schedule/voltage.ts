@@ -10,7 +10,12 @@
 
 /** Usual pairs of voltage to earth and between phases. IEC 60038 nominal voltages (from memory). */
 const PAIRS: ReadonlyArray<readonly [toEarth: number, betweenPhases: number]> = [
-  [230, 400], [240, 415], [220, 380], [127, 220], [120, 208], [277, 480],
+  [230, 400],
+  [240, 415],
+  [220, 380],
+  [127, 220],
+  [120, 208],
+  [277, 480],
 ];
 
 /** A three-phase figure at or above this is the voltage between phases, not to earth. */

@@ -9,7 +9,8 @@ import { scheduleSchema } from './schedule.js';
 import { templateIdSchema } from '../schedule/templates.js';
 
 const id = z.number({ error: 'Must be a number' }).int('Must be a whole number').positive('Must be positive').max(2_147_483_647, 'Too large');
-const queryInt = (min: number, max: number) => z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').min(min, `At least ${min}`).max(max, `At most ${max}`);
+const queryInt = (min: number, max: number) =>
+  z.coerce.number({ error: 'Must be a number' }).int('Must be a whole number').min(min, `At least ${min}`).max(max, `At most ${max}`);
 const queryFlag = z.enum(['true', 'false', '1', '0'], { error: 'Use true or false' }).transform((v) => v === 'true' || v === '1');
 
 /** `GET /api/boards?q=&page=&pageSize=&siteId=&deleted=`: `deleted=true` lists the deleted boards (to restore). */
@@ -108,13 +109,15 @@ export const diffQuerySchema = z.object({ from: queryInt(1, 2_147_483_647), to: 
 export const diffResponseSchema = z.object({
   from: z.number(),
   to: z.number(),
-  changes: z.array(z.object({
-    path: z.string(),
-    kind: z.enum(['added', 'removed', 'changed']),
-    before: z.unknown().optional(),
-    after: z.unknown().optional(),
-    text: z.string(),
-  })),
+  changes: z.array(
+    z.object({
+      path: z.string(),
+      kind: z.enum(['added', 'removed', 'changed']),
+      before: z.unknown().optional(),
+      after: z.unknown().optional(),
+      text: z.string(),
+    }),
+  ),
   summary: z.string(),
 });
 export type DiffResponse = z.infer<typeof diffResponseSchema>;

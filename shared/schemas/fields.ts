@@ -16,21 +16,34 @@ export const SINGLE_LINE_MESSAGE = 'Must be one line without control characters'
 
 /** Free text (line breaks allowed), trimmed, at most `max` characters. */
 export const text = (max: number) =>
-  z.string().trim().max(max, `At most ${max} characters`).refine((s) => !LONE_SURROGATE.test(s), WELL_FORMED_MESSAGE);
+  z
+    .string()
+    .trim()
+    .max(max, `At most ${max} characters`)
+    .refine((s) => !LONE_SURROGATE.test(s), WELL_FORMED_MESSAGE);
 
 /** One line of text: a name, a label, a contact. Refuses line breaks, tabs and other control characters. */
 export const singleLine = (max: number) => text(max).refine((s) => !CONTROL.test(s), SINGLE_LINE_MESSAGE);
 
 /** A calendar date written YYYY-MM-DD that exists. */
-export const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use the form YYYY-MM-DD')
+export const isoDate = z
+  .string()
+  .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use the form YYYY-MM-DD')
   .refine((s) => !Number.isNaN(Date.parse(`${s}T00:00:00Z`)) && new Date(`${s}T00:00:00Z`).toISOString().startsWith(s), 'Not a real date');
 
 /** An id inside a document (device, circuit, survey way): letters, digits, - and _. */
-export const key = z.string().min(1, 'Required').max(40, 'At most 40 characters').regex(/^[A-Za-z0-9_-]+$/, 'Letters, digits, - and _ only');
+export const key = z
+  .string()
+  .min(1, 'Required')
+  .max(40, 'At most 40 characters')
+  .regex(/^[A-Za-z0-9_-]+$/, 'Letters, digits, - and _ only');
 
 /** A positive number with a label in its messages. */
 export const positive = (label: string, max: number) =>
-  z.number({ error: `${label} must be a number` }).positive(`${label} must be above zero`).max(max, `${label} is at most ${max}`);
+  z
+    .number({ error: `${label} must be a number` })
+    .positive(`${label} must be above zero`)
+    .max(max, `${label} is at most ${max}`);
 
 /** An e-mail address as typed: trimmed, lower-cased, of the length mail allows. */
 export const emailAddress = z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address');

@@ -15,10 +15,10 @@ export const acceptInvitationSchema = z.strictObject({ token: z.string().min(10)
 export const memberUpdateSchema = z.strictObject({ role: roleSchema.optional(), disabled: z.boolean().optional() });
 
 /** The refinement on member updates: an empty PATCH is a mistake worth saying so. */
-export const memberChangeSchema = memberUpdateSchema.refine(
-  (v) => v.role !== undefined || v.disabled !== undefined,
-  { message: 'Send a role, a disabled flag, or both', path: ['(body)'] },
-);
+export const memberChangeSchema = memberUpdateSchema.refine((v) => v.role !== undefined || v.disabled !== undefined, {
+  message: 'Send a role, a disabled flag, or both',
+  path: ['(body)'],
+});
 export type MemberUpdate = z.infer<typeof memberUpdateSchema>;
 export type InviteInput = z.infer<typeof inviteSchema>;
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;

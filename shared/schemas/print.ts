@@ -17,7 +17,12 @@ export type TapeWidth = (typeof tapeWidths)[number];
  * `custom-<w>x<h>` (mm, e.g. `custom-250x180`, for a chart sized to a board door) or
  * `sheet-<id>` (a stored sheet label layout).
  */
-export const mediaIdSchema = z.string().regex(/^(tape-(6|9|12|18|24|36)|a4|a5|a4-landscape|a5-landscape|custom-\d{2,4}x\d{2,4}|sheet-\d{1,9})$/, 'Unknown medium: use tape-6…tape-36, a4, a5, a4-landscape, a5-landscape, custom-<w>x<h> or sheet-<id>');
+export const mediaIdSchema = z
+  .string()
+  .regex(
+    /^(tape-(6|9|12|18|24|36)|a4|a5|a4-landscape|a5-landscape|custom-\d{2,4}x\d{2,4}|sheet-\d{1,9})$/,
+    'Unknown medium: use tape-6…tape-36, a4, a5, a4-landscape, a5-landscape, custom-<w>x<h> or sheet-<id>',
+  );
 export type MediaId = z.infer<typeof mediaIdSchema>;
 
 const flagOptions = z.strictObject({
@@ -31,7 +36,10 @@ const flagOptions = z.strictObject({
   overlapMm: z.coerce.number().min(0).max(30).default(4),
   /** Only the ways whose label content changed since this revision. */
   changedSince: z.coerce.number().int().min(1).optional(),
-  ways: z.string().regex(/^\d+(,\d+)*$/, 'Comma-separated way numbers').optional(),
+  ways: z
+    .string()
+    .regex(/^\d+(,\d+)*$/, 'Comma-separated way numbers')
+    .optional(),
   /**
    * Where the flags go: at the board (each leg of each circuit), or at the junction boxes of a
    * changeover (one flag per planned leg through a box, naming the old way and the new way).
@@ -57,7 +65,10 @@ const chartOptions = z.strictObject({
 const noticeKinds = ['inspection', 'rcd-test', 'earthing', 'mixed-colours', 'alternative-supply', 'voltage'] as const;
 const noticeOptions = z.strictObject({
   /** Which notices; default: every notice the board calls for. */
-  kinds: z.string().regex(new RegExp(`^(${noticeKinds.join('|')})(,(${noticeKinds.join('|')}))*$`), `Comma-separated: ${noticeKinds.join(', ')}`).optional(),
+  kinds: z
+    .string()
+    .regex(new RegExp(`^(${noticeKinds.join('|')})(,(${noticeKinds.join('|')}))*$`), `Comma-separated: ${noticeKinds.join(', ')}`)
+    .optional(),
   /** How many earthing and bonding connection labels. */
   earthingCount: z.coerce.number().int().min(0).max(50).default(3),
 });
@@ -84,24 +95,36 @@ export const noticeKindList = noticeKinds;
 export type NoticeKind = (typeof noticeKinds)[number];
 
 /** One warning from a render, e.g. a label cut with an ellipsis. */
-export interface PrintWarning { code: string; message: string; label?: string }
+export interface PrintWarning {
+  code: string;
+  message: string;
+  label?: string;
+}
 
 /** Sheet label layout (per organisation), in millimetres. */
-export const sheetLayoutSchema = z.strictObject({
-  name: z.string().trim().min(1, 'Required').max(80, 'At most 80 characters'),
-  pageWidthMm: z.number().min(50, 'At least 50 mm').max(500, 'At most 500 mm'),
-  pageHeightMm: z.number().min(50, 'At least 50 mm').max(500, 'At most 500 mm'),
-  labelWidthMm: z.number().min(5, 'At least 5 mm').max(500, 'At most 500 mm'),
-  labelHeightMm: z.number().min(5, 'At least 5 mm').max(500, 'At most 500 mm'),
-  columns: z.number().int().min(1).max(20),
-  rows: z.number().int().min(1).max(50),
-  marginTopMm: z.number().min(0).max(100),
-  marginLeftMm: z.number().min(0).max(100),
-  gapXMm: z.number().min(0).max(50).default(0),
-  gapYMm: z.number().min(0).max(50).default(0),
-  cornerRadiusMm: z.number().min(0).max(20).default(0),
-}).refine((s) => s.marginLeftMm + s.columns * s.labelWidthMm + (s.columns - 1) * s.gapXMm <= s.pageWidthMm + 0.01, { message: 'The labels do not fit across the page', path: ['columns'] })
-  .refine((s) => s.marginTopMm + s.rows * s.labelHeightMm + (s.rows - 1) * s.gapYMm <= s.pageHeightMm + 0.01, { message: 'The labels do not fit down the page', path: ['rows'] });
+export const sheetLayoutSchema = z
+  .strictObject({
+    name: z.string().trim().min(1, 'Required').max(80, 'At most 80 characters'),
+    pageWidthMm: z.number().min(50, 'At least 50 mm').max(500, 'At most 500 mm'),
+    pageHeightMm: z.number().min(50, 'At least 50 mm').max(500, 'At most 500 mm'),
+    labelWidthMm: z.number().min(5, 'At least 5 mm').max(500, 'At most 500 mm'),
+    labelHeightMm: z.number().min(5, 'At least 5 mm').max(500, 'At most 500 mm'),
+    columns: z.number().int().min(1).max(20),
+    rows: z.number().int().min(1).max(50),
+    marginTopMm: z.number().min(0).max(100),
+    marginLeftMm: z.number().min(0).max(100),
+    gapXMm: z.number().min(0).max(50).default(0),
+    gapYMm: z.number().min(0).max(50).default(0),
+    cornerRadiusMm: z.number().min(0).max(20).default(0),
+  })
+  .refine((s) => s.marginLeftMm + s.columns * s.labelWidthMm + (s.columns - 1) * s.gapXMm <= s.pageWidthMm + 0.01, {
+    message: 'The labels do not fit across the page',
+    path: ['columns'],
+  })
+  .refine((s) => s.marginTopMm + s.rows * s.labelHeightMm + (s.rows - 1) * s.gapYMm <= s.pageHeightMm + 0.01, {
+    message: 'The labels do not fit down the page',
+    path: ['rows'],
+  });
 export type SheetLayout = z.infer<typeof sheetLayoutSchema>;
 
 /** `PUT /api/sheet-layouts/:id`: the layout (with its fit checks) and the revision it was loaded at (a stale one is 409). */

@@ -13,14 +13,16 @@ const optionalLine = (max: number) => singleLine(max).optional();
  * `POST /api/public/boards/:token/reports`. `website` is a honeypot: people leave it empty.
  * On a three-phase board a way is one phase of a way number ("4 L2"), so `phase` may come with `way`.
  */
-export const reportSubmitSchema = z.strictObject({
-  message: text(1000).min(1, 'Please say what does not match'),
-  way: z.number({ error: 'Way must be a number' }).int('Whole way numbers only').min(1, 'Ways start at 1').max(999, 'At most 999').nullable().optional(),
-  phase: z.enum(phases, { error: "Phase must be 'L1', 'L2' or 'L3'" }).nullable().optional(),
-  name: optionalLine(120),
-  contact: optionalLine(254),
-  website: z.string().max(500).optional(),
-}).refine((r) => r.phase == null || r.way != null, { path: ['phase'], message: 'Give the way number with the phase' });
+export const reportSubmitSchema = z
+  .strictObject({
+    message: text(1000).min(1, 'Please say what does not match'),
+    way: z.number({ error: 'Way must be a number' }).int('Whole way numbers only').min(1, 'Ways start at 1').max(999, 'At most 999').nullable().optional(),
+    phase: z.enum(phases, { error: "Phase must be 'L1', 'L2' or 'L3'" }).nullable().optional(),
+    name: optionalLine(120),
+    contact: optionalLine(254),
+    website: z.string().max(500).optional(),
+  })
+  .refine((r) => r.phase == null || r.way != null, { path: ['phase'], message: 'Give the way number with the phase' });
 export type ReportSubmit = z.infer<typeof reportSubmitSchema>;
 
 export const reportStatuses = ['open', 'accepted', 'dismissed'] as const;

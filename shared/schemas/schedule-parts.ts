@@ -12,8 +12,20 @@ export const earthingArrangements = ['TN-S', 'TN-C-S', 'TT'] as const;
  * the separate locations that IET Guidance Note 3 gives their own intervals.
  */
 export const installationTypes = [
-  'domestic', 'rented-domestic', 'hmo', 'commercial', 'industrial', 'caravan', 'caravan-park', 'agricultural',
-  'swimming-pool', 'marina', 'petrol-station', 'leisure-complex', 'special-location', 'construction-site',
+  'domestic',
+  'rented-domestic',
+  'hmo',
+  'commercial',
+  'industrial',
+  'caravan',
+  'caravan-park',
+  'agricultural',
+  'swimming-pool',
+  'marina',
+  'petrol-station',
+  'leisure-complex',
+  'special-location',
+  'construction-site',
 ] as const;
 export const alternativeSupplyKinds = ['pv', 'battery', 'generator', 'wind', 'other'] as const;
 export const deviceKinds = ['main-switch', 'rcd', 'rcbo', 'mcb', 'fuse', 'afdd', 'spd', 'isolator', 'timer', 'blank'] as const;
@@ -52,14 +64,31 @@ export const cableSchema = z.strictObject({
    * are bunched or spaced in one layer, so the checks use the bunched or enclosed row of the grouping
    * table for every reference method: it is never the higher factor (see the rule set's tables).
    */
-  groupedWith: z.number({ error: 'Circuits grouped must be a number' }).int('Whole circuits only').min(1, 'Count this circuit too: at least 1').max(100, 'At most 100 circuits').nullable().default(null),
+  groupedWith: z
+    .number({ error: 'Circuits grouped must be a number' })
+    .int('Whole circuits only')
+    .min(1, 'Count this circuit too: at least 1')
+    .max(100, 'At most 100 circuits')
+    .nullable()
+    .default(null),
   /** Length of the run totally surrounded by thermal insulation (mm), for Ci; null or 0 means none. */
-  insulatedLengthMm: z.number({ error: 'Length in insulation must be a number' }).nonnegative('Length in insulation cannot be negative').max(100_000, 'At most 100000 mm (100 m)').nullable().default(null),
+  insulatedLengthMm: z
+    .number({ error: 'Length in insulation must be a number' })
+    .nonnegative('Length in insulation cannot be negative')
+    .max(100_000, 'At most 100000 mm (100 m)')
+    .nullable()
+    .default(null),
 });
 
 /** A cable with nothing recorded: the default of a circuit without one. */
 export const EMPTY_CABLE = {
-  type: 'twin-earth', liveCsa: null, cpcCsa: null, referenceMethod: null, lengthM: null, diameterMm: null,
-  ambientC: null, groupedWith: null, insulatedLengthMm: null,
+  type: 'twin-earth',
+  liveCsa: null,
+  cpcCsa: null,
+  referenceMethod: null,
+  lengthM: null,
+  diameterMm: null,
+  ambientC: null,
+  groupedWith: null,
+  insulatedLengthMm: null,
 } as const satisfies z.output<typeof cableSchema>;
-

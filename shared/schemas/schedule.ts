@@ -7,8 +7,16 @@ import { z } from 'zod';
 
 import { isoDate, key, positive, singleLine, text } from './fields.js';
 import {
-  alternativeSupplyKinds, breakerCurves, cableSchema, circuitKinds, deviceKinds, earthingArrangements, EMPTY_CABLE,
-  installationTypes, phases, rcdTypes,
+  alternativeSupplyKinds,
+  breakerCurves,
+  cableSchema,
+  circuitKinds,
+  deviceKinds,
+  earthingArrangements,
+  EMPTY_CABLE,
+  installationTypes,
+  phases,
+  rcdTypes,
 } from './schedule-parts.js';
 import { circuitReadingsSchema, fuseStandards, rcdTripTimesSchema, surveySchema } from './survey.js';
 
@@ -31,8 +39,12 @@ export const SHORT_LABEL_MAX = 24;
 export const supplySchema = z.strictObject({
   earthing: z.enum(earthingArrangements),
   nominalVoltage: positive('Nominal voltage', 1000).default(230),
-  ze: z.number().nonnegative('Ze cannot be negative')
-    .max(LOOP_IMPEDANCE_MAX_OHMS, `Ze is at most ${LOOP_IMPEDANCE_MAX_OHMS} Ω: check the decimal point`).nullable().default(null),
+  ze: z
+    .number()
+    .nonnegative('Ze cannot be negative')
+    .max(LOOP_IMPEDANCE_MAX_OHMS, `Ze is at most ${LOOP_IMPEDANCE_MAX_OHMS} Ω: check the decimal point`)
+    .nullable()
+    .default(null),
   pfcKa: z.number().nonnegative('Fault current cannot be negative').max(100, 'At most 100 kA').nullable().default(null),
   mainSwitchRating: positive('Main switch rating', 4000).nullable().default(null),
   tailsCsa: positive('Tails csa', 1000).nullable().default(null),
@@ -53,11 +65,13 @@ export const boardDetailsSchema = z.strictObject({
   /** Months to the next periodic inspection; null means the usual interval for the installation type. */
   inspectionIntervalMonths: z.number().int().min(1, 'At least one month').max(240, 'At most 240 months').nullable().default(null),
   mixedWiringColours: z.boolean().default(false),
-  alternativeSupply: z.strictObject({
-    present: z.boolean(),
-    kinds: z.array(z.enum(alternativeSupplyKinds)).max(5).default([]),
-    description: text(200).default(''),
-  }).default({ present: false, kinds: [], description: '' }),
+  alternativeSupply: z
+    .strictObject({
+      present: z.boolean(),
+      kinds: z.array(z.enum(alternativeSupplyKinds)).max(5).default([]),
+      description: text(200).default(''),
+    })
+    .default({ present: false, kinds: [], description: '' }),
   /** How devices are assigned to RCDs: by their place on the row (split-load) or set on each device. */
   rcdMode: z.enum(['position', 'manual']).default('position'),
   privateNotes: text(4000).default(''),
@@ -69,7 +83,12 @@ export const deviceSchema = z.strictObject({
   row: z.number().int().min(1, 'Rows start at 1').max(60, 'At most 60 rows'),
   kind: z.enum(deviceKinds),
   /** Width in DIN 43880 modules (17.5 mm each), in half-module steps. */
-  modules: z.number().min(0.5, 'At least half a module').max(12, 'At most 12 modules').refine((m) => Number.isInteger(m * 2), 'Half-module steps only').default(1),
+  modules: z
+    .number()
+    .min(0.5, 'At least half a module')
+    .max(12, 'At most 12 modules')
+    .refine((m) => Number.isInteger(m * 2), 'Half-module steps only')
+    .default(1),
   poles: z.number().int().min(1).max(4).default(1),
   rating: positive('Rating', 4000).nullable().default(null),
   curve: z.enum(breakerCurves).nullable().default(null),
@@ -103,8 +122,12 @@ export const circuitSchema = z.strictObject({
   locations: z.array(singleLine(60).min(1, 'Empty location')).max(20, 'At most 20 locations').default([]),
   /** Way or reference on the board this circuit came from, for replacements. */
   previousReference: singleLine(40).default(''),
-  measuredZs: z.number().nonnegative('Zs cannot be negative')
-    .max(LOOP_IMPEDANCE_MAX_OHMS, `Zs is at most ${LOOP_IMPEDANCE_MAX_OHMS} Ω: check the decimal point`).nullable().default(null),
+  measuredZs: z
+    .number()
+    .nonnegative('Zs cannot be negative')
+    .max(LOOP_IMPEDANCE_MAX_OHMS, `Zs is at most ${LOOP_IMPEDANCE_MAX_OHMS} Ω: check the decimal point`)
+    .nullable()
+    .default(null),
   /** Measured at ambient temperature (so the 80 % rule of thumb applies) rather than at operating temperature. */
   zsAtAmbient: z.boolean().default(true),
   /** Cable ends at the labelling point: a ring final has two. */
@@ -148,14 +171,16 @@ export type ScheduleResponse = z.infer<typeof scheduleResponseSchema>;
  * answered can be sent back as it is: its read-only members (id, revision, updatedAt, code, siteId)
  * are accepted and ignored, since the board's id is in the path and the rest is the server's to set.
  */
-export const scheduleSaveSchema = scheduleSchema.extend({
-  baseRevision: z.number({ error: 'baseRevision is required' }).int().min(1),
-  id: z.unknown().optional(),
-  revision: z.unknown().optional(),
-  updatedAt: z.unknown().optional(),
-  code: z.unknown().optional(),
-  siteId: z.unknown().optional(),
-}).transform(({ id: _id, revision: _revision, updatedAt: _updatedAt, code: _code, siteId: _siteId, ...save }) => save);
+export const scheduleSaveSchema = scheduleSchema
+  .extend({
+    baseRevision: z.number({ error: 'baseRevision is required' }).int().min(1),
+    id: z.unknown().optional(),
+    revision: z.unknown().optional(),
+    updatedAt: z.unknown().optional(),
+    code: z.unknown().optional(),
+    siteId: z.unknown().optional(),
+  })
+  .transform(({ id: _id, revision: _revision, updatedAt: _updatedAt, code: _code, siteId: _siteId, ...save }) => save);
 export type ScheduleSave = z.infer<typeof scheduleSaveSchema>;
 
 /**

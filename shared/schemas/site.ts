@@ -11,10 +11,7 @@ export const siteInputSchema = z.strictObject({
   reference: singleLine(60).min(1, 'Required'),
   clientName: singleLine(120).default(''),
   address: text(1000).default(''),
-  clientEmail: z.union([
-    z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address'),
-    z.literal(''),
-  ]).default(''),
+  clientEmail: z.union([z.string().trim().toLowerCase().max(254, 'At most 254 characters').email('Not a valid e-mail address'), z.literal('')]).default(''),
   clientPhone: singleLine(40).default(''),
   notes: text(4000).default(''),
 });

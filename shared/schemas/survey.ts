@@ -26,11 +26,19 @@ export const insulationTestVoltages = [250, 500, 1000] as const;
 export type InsulationTestVoltage = (typeof insulationTestVoltages)[number];
 
 const ohmsReading = (label: string, max: number) =>
-  z.number({ error: `${label} must be a number` }).nonnegative(`${label} cannot be negative`).max(max, `${label} is at most ${max}`).nullable().default(null);
+  z
+    .number({ error: `${label} must be a number` })
+    .nonnegative(`${label} cannot be negative`)
+    .max(max, `${label} is at most ${max}`)
+    .nullable()
+    .default(null);
 
 /** Insulation resistance in MΩ; a meter's "over range" is recorded as its top value (e.g. 999). */
 export const insulationReadingsSchema = z.strictObject({
-  testVoltage: z.union([z.literal(250), z.literal(500), z.literal(1000)], { error: 'Test voltage is 250, 500 or 1000 V' }).nullable().default(null),
+  testVoltage: z
+    .union([z.literal(250), z.literal(500), z.literal(1000)], { error: 'Test voltage is 250, 500 or 1000 V' })
+    .nullable()
+    .default(null),
   lineLine: ohmsReading('L–L insulation resistance', 10_000),
   lineEarth: ohmsReading('L–E insulation resistance', 10_000),
   neutralEarth: ohmsReading('N–E insulation resistance', 10_000),
@@ -56,11 +64,20 @@ export const circuitReadingsSchema = z.strictObject({
 export type CircuitReadings = z.infer<typeof circuitReadingsSchema>;
 export const EMPTY_READINGS: CircuitReadings = {
   insulation: { testVoltage: null, lineLine: null, lineEarth: null, neutralEarth: null },
-  r1PlusR2: null, r2: null, ring: { r1: null, rn: null, r2: null }, polarity: null, zs: null,
+  r1PlusR2: null,
+  r2: null,
+  ring: { r1: null, rn: null, r2: null },
+  polarity: null,
+  zs: null,
 };
 
 const tripMs = (label: string) =>
-  z.number({ error: `${label} must be a number` }).nonnegative(`${label} cannot be negative`).max(5000, `${label} is at most 5000 ms`).nullable().default(null);
+  z
+    .number({ error: `${label} must be a number` })
+    .nonnegative(`${label} cannot be negative`)
+    .max(5000, `${label} is at most 5000 ms`)
+    .nullable()
+    .default(null);
 
 /** An RCD's measured operating times (ms) at its rated residual current and at five times it. */
 export const rcdTripTimesSchema = z.strictObject({
@@ -123,7 +140,14 @@ export const plannedWaySchema = z.strictObject({
   phase: z.enum(phases).nullable().default(null),
   label: text(24).min(1, 'Required'),
   kind: z.enum(circuitKinds).default('other'),
-  device: plannedDeviceSchema.default(() => ({ kind: 'rcbo' as const, rating: null, curve: 'B' as const, residualMa: 30, rcdType: 'A' as const, rcdGroup: null })),
+  device: plannedDeviceSchema.default(() => ({
+    kind: 'rcbo' as const,
+    rating: null,
+    curve: 'B' as const,
+    residualMa: 30,
+    rcdType: 'A' as const,
+    rcdGroup: null,
+  })),
   legs: z.array(plannedLegSchema).max(8, 'At most 8 legs').default([]),
 });
 export type PlannedWay = z.infer<typeof plannedWaySchema>;
@@ -154,7 +178,11 @@ export type SurveyWay = z.infer<typeof surveyWaySchema>;
 export const surveySchema = z.strictObject({
   /** How the old board was described: "Rewireable fuse board, 1950s, under the stairs". */
   oldBoard: text(200).default(''),
-  surveyedOn: z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use the form YYYY-MM-DD').nullable().default(null),
+  surveyedOn: z
+    .string()
+    .regex(/^\d{4}-\d{2}-\d{2}$/, 'Use the form YYYY-MM-DD')
+    .nullable()
+    .default(null),
   /** Ze measured at the old board's origin, Ω. */
   ze: ohmsReading('Ze', 2000),
   ways: z.array(surveyWaySchema).max(200, 'At most 200 old ways'),

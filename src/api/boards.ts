@@ -6,20 +6,39 @@ import { z } from 'zod';
 import { json, request } from './http.js';
 import { scheduleResponseSchema, type Schedule } from '../../shared/schemas/schedule.js';
 import {
-  boardListResponseSchema, boardSummarySchema, createdSchema, saveResultSchema, revisionListResponseSchema,
-  revisionSnapshotSchema, diffResponseSchema, changeoverApplyResponseSchema, type BoardCreate,
+  boardListResponseSchema,
+  boardSummarySchema,
+  createdSchema,
+  saveResultSchema,
+  revisionListResponseSchema,
+  revisionSnapshotSchema,
+  diffResponseSchema,
+  changeoverApplyResponseSchema,
+  type BoardCreate,
 } from '../../shared/schemas/boards.js';
 
 export type { BoardListItem, BoardSummary, RevisionListItem, DiffResponse } from '../../shared/schemas/boards.js';
 
 const findingsResponseSchema = z.object({
-  findings: z.array(z.object({
-    severity: z.enum(['error', 'warning', 'info']), rule: z.string(), ways: z.array(z.number()), message: z.string(),
-    code: z.string(), field: z.string().optional(),
-  })),
+  findings: z.array(
+    z.object({
+      severity: z.enum(['error', 'warning', 'info']),
+      rule: z.string(),
+      ways: z.array(z.number()),
+      message: z.string(),
+      code: z.string(),
+      field: z.string().optional(),
+    }),
+  ),
 });
 
-export interface BoardListFilter { q?: string; page?: number; pageSize?: number; siteId?: number | null; deleted?: boolean }
+export interface BoardListFilter {
+  q?: string;
+  page?: number;
+  pageSize?: number;
+  siteId?: number | null;
+  deleted?: boolean;
+}
 
 function query(params: Record<string, string | number | boolean | null | undefined>): string {
   const search = new URLSearchParams();

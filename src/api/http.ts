@@ -5,7 +5,13 @@
 import type { z } from 'zod';
 
 export class ApiError extends Error {
-  constructor(readonly status: number, message: string, readonly fields: Record<string, string> = {}, readonly code?: string, readonly body?: unknown) {
+  constructor(
+    readonly status: number,
+    message: string,
+    readonly fields: Record<string, string> = {},
+    readonly code?: string,
+    readonly body?: unknown,
+  ) {
     super(message);
   }
 }
@@ -21,9 +27,16 @@ async function csrf(): Promise<string> {
 }
 
 /** After sign-in or sign-out the session changes; fetch a fresh token next time. */
-export function forgetCsrfToken(): void { csrfToken = null; }
+export function forgetCsrfToken(): void {
+  csrfToken = null;
+}
 
-export interface RequestOptions { body?: unknown; raw?: BodyInit; contentType?: string; signal?: AbortSignal }
+export interface RequestOptions {
+  body?: unknown;
+  raw?: BodyInit;
+  contentType?: string;
+  signal?: AbortSignal;
+}
 
 export async function request(method: string, path: string, opts: RequestOptions = {}): Promise<Response> {
   const headers: Record<string, string> = { Accept: 'application/json' };
@@ -39,7 +52,10 @@ export async function request(method: string, path: string, opts: RequestOptions
   const res = await fetch(path, { method, headers, body, credentials: 'same-origin', signal: opts.signal });
   if (res.status === 403 && method !== 'GET') {
     // A stale token after a session change: fetch a new one once and retry.
-    const peek = await res.clone().json().catch(() => null) as { error?: { code?: string } } | null;
+    const peek = (await res
+      .clone()
+      .json()
+      .catch(() => null)) as { error?: { code?: string } } | null;
     if (peek?.error?.code === 'csrf') {
       forgetCsrfToken();
       headers['X-CSRF-Token'] = await csrf();
@@ -51,7 +67,7 @@ export async function request(method: string, path: string, opts: RequestOptions
 
 async function checked(res: Response): Promise<Response> {
   if (res.ok) return res;
-  const data = await res.json().catch(() => null) as { error?: { message?: string; fields?: Record<string, string>; code?: string } } | null;
+  const data = (await res.json().catch(() => null)) as { error?: { message?: string; fields?: Record<string, string>; code?: string } } | null;
   throw new ApiError(res.status, data?.error?.message ?? `Request failed (${res.status})`, data?.error?.fields ?? {}, data?.error?.code, data);
 }
 

@@ -1,5 +1,14 @@
 /** Typed calls for the organisation's members and pending invitations (owner screens). */
-import { memberListSchema, memberSchema, pendingInvitationListSchema, pendingInvitationSchema, type InviteInput, type Member, type MemberUpdate, type PendingInvitation } from '../../shared/schemas/members.js';
+import {
+  memberListSchema,
+  memberSchema,
+  pendingInvitationListSchema,
+  pendingInvitationSchema,
+  type InviteInput,
+  type Member,
+  type MemberUpdate,
+  type PendingInvitation,
+} from '../../shared/schemas/members.js';
 import { json, send } from './http.js';
 
 export async function listMembers(): Promise<Member[]> {

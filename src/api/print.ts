@@ -6,8 +6,13 @@ import { z } from 'zod';
 import { json, request, send } from './http.js';
 import type { PrintOutput, PrintWarning, SheetLayout, SheetLayoutUpdate } from '../../shared/schemas/print.js';
 import {
-  printCheckSchema, printHistorySchema, printOffsetStateSchema, printWarningSchema, sheetLayoutListSchema,
-  sheetLayoutRecordSchema, type PrintOffsetSave,
+  printCheckSchema,
+  printHistorySchema,
+  printOffsetStateSchema,
+  printWarningSchema,
+  sheetLayoutListSchema,
+  sheetLayoutRecordSchema,
+  type PrintOffsetSave,
 } from '../../shared/schemas/print-records.js';
 
 export type { PrintRecord, SheetLayoutRecord, PrintOffset, PrintOffsetState } from '../../shared/schemas/print-records.js';
@@ -30,7 +35,12 @@ export function printQuery(selection: PrintSelection, record = false): string {
 export const pdfPath = (boardId: number, selection: PrintSelection, record = false) =>
   `/api/boards/${boardId}/pdf/${selection.output}?${printQuery(selection, record)}`;
 
-export interface FetchedPdf { blob: Blob; warnings: PrintWarning[]; pageCount: number; fileName: string }
+export interface FetchedPdf {
+  blob: Blob;
+  warnings: PrintWarning[];
+  pageCount: number;
+  fileName: string;
+}
 
 function fileNameOf(res: Response, fallback: string): string {
   const m = /filename="([^"]+)"/.exec(res.headers.get('Content-Disposition') ?? '');

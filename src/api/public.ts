@@ -11,17 +11,41 @@ const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'obj
 const isString = (v: unknown): v is string => typeof v === 'string';
 
 function looksLikeWay(v: unknown): boolean {
-  return isObject(v) && typeof v.way === 'number' && isString(v.wayText) && isString(v.label) && isString(v.description)
-    && Array.isArray(v.locations) && v.locations.every(isString) && isString(v.device) && isString(v.notes) && typeof v.feedsAnotherBoard === 'boolean'
-    && (v.rcd === null || (isObject(v.rcd) && (v.rcd.kind === 'rcd' || v.rcd.kind === 'rcbo')));
+  return (
+    isObject(v) &&
+    typeof v.way === 'number' &&
+    isString(v.wayText) &&
+    isString(v.label) &&
+    isString(v.description) &&
+    Array.isArray(v.locations) &&
+    v.locations.every(isString) &&
+    isString(v.device) &&
+    isString(v.notes) &&
+    typeof v.feedsAnotherBoard === 'boolean' &&
+    (v.rcd === null || (isObject(v.rcd) && (v.rcd.kind === 'rcd' || v.rcd.kind === 'rcbo')))
+  );
 }
 
 /** True when a response has the board page's shape; anything else is treated as a failed load. */
 export function isPublicBoard(v: unknown): v is PublicBoard {
-  return isObject(v) && isObject(v.board) && isString(v.board.name) && isObject(v.contractor) && isString(v.contractor.name)
-    && isObject(v.supply) && isString(v.supply.voltageText) && Array.isArray(v.ways) && v.ways.every(looksLikeWay) && Array.isArray(v.rcdGroups)
-    && isObject(v.inspection) && isObject(v.revision) && typeof v.revision.number === 'number'
-    && isString(v.publicNotes) && Array.isArray(v.cautions) && v.cautions.every(isString);
+  return (
+    isObject(v) &&
+    isObject(v.board) &&
+    isString(v.board.name) &&
+    isObject(v.contractor) &&
+    isString(v.contractor.name) &&
+    isObject(v.supply) &&
+    isString(v.supply.voltageText) &&
+    Array.isArray(v.ways) &&
+    v.ways.every(looksLikeWay) &&
+    Array.isArray(v.rcdGroups) &&
+    isObject(v.inspection) &&
+    isObject(v.revision) &&
+    typeof v.revision.number === 'number' &&
+    isString(v.publicNotes) &&
+    Array.isArray(v.cautions) &&
+    v.cautions.every(isString)
+  );
 }
 
 export type PublicBoardResult = { status: 'ready'; board: PublicBoard } | { status: 'not-found' };

@@ -20,11 +20,9 @@ export const setPageEnabled = (boardId: number | string, enabled: boolean) =>
   json(z.object({ publicEnabled: z.boolean() }), 'PATCH', `${board(boardId)}/public`, { body: { enabled } });
 
 /** A new token: the old link, and every printed QR code for it, stops working at once. */
-export const rotatePageToken = (boardId: number | string) =>
-  json(z.object({ publicToken: z.string() }), 'POST', `${board(boardId)}/token/rotate`);
+export const rotatePageToken = (boardId: number | string) => json(z.object({ publicToken: z.string() }), 'POST', `${board(boardId)}/token/rotate`);
 
-export const listReports = async (boardId: number | string): Promise<Report[]> =>
-  (await json(reportListSchema, 'GET', `${board(boardId)}/reports`)).items;
+export const listReports = async (boardId: number | string): Promise<Report[]> => (await json(reportListSchema, 'GET', `${board(boardId)}/reports`)).items;
 
 export const resolveReport = (boardId: number | string, reportId: number, status: 'accepted' | 'dismissed'): Promise<Report> =>
   json(reportSchema, 'PATCH', `${board(boardId)}/reports/${reportId}`, { body: { status } });
@@ -35,8 +33,7 @@ export const sendHandover = (boardId: number | string, input: HandoverSend): Pro
 export const listHandovers = async (boardId: number | string): Promise<Handover[]> =>
   (await json(handoverListSchema, 'GET', `${board(boardId)}/handovers`)).items;
 
-export const listPhotos = async (boardId: number | string): Promise<Photo[]> =>
-  (await json(photoListSchema, 'GET', `${board(boardId)}/photos`)).items;
+export const listPhotos = async (boardId: number | string): Promise<Photo[]> => (await json(photoListSchema, 'GET', `${board(boardId)}/photos`)).items;
 
 export const photoUrl = (boardId: number | string, photoId: number) => `${board(boardId)}/photos/${photoId}`;
 

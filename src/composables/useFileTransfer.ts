@@ -32,6 +32,9 @@ export function parseJsonFile(text: string): { ok: true; value: unknown } | { ok
     return { ok: true, value: JSON.parse(text) };
   } catch {
     // The parser's own words (positions, tokens) mean nothing to someone choosing a file.
-    return { ok: false, message: 'This is not a Waymark board file: it could not be read. Export one from a board (More → Export board file) and import that.' };
+    return {
+      ok: false,
+      message: 'This is not a Waymark board file: it could not be read. Export one from a board (More → Export board file) and import that.',
+    };
   }
 }

@@ -11,7 +11,10 @@ import { fieldErrors } from '../../shared/schemas/errors.js';
 import { ApiError } from '../api/http.js';
 
 /** Props for `<a-form-item v-bind="form.field('email')">`: the error state and message of one field. */
-export interface FieldBinding { validateStatus?: 'error'; help?: string }
+export interface FieldBinding {
+  validateStatus?: 'error';
+  help?: string;
+}
 
 export interface ZodForm<S extends z.ZodType> {
   model: z.input<S>;
@@ -49,7 +52,13 @@ export function useZodForm<S extends z.ZodType>(schema: S, initial: z.input<S>):
     return result.success ? result.data : null;
   }
 
-  watch(model as object, () => { if (attempted) validate(); }, { deep: true });
+  watch(
+    model as object,
+    () => {
+      if (attempted) validate();
+    },
+    { deep: true },
+  );
 
   async function submit(action: (data: z.output<S>) => Promise<void>): Promise<boolean> {
     attempted = true;

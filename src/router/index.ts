@@ -30,7 +30,12 @@ const routes: RouteRecordRaw[] = [
       { path: 'sites', name: 'sites', component: () => import('../views/sites/SitesView.vue') },
       { path: 'sites/:id', name: 'site', component: () => import('../views/sites/SiteView.vue'), props: true },
       { path: 'members', name: 'members', component: () => import('../views/settings/MembersView.vue'), meta: { roles: ['owner'] } },
-      { path: 'settings/organisation', name: 'organisation-settings', component: () => import('../views/settings/OrganisationSettingsView.vue'), meta: { roles: ['owner'] } },
+      {
+        path: 'settings/organisation',
+        name: 'organisation-settings',
+        component: () => import('../views/settings/OrganisationSettingsView.vue'),
+        meta: { roles: ['owner'] },
+      },
       { path: 'settings/printing', name: 'print-settings', component: () => import('../views/print/PrintSettingsView.vue') },
       { path: 'dev/mail', name: 'dev-mail', component: () => import('../views/settings/DevMailView.vue'), meta: { roles: ['owner'] } },
     ],

@@ -81,10 +81,14 @@ export const useBoardStore = defineStore('board', () => {
 
   // The draft follows every edit (a beat behind, so typing is not slowed) and goes when nothing is unsaved.
   let draftTimer: ReturnType<typeof setTimeout> | undefined;
-  watch(working, () => {
-    clearTimeout(draftTimer);
-    draftTimer = setTimeout(keepDraft, 300);
-  }, { deep: true });
+  watch(
+    working,
+    () => {
+      clearTimeout(draftTimer);
+      draftTimer = setTimeout(keepDraft, 300);
+    },
+    { deep: true },
+  );
   function keepDraft(): void {
     if (boardId.value === null || !loaded.value || !working.value) return;
     if (dirty.value) writeDraft(boardId.value, { baseRevision: baseRevision.value, base: loaded.value, working: working.value });
@@ -96,14 +100,20 @@ export const useBoardStore = defineStore('board', () => {
     const draft = readDraft(id);
     if (!draft || !loaded.value) return;
     const mine = draft.baseRevision === baseRevision.value ? { schedule: draft.working } : rebaseSchedule(draft.base, draft.working, loaded.value);
-    if (JSON.stringify(mine.schedule) === JSON.stringify(loaded.value)) { clearDraft(id); return; }
+    if (JSON.stringify(mine.schedule) === JSON.stringify(loaded.value)) {
+      clearDraft(id);
+      return;
+    }
     working.value = clone(mine.schedule);
     restoredDraftAt.value = draft.savedAt;
   }
 
   /** Loads a board; reloading the same board keeps the old copy on screen until the fresh one arrives. */
   async function load(id: number): Promise<void> {
-    if (id !== boardId.value) { working.value = null; loaded.value = null; }
+    if (id !== boardId.value) {
+      working.value = null;
+      loaded.value = null;
+    }
     boardId.value = id;
     status.value = 'loading';
     error.value = null;
@@ -147,8 +157,15 @@ export const useBoardStore = defineStore('board', () => {
       return 'saved';
     } catch (err) {
       status.value = 'ready';
-      if (err instanceof ApiError && err.status === 409) { conflict.value = { message: err.message }; return 'conflict'; }
-      if (err instanceof ApiError && err.status === 400) { serverFields.value = err.fields; error.value = err.message; return 'invalid'; }
+      if (err instanceof ApiError && err.status === 409) {
+        conflict.value = { message: err.message };
+        return 'conflict';
+      }
+      if (err instanceof ApiError && err.status === 400) {
+        serverFields.value = err.fields;
+        error.value = err.message;
+        return 'invalid';
+      }
       error.value = (err as Error).message;
       return 'failed';
     }
@@ -158,7 +175,12 @@ export const useBoardStore = defineStore('board', () => {
   async function reloadAndReapply(): Promise<RebaseResult | null> {
     if (!working.value || !loaded.value || boardId.value === null) return null;
     const fresh = await getSchedule(boardId.value);
-    const result = rebaseSchedule(loaded.value, working.value, { board: fresh.board, devices: fresh.devices, circuits: fresh.circuits, survey: fresh.survey ?? null });
+    const result = rebaseSchedule(loaded.value, working.value, {
+      board: fresh.board,
+      devices: fresh.devices,
+      circuits: fresh.circuits,
+      survey: fresh.survey ?? null,
+    });
     adopt(fresh);
     working.value = result.schedule;
     conflict.value = null;
@@ -189,8 +211,15 @@ export const useBoardStore = defineStore('board', () => {
       return { outcome: result.changed ? 'saved' : 'unchanged', created: result.created, updated: result.updated };
     } catch (err) {
       status.value = 'ready';
-      if (err instanceof ApiError && err.status === 409) { conflict.value = { message: err.message }; return { outcome: 'conflict', ...none }; }
-      if (err instanceof ApiError && err.status === 400) { serverFields.value = err.fields; error.value = err.message; return { outcome: 'invalid', ...none }; }
+      if (err instanceof ApiError && err.status === 409) {
+        conflict.value = { message: err.message };
+        return { outcome: 'conflict', ...none };
+      }
+      if (err instanceof ApiError && err.status === 400) {
+        serverFields.value = err.fields;
+        error.value = err.message;
+        return { outcome: 'invalid', ...none };
+      }
       error.value = (err as Error).message;
       return { outcome: 'failed', ...none };
     }
@@ -207,8 +236,31 @@ export const useBoardStore = defineStore('board', () => {
   }
 
   return {
-    boardId, status, error, code, siteId, updatedAt, loaded, working, baseRevision, serverFields, conflict, lastSummary, today, restoredDraftAt,
-    dirty, findings, findingsByField, fieldMessages, load, save, reloadAndReapply, discardAndReload, applyPlan, reset, ...editing(working),
+    boardId,
+    status,
+    error,
+    code,
+    siteId,
+    updatedAt,
+    loaded,
+    working,
+    baseRevision,
+    serverFields,
+    conflict,
+    lastSummary,
+    today,
+    restoredDraftAt,
+    dirty,
+    findings,
+    findingsByField,
+    fieldMessages,
+    load,
+    save,
+    reloadAndReapply,
+    discardAndReload,
+    applyPlan,
+    reset,
+    ...editing(working),
   };
 });
 

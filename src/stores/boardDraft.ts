@@ -19,7 +19,11 @@ export interface BoardDraft {
 }
 
 const storage = (): Storage | null => {
-  try { return typeof window === 'undefined' ? null : window.localStorage; } catch { return null; }
+  try {
+    return typeof window === 'undefined' ? null : window.localStorage;
+  } catch {
+    return null;
+  }
 };
 
 export function readDraft(boardId: number): BoardDraft | null {
@@ -35,7 +39,11 @@ export function readDraft(boardId: number): BoardDraft | null {
 
 /** Writes the draft; a full or refused storage loses only the safety net, never the edit on screen. */
 export function writeDraft(boardId: number, draft: Omit<BoardDraft, 'savedAt'>): void {
-  try { storage()?.setItem(PREFIX + boardId, JSON.stringify({ ...draft, savedAt: new Date().toISOString() })); } catch { /* storage full or private mode */ }
+  try {
+    storage()?.setItem(PREFIX + boardId, JSON.stringify({ ...draft, savedAt: new Date().toISOString() }));
+  } catch {
+    /* storage full or private mode */
+  }
 }
 
 export function clearDraft(boardId: number): void {

@@ -78,19 +78,32 @@ function mergeItems<T extends Item>(base: T[], mine: T[], theirs: T[], describe:
     const m = mineById.get(id);
     const t = theirsById.get(id);
     if (m && same(m, b)) continue; // untouched by me: theirs stands
-    if (!m) { // I removed it
+    if (!m) {
+      // I removed it
       if (!t) continue;
-      if (same(t, b)) { result.delete(id); applied++; } else conflicts.push(`${describe(b)} was removed here but changed in the saved copy`);
+      if (same(t, b)) {
+        result.delete(id);
+        applied++;
+      } else conflicts.push(`${describe(b)} was removed here but changed in the saved copy`);
       continue;
     }
-    if (!t) { conflicts.push(`${describe(m)} was changed here but removed in the saved copy`); continue; }
-    if (!same(t, b) && !same(t, m)) { conflicts.push(`${describe(m)} was changed by both`); continue; }
+    if (!t) {
+      conflicts.push(`${describe(m)} was changed here but removed in the saved copy`);
+      continue;
+    }
+    if (!same(t, b) && !same(t, m)) {
+      conflicts.push(`${describe(m)} was changed by both`);
+      continue;
+    }
     result.set(id, clone(m));
     applied++;
   }
   for (const m of mine) {
     if (baseById.has(m.id)) continue;
-    if (theirsById.has(m.id)) { conflicts.push(`${describe(m)} was added by both`); continue; }
+    if (theirsById.has(m.id)) {
+      conflicts.push(`${describe(m)} was added by both`);
+      continue;
+    }
     result.set(m.id, clone(m));
     applied++;
   }

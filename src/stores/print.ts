@@ -121,7 +121,10 @@ export const usePrintStore = defineStore('print', () => {
 
   function schedulePreview() {
     if (timer) clearTimeout(timer);
-    timer = setTimeout(() => { timer = null; void refreshPreview(); }, PREVIEW_DELAY_MS);
+    timer = setTimeout(() => {
+      timer = null;
+      void refreshPreview();
+    }, PREVIEW_DELAY_MS);
   }
 
   watch(selection, schedulePreview, { deep: true });
@@ -194,8 +197,9 @@ export const usePrintStore = defineStore('print', () => {
    * the browser's own check fails, while the last preview was refused, and until the preview of
    * what is picked now has come (the PDF printed is then the one seen).
    */
-  const printable = computed(() => Object.keys(errors.value).length === 0 && previewStatus.value === 'ready'
-    && previewedFor.value === JSON.stringify(selection.value));
+  const printable = computed(
+    () => Object.keys(errors.value).length === 0 && previewStatus.value === 'ready' && previewedFor.value === JSON.stringify(selection.value),
+  );
 
   /**
    * True when every field the server named in its refusal is a control on the page (the medium
@@ -211,9 +215,30 @@ export const usePrintStore = defineStore('print', () => {
   const lastPrintedRevision = computed(() => history.value.find((p) => p.output === output.value)?.revision ?? null);
 
   return {
-    boardId, output, mediaByOutput, optionsByOutput, selection, errors,
-    previewStatus, previewUrl, previewError, previewFields, warnings, pageCount,
-    history, historyStatus, layouts, lastPrintedRevision, printable, previewErrorBesideFields,
-    open, close, refreshPreview, loadHistory, loadLayouts, fetchForPrinting, fetchPack,
+    boardId,
+    output,
+    mediaByOutput,
+    optionsByOutput,
+    selection,
+    errors,
+    previewStatus,
+    previewUrl,
+    previewError,
+    previewFields,
+    warnings,
+    pageCount,
+    history,
+    historyStatus,
+    layouts,
+    lastPrintedRevision,
+    printable,
+    previewErrorBesideFields,
+    open,
+    close,
+    refreshPreview,
+    loadHistory,
+    loadLayouts,
+    fetchForPrinting,
+    fetchPack,
   };
 });

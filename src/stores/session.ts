@@ -100,7 +100,23 @@ export const useSessionStore = defineStore('session', () => {
   }
 
   return {
-    status, me, error, notice, role, signedIn, isOwner, canEdit,
-    hasRole, load, ensureLoaded, signIn, signUp, confirmSignUp, acceptInvitation, signOut, expire, renameOrganisation,
+    status,
+    me,
+    error,
+    notice,
+    role,
+    signedIn,
+    isOwner,
+    canEdit,
+    hasRole,
+    load,
+    ensureLoaded,
+    signIn,
+    signUp,
+    confirmSignUp,
+    acceptInvitation,
+    signOut,
+    expire,
+    renameOrganisation,
   };
 });

@@ -4,8 +4,12 @@ import { client, signupOwner, startTestApp, uniqueEmail, waitForMail, type TestA
 import { addMember } from '../helpers/accounts.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp({ devMail: true }); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp({ devMail: true });
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('dev-only captured mail, when it is on', () => {
   it('when an owner lists mail to an address, then they see id, recipient, subject and time, newest first', async () => {
@@ -27,7 +31,13 @@ describe('dev-only captured mail, when it is on', () => {
     // Non-ASCII text and a long line make nodemailer encode the body (quoted-printable or base64).
     const text = `Zs measured 1.12 Ω on way 3 — under the 1.37 Ω limit. ${'Long line of notes '.repeat(8)}\nhttp://waymark.test/invite/${'t'.repeat(43)}`;
     const organisationId = (await owner.get('/api/auth/me').expect(200)).body.organisation.id as number;
-    await t.ctx.mailer.send({ to, organisationId, subject: 'Café test ½', text, attachments: [{ filename: 'chart.pdf', content: Buffer.from('%PDF-1.7\n'), contentType: 'application/pdf' }] });
+    await t.ctx.mailer.send({
+      to,
+      organisationId,
+      subject: 'Café test ½',
+      text,
+      attachments: [{ filename: 'chart.pdf', content: Buffer.from('%PDF-1.7\n'), contentType: 'application/pdf' }],
+    });
     const row = await waitForMail(t.database, to);
     const res = await owner.get(`/api/dev/mail/${row.id}`).expect(200);
     const message = capturedMailMessageSchema.parse(res.body);
@@ -76,8 +86,12 @@ describe('dev-only captured mail, when it is on', () => {
 
 describe('dev-only captured mail, when it is off', () => {
   let off: TestApp;
-  beforeAll(async () => { off = await startTestApp({ devMail: false }); });
-  afterAll(async () => { await off.close(); });
+  beforeAll(async () => {
+    off = await startTestApp({ devMail: false });
+  });
+  afterAll(async () => {
+    await off.close();
+  });
 
   it('when even an owner asks, then 404 as if the route did not exist; signed out too', async () => {
     const owner = await signupOwner(off.app);

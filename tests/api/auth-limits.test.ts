@@ -7,8 +7,12 @@ import { client, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type Tes
 describe('sign-in rate limits', () => {
   let t: TestApp;
   // Low limits so the tests reach them; the per-IP limit is high enough not to interfere with the per-account one.
-  beforeAll(async () => { t = await startTestApp({ rateLimits: { loginPerAccount: 3, loginPerIp: 12, publicPerMinute: 120, reportsPerHour: 10, sendsPerHour: 10_000 } }); });
-  afterAll(async () => { await t.close(); });
+  beforeAll(async () => {
+    t = await startTestApp({ rateLimits: { loginPerAccount: 3, loginPerIp: 12, publicPerMinute: 120, reportsPerHour: 10, sendsPerHour: 10_000 } });
+  });
+  afterAll(async () => {
+    await t.close();
+  });
 
   it('when one account gets more attempts than its limit, then 429 with Retry-After, even with the right password', async () => {
     const owner = await signupOwner(t.app);
@@ -47,8 +51,12 @@ describe('sign-in rate limits', () => {
 
 describe('password reset request limit', () => {
   let t: TestApp;
-  beforeAll(async () => { t = await startTestApp({ rateLimits: { loginPerAccount: 2, loginPerIp: 50, publicPerMinute: 120, reportsPerHour: 10, sendsPerHour: 10_000 } }); });
-  afterAll(async () => { await t.close(); });
+  beforeAll(async () => {
+    t = await startTestApp({ rateLimits: { loginPerAccount: 2, loginPerIp: 50, publicPerMinute: 120, reportsPerHour: 10, sendsPerHour: 10_000 } });
+  });
+  afterAll(async () => {
+    await t.close();
+  });
 
   it('when one address is asked for too often, then 429 with Retry-After, the same whether it exists or not', async () => {
     const owner = await signupOwner(t.app);
@@ -64,8 +72,12 @@ describe('password reset request limit', () => {
 
 describe('password hashing', () => {
   let t: TestApp;
-  beforeAll(async () => { t = await startTestApp(); });
-  afterAll(async () => { await t.close(); });
+  beforeAll(async () => {
+    t = await startTestApp();
+  });
+  afterAll(async () => {
+    await t.close();
+  });
 
   it('when an account is made, then its password is stored as bcrypt with cost at least 10', async () => {
     const owner = await signupOwner(t.app);

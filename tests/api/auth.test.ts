@@ -3,8 +3,12 @@ import { simpleParser } from 'mailparser';
 import { client, linkToken, mailText, mailTo, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, type TestApp } from '../helpers/app.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('sign up, sign in, me, sign out', () => {
   it('when a new contractor signs up, then they are signed in as the owner of a new organisation', async () => {
@@ -32,7 +36,11 @@ describe('sign up, sign in, me, sign out', () => {
   });
 
   it('when a write has no CSRF token, then 403', async () => {
-    const res = await (await client(t.app)).agent.post('/api/auth/signup').send({ organisation: 'x', name: 'x', email: uniqueEmail(), password: TEST_PASSWORD });
+    const res = await (
+      await client(t.app)
+    ).agent
+      .post('/api/auth/signup')
+      .send({ organisation: 'x', name: 'x', email: uniqueEmail(), password: TEST_PASSWORD });
     expect(res.status).toBe(403);
   });
 
@@ -54,7 +62,7 @@ describe('sign up, sign in, me, sign out', () => {
     expect(res.status).toBe(400);
   });
 
-  it('when the e-mail is already registered, then the answer is the same as for a new address and the address\'s owner is told by mail', async () => {
+  it("when the e-mail is already registered, then the answer is the same as for a new address and the address's owner is told by mail", async () => {
     const owner = await signupOwner(t.app);
     const c = await client(t.app);
     const fresh = uniqueEmail('fresh');

@@ -6,7 +6,9 @@ import { diffResponseSchema, revisionListResponseSchema, revisionSnapshotSchema,
 
 let t: TestApp, owner: Client, viewer: Client, stranger: Client;
 beforeAll(async () => ({ t, owner, viewer, stranger } = await startWithCast('Schedule Test Ltd', 'Elsewhere Electrical')));
-afterAll(async () => { await t.close(); });
+afterAll(async () => {
+  await t.close();
+});
 
 const withoutMeta = ({ board, devices, circuits }: any) => ({ board, devices, circuits });
 
@@ -77,11 +79,13 @@ describe('reading and saving a schedule', () => {
   it('when 20 saves race from the same base revision, then exactly one wins, nineteen get 409, and the history has no gaps', async () => {
     const schedule = makeSchedule(5);
     const { id } = await createBoardWith(owner, schedule);
-    const results = await Promise.all(Array.from({ length: 20 }, (_, i) => {
-      const edit = structuredClone(schedule);
-      edit.circuits[0].label = `Racing edit ${i + 1}`;
-      return owner.put(`/api/boards/${id}/schedule`, { ...edit, baseRevision: 2 });
-    }));
+    const results = await Promise.all(
+      Array.from({ length: 20 }, (_, i) => {
+        const edit = structuredClone(schedule);
+        edit.circuits[0].label = `Racing edit ${i + 1}`;
+        return owner.put(`/api/boards/${id}/schedule`, { ...edit, baseRevision: 2 });
+      }),
+    );
     const statuses = results.map((r) => r.status);
     expect(statuses.filter((s) => s === 200)).toHaveLength(1);
     expect(statuses.filter((s) => s === 409)).toHaveLength(19);
@@ -109,7 +113,7 @@ describe('reading and saving a schedule', () => {
     await owner.put(`/api/boards/${id}/schedule`, 'not an object').set('Content-Type', 'application/json').expect(400);
   });
 
-  it('when a sub-main feeds another organisation\'s board or itself, then 400 on that circuit\'s feedsBoardId; its own board is fine', async () => {
+  it("when a sub-main feeds another organisation's board or itself, then 400 on that circuit's feedsBoardId; its own board is fine", async () => {
     const sub = await createBoardWith(owner, makeSchedule(2, 'Garden studio board'));
     const theirs = await createBoardWith(stranger, makeSchedule(1));
     const main = makeSchedule(3);
@@ -119,7 +123,9 @@ describe('reading and saving a schedule', () => {
     const res = await owner.put(`/api/boards/${id}/schedule`, { ...main, baseRevision: 2 }).expect(400);
     expect(Object.keys(res.body.error.fields)).toEqual(['circuits.2.feedsBoardId']);
     main.circuits[2].feedsBoardId = id;
-    expect((await owner.put(`/api/boards/${id}/schedule`, { ...main, baseRevision: 2 }).expect(400)).body.error.fields['circuits.2.feedsBoardId']).toMatch(/itself/);
+    expect((await owner.put(`/api/boards/${id}/schedule`, { ...main, baseRevision: 2 }).expect(400)).body.error.fields['circuits.2.feedsBoardId']).toMatch(
+      /itself/,
+    );
     main.circuits[2].feedsBoardId = sub.id;
     await owner.put(`/api/boards/${id}/schedule`, { ...main, baseRevision: 2 }).expect(200);
   });
@@ -146,7 +152,11 @@ describe('rule checks', () => {
   it('when a circuit records its installation conditions, then they read back and the check corrects Iz for them; bad ones are 400 by path', async () => {
     const schedule = makeSchedule(2);
     const legacy: any = structuredClone(schedule);
-    for (const c of legacy.circuits) { delete c.cable.ambientC; delete c.cable.groupedWith; delete c.cable.insulatedLengthMm; }
+    for (const c of legacy.circuits) {
+      delete c.cable.ambientC;
+      delete c.cable.groupedWith;
+      delete c.cable.insulatedLengthMm;
+    }
     const { id } = await createBoardWith(owner, legacy); // a client that knows nothing of the conditions still saves
     const before = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
     expect(before.circuits[0].cable).toMatchObject({ ambientC: null, groupedWith: null, insulatedLengthMm: null });
@@ -165,7 +175,11 @@ describe('rule checks', () => {
     bad.circuits[1].cable.ambientC = 'warm';
     bad.circuits[1].cable.insulatedLengthMm = -1;
     const res = await owner.put(`/api/boards/${id}/schedule`, { ...bad, baseRevision: 3 }).expect(400);
-    expect(Object.keys(res.body.error.fields).sort()).toEqual(['circuits.0.cable.groupedWith', 'circuits.1.cable.ambientC', 'circuits.1.cable.insulatedLengthMm']);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual([
+      'circuits.0.cable.groupedWith',
+      'circuits.1.cable.ambientC',
+      'circuits.1.cable.insulatedLengthMm',
+    ]);
   });
 
   it('when a measured Zs is over the Table 41.3 maximum, then the check names the way and the rule', async () => {

@@ -9,8 +9,12 @@ import { readStoredSchedule } from '../../server/boards/stored.js';
 import { isDuplicateKey } from '../../server/db/errors.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 /** Other test files share this database and may seed the demo too: a clash on the unique e-mail means it is already there. */
 async function seedOnce(): Promise<void> {
@@ -44,7 +48,7 @@ describe('demo seed', () => {
     expect((await demoOrganisation()).orgBoards).toHaveLength(orgBoards.length);
   });
 
-  it('when a demo board is fed by a sub-main, then that circuit names the sub-board\'s id', async () => {
+  it("when a demo board is fed by a sub-main, then that circuit names the sub-board's id", async () => {
     await seedOnce();
     const { orgBoards } = await demoOrganisation();
     const linked = demoSites.flatMap((s) => s.boards).filter((b) => b.feedsFromKey);

@@ -17,7 +17,9 @@ beforeAll(async () => {
   electrician = await addMember(t, owner, 'electrician');
   stranger = await signupOwner(t.app, 'Other Contractor Ltd');
 });
-afterAll(async () => { await t.close(); });
+afterAll(async () => {
+  await t.close();
+});
 
 describe('creating boards', () => {
   it('when an electrician creates an empty board, then it has a WM- code, a long public token and revision 1', async () => {
@@ -36,7 +38,14 @@ describe('creating boards', () => {
   });
 
   it('when many boards are created, then their codes and tokens are all different', async () => {
-    const ids = await Promise.all(Array.from({ length: 8 }, (_, i) => owner.post('/api/boards', { name: `Board ${i}` }).expect(201).then((r) => r.body.id)));
+    const ids = await Promise.all(
+      Array.from({ length: 8 }, (_, i) =>
+        owner
+          .post('/api/boards', { name: `Board ${i}` })
+          .expect(201)
+          .then((r) => r.body.id),
+      ),
+    );
     const rows = await Promise.all(ids.map((id) => owner.get(`/api/boards/${id}`).then((r) => r.body)));
     expect(new Set(rows.map((r) => r.code)).size).toBe(8);
     expect(new Set(rows.map((r) => r.publicToken)).size).toBe(8);
@@ -76,7 +85,7 @@ describe('listing and searching boards', () => {
     expect(first.items[0]).toMatchObject({ name: 'Paged board 5', circuitCount: 0, revision: 1, siteId: null, siteReference: null });
   });
 
-  it('when searching by a word of a way\'s location, then the board is found, and other organisations\' boards never are', async () => {
+  it("when searching by a word of a way's location, then the board is found, and other organisations' boards never are", async () => {
     const schedule = makeSchedule(3, 'Workshop board');
     schedule.circuits[1].locations = ['Potting shed'];
     const { id } = await createBoardWith(owner, schedule);
@@ -93,7 +102,10 @@ describe('listing and searching boards', () => {
     const { id } = await createBoardWith(owner, schedule, site.body.id);
     for (const q of ['qx-4471', 'Marchbank', 'stable block', 'tack room']) {
       const items = (await owner.get(`/api/boards?q=${encodeURIComponent(q)}`).expect(200)).body.items;
-      expect(items.map((b: any) => b.id), q).toContain(id);
+      expect(
+        items.map((b: any) => b.id),
+        q,
+      ).toContain(id);
     }
     const bySite = (await owner.get(`/api/boards?siteId=${site.body.id}`).expect(200)).body;
     expect(bySite.items).toHaveLength(1);
@@ -138,9 +150,22 @@ describe('reading, moving and the public page switch', () => {
     const { id } = await createBoardWith(owner, makeSchedule(1));
     const anonymous = await client(t.app);
     const routes: Array<[method: 'get' | 'post' | 'put' | 'patch' | 'delete', path: string]> = [
-      ['get', ''], ['get', '/schedule'], ['put', '/schedule'], ['patch', ''], ['delete', ''], ['post', '/restore'], ['post', '/duplicate'],
-      ['get', '/check'], ['get', '/revisions'], ['get', '/revisions/1'], ['get', '/diff?from=1&to=2'], ['get', '/export'],
-      ['get', '/circuits.csv'], ['post', '/circuits/import-csv'], ['post', '/token/rotate'], ['patch', '/public'],
+      ['get', ''],
+      ['get', '/schedule'],
+      ['put', '/schedule'],
+      ['patch', ''],
+      ['delete', ''],
+      ['post', '/restore'],
+      ['post', '/duplicate'],
+      ['get', '/check'],
+      ['get', '/revisions'],
+      ['get', '/revisions/1'],
+      ['get', '/diff?from=1&to=2'],
+      ['get', '/export'],
+      ['get', '/circuits.csv'],
+      ['post', '/circuits/import-csv'],
+      ['post', '/token/rotate'],
+      ['patch', '/public'],
     ];
     for (const [method, path] of routes) {
       const res = await anonymous[method](`/api/boards/${id}${path}`);
@@ -207,10 +232,16 @@ describe('soft delete, restore and duplicate', () => {
   it('when a board was deleted more than 30 days ago, then it can no longer be restored', async () => {
     const { id } = await createBoardWith(owner);
     await owner.delete(`/api/boards/${id}`).expect(204);
-    await t.database.db.update(boards).set({ deletedAt: new Date(Date.now() - 31 * 24 * 3600 * 1000) }).where(eq(boards.id, id));
+    await t.database.db
+      .update(boards)
+      .set({ deletedAt: new Date(Date.now() - 31 * 24 * 3600 * 1000) })
+      .where(eq(boards.id, id));
     const res = await owner.post(`/api/boards/${id}/restore`).expect(409);
     expect(res.body.error.message).toMatch(/30 days/);
-    await t.database.db.update(boards).set({ deletedAt: new Date(Date.now() - 29 * 24 * 3600 * 1000) }).where(eq(boards.id, id));
+    await t.database.db
+      .update(boards)
+      .set({ deletedAt: new Date(Date.now() - 29 * 24 * 3600 * 1000) })
+      .where(eq(boards.id, id));
     await owner.post(`/api/boards/${id}/restore`).expect(204);
   });
 

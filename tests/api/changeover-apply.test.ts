@@ -29,7 +29,10 @@ describe('POST /api/boards/:id/changeover/apply', () => {
     const { id, revision } = await createBoardWith(owner, surveyed());
     const s = surveyed();
     s.board.location = 'Moved';
-    await owner.put(`/api/boards/${id}/schedule`).send({ ...s, baseRevision: revision }).expect(200);
+    await owner
+      .put(`/api/boards/${id}/schedule`)
+      .send({ ...s, baseRevision: revision })
+      .expect(200);
     const res = await apply(owner, id, { baseRevision: revision }).expect(409);
     expect(res.body).toMatchObject({ error: { code: 'stale' }, revision: revision + 1 });
     expect((await owner.get(`/api/boards/${id}/schedule`)).body.circuits).toEqual([]);
@@ -57,7 +60,7 @@ describe('POST /api/boards/:id/changeover/apply', () => {
     expect(res.body.error.fields).toEqual({ survey: 'This board has no survey of an old board to plan from' });
   });
 
-  it('when a viewer applies, then 403; another organisation\'s owner gets 404; neither changes the board', async () => {
+  it("when a viewer applies, then 403; another organisation's owner gets 404; neither changes the board", async () => {
     const { id, revision } = await createBoardWith(owner, surveyed());
     await apply(viewer, id, { baseRevision: revision }).expect(403);
     await apply(stranger, id, { baseRevision: revision }).expect(404);

@@ -27,7 +27,11 @@ afterAll(async () => {
   await t?.close();
 });
 
-interface Raw { status: number; headers: IncomingHttpHeaders; body: Buffer }
+interface Raw {
+  status: number;
+  headers: IncomingHttpHeaders;
+  body: Buffer;
+}
 
 /** A GET sending exactly these headers; the body comes back as sent on the wire. */
 function rawGet(path: string, headers: Record<string, string>): Promise<Raw> {
@@ -37,7 +41,9 @@ function rawGet(path: string, headers: Record<string, string>): Promise<Raw> {
       res.on('data', (c: Buffer) => chunks.push(c));
       res.on('end', () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }));
       res.on('error', reject);
-    }).on('error', reject).end();
+    })
+      .on('error', reject)
+      .end();
   });
 }
 

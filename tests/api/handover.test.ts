@@ -7,8 +7,12 @@ import { addMember } from '../helpers/accounts.js';
 import { createBoard, signupMarkedOwner } from './public-fixture.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 async function pdfText(data: Buffer): Promise<string> {
   const parser = new PDFParse({ data: new Uint8Array(data) });
@@ -62,7 +66,9 @@ describe('handover e-mail', () => {
     const board = await createBoard(owner, undefined, false);
     expect((await owner.post(`/api/boards/${board.id}/handover`, { to: 'not-an-address' }).expect(400)).body.error.fields.to).toBeTruthy();
     expect((await owner.post(`/api/boards/${board.id}/handover`, { to: uniqueEmail(), cc: uniqueEmail() }).expect(400)).body.error.fields).toBeDefined();
-    expect((await owner.post(`/api/boards/${board.id}/handover`, { to: uniqueEmail(), message: 'x'.repeat(1001) }).expect(400)).body.error.fields.message).toBeTruthy();
+    expect(
+      (await owner.post(`/api/boards/${board.id}/handover`, { to: uniqueEmail(), message: 'x'.repeat(1001) }).expect(400)).body.error.fields.message,
+    ).toBeTruthy();
     expect((await owner.get(`/api/boards/${board.id}/handovers`).expect(200)).body.items).toEqual([]);
   });
 

@@ -5,12 +5,33 @@ import { makeSchedule } from '../helpers/boards.js';
 
 describe('CSV reading and writing (RFC 4180)', () => {
   it.each([
-    ['CRLF line ends', 'a,b\r\nc,d\r\n', [['a', 'b'], ['c', 'd']]], // RFC 4180 §2.1
-    ['no line end after the last record', 'a,b\nc,d', [['a', 'b'], ['c', 'd']]], // RFC 4180 §2.2
+    [
+      'CRLF line ends',
+      'a,b\r\nc,d\r\n',
+      [
+        ['a', 'b'],
+        ['c', 'd'],
+      ],
+    ], // RFC 4180 §2.1
+    [
+      'no line end after the last record',
+      'a,b\nc,d',
+      [
+        ['a', 'b'],
+        ['c', 'd'],
+      ],
+    ], // RFC 4180 §2.2
     ['empty cells', 'a,,\n', [['a', '', '']]],
     ['commas and doubled quotes inside quotes', '"x, y","he said ""hi""",z\n', [['x, y', 'he said "hi"', 'z']]], // RFC 4180 §2.6, §2.7
     ['a line break inside quotes', '"line1\nline2",b\n', [['line1\nline2', 'b']]], // RFC 4180 §2.6
-    ['a byte-order mark', '\ufeffway,label\n1,A', [['way', 'label'], ['1', 'A']]],
+    [
+      'a byte-order mark',
+      '\ufeffway,label\n1,A',
+      [
+        ['way', 'label'],
+        ['1', 'A'],
+      ],
+    ],
     ['an empty quoted cell', 'a,""\n', [['a', '']]],
     ['old Mac line ends', 'a\rb\r', [['a'], ['b']]],
   ])('when the text has %s, then the cells come out right', (_name, text, records) => {
@@ -23,7 +44,11 @@ describe('CSV reading and writing (RFC 4180)', () => {
     ['"a"b,c\n', /after a closing quote/],
   ])('when the text is %j, then a syntax error names the row', (text, message) => {
     expect(() => parseCsv(text)).toThrow(message);
-    try { parseCsv(text); } catch (err) { expect((err as CsvSyntaxError).row).toBe(text.startsWith('a,b') ? 2 : 1); }
+    try {
+      parseCsv(text);
+    } catch (err) {
+      expect((err as CsvSyntaxError).row).toBe(text.startsWith('a,b') ? 2 : 1);
+    }
   });
 
   it('when awkward cells are written and read back, then they are unchanged', () => {
@@ -48,14 +73,17 @@ describe('circuits as CSV', () => {
     expect(result.ok && result.circuits).toEqual(circuits);
   });
 
-  it('when a TT circuit\'s Zs is in the thousands of ohms, then it goes out and back in; over the 2000 Ω cap the row is refused', () => {
+  it("when a TT circuit's Zs is in the thousands of ohms, then it goes out and back in; over the 2000 Ω cap the row is refused", () => {
     const { circuits } = makeSchedule(2);
     circuits[0].measuredZs = 1650.5; // a TT reading within 1667 Ω, BS 7671:2018+A2 Table 41.5 for 30 mA (from memory)
     const csv = circuitsToCsv(circuits);
     expect(csv).toContain(',1650.5,');
     const back = circuitsFromCsv(csv, circuits);
     expect(back.ok && back.circuits[0].measuredZs).toBe(1650.5);
-    expect(circuitsFromCsv('way,label,measured_zs\n1,A,1999\n2,B,2500\n', circuits)).toEqual({ ok: false, fields: { 'rows.3.measured_zs': 'Zs is at most 2000 Ω: check the decimal point' } });
+    expect(circuitsFromCsv('way,label,measured_zs\n1,A,1999\n2,B,2500\n', circuits)).toEqual({
+      ok: false,
+      fields: { 'rows.3.measured_zs': 'Zs is at most 2000 Ω: check the decimal point' },
+    });
   });
 
   it('when a file holds a circuit twice by id, an unknown column or a missing required one, then each is listed', () => {

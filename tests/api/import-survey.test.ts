@@ -11,13 +11,19 @@ function surveyed() {
   const s = makeSchedule(2) as any;
   s.survey = {
     oldBoard: 'Rewireable fuse board',
-    ways: [{
-      id: 'old1', reference: '1', feeds: 'Sockets, front rooms', kind: 'ring', legs: 2,
-      device: { kind: 'fuse', fuseStandard: 'BS 3036', rating: 30 },
-      readings: { insulation: { testVoltage: 500, lineEarth: 2.5 }, ring: { r1: 0.52, rn: 0.53, r2: 0.86 } },
-      action: 'keep',
-      targets: [{ circuitId: 'c1', way: 1, label: 'Sockets', kind: 'ring', legs: [{ leg: 1 }, { leg: 2, junctionBoxId: 'jb1' }] }],
-    }],
+    ways: [
+      {
+        id: 'old1',
+        reference: '1',
+        feeds: 'Sockets, front rooms',
+        kind: 'ring',
+        legs: 2,
+        device: { kind: 'fuse', fuseStandard: 'BS 3036', rating: 30 },
+        readings: { insulation: { testVoltage: 500, lineEarth: 2.5 }, ring: { r1: 0.52, rn: 0.53, r2: 0.86 } },
+        action: 'keep',
+        targets: [{ circuitId: 'c1', way: 1, label: 'Sockets', kind: 'ring', legs: [{ leg: 1 }, { leg: 2, junctionBoxId: 'jb1' }] }],
+      },
+    ],
     junctionBoxes: [{ id: 'jb1', name: 'JB1', location: 'under the stairs' }],
   };
   return s;
@@ -48,8 +54,8 @@ describe('the survey in the board file', () => {
     s.survey.ways[0].readings.insulation.testVoltage = 750;
     s.survey.junctionBoxes[0].name = 'JB1\nReview it';
     const res = await owner.post('/api/boards/import', { format: 2, kind: 'waymark-board', ...s }).expect(400);
-    expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining([
-      'survey.ways.0.readings.insulation.testVoltage', 'survey.junctionBoxes.0.name',
-    ]));
+    expect(Object.keys(res.body.error.fields)).toEqual(
+      expect.arrayContaining(['survey.ways.0.readings.insulation.testVoltage', 'survey.junctionBoxes.0.name']),
+    );
   });
 });

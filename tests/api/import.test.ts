@@ -6,7 +6,9 @@ import { parseCsv } from '../../server/boards/csv.js';
 
 let t: TestApp, owner: Client, viewer: Client, stranger: Client;
 beforeAll(async () => ({ t, owner, viewer, stranger } = await startWithCast('Import Test Ltd', 'Far Away Electrical')));
-afterAll(async () => { await t.close(); });
+afterAll(async () => {
+  await t.close();
+});
 
 const withoutMeta = ({ board, devices, circuits }: any) => ({ board, devices, circuits });
 const boardCount = async (c: Client) => (await c.get('/api/boards?pageSize=1').expect(200)).body.total as number;
@@ -119,11 +121,19 @@ describe('circuit CSV', () => {
     const schedule = makeSchedule(3);
     const { id } = await createBoardWith(owner, schedule);
     const csv = 'Way,Label,Live_CSA,Locations\r\n1,Hall sockets,4,Hall; Stairs\r\n2,Landing lights,,Landing\r\n9,Shed radial,2.5,"Shed, rear"\r\n';
-    const res = await owner.agent.post(`/api/boards/${id}/circuits/import-csv?baseRevision=2`).set('X-CSRF-Token', owner.csrf)
-      .set('Content-Type', 'text/csv').send(csv).expect(200);
+    const res = await owner.agent
+      .post(`/api/boards/${id}/circuits/import-csv?baseRevision=2`)
+      .set('X-CSRF-Token', owner.csrf)
+      .set('Content-Type', 'text/csv')
+      .send(csv)
+      .expect(200);
     expect(res.body).toMatchObject({ revision: 3, changed: true });
     const { circuits } = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
-    expect(circuits.map((c: any) => [c.id, c.way, c.label])).toEqual([['c1', 1, 'Hall sockets'], ['c2', 2, 'Landing lights'], ['w9', 9, 'Shed radial']]);
+    expect(circuits.map((c: any) => [c.id, c.way, c.label])).toEqual([
+      ['c1', 1, 'Hall sockets'],
+      ['c2', 2, 'Landing lights'],
+      ['w9', 9, 'Shed radial'],
+    ]);
     expect(circuits[0].cable).toMatchObject({ liveCsa: 4, cpcCsa: 1.5, referenceMethod: 'C' });
     expect(circuits[0].locations).toEqual(['Hall', 'Stairs']);
     expect(circuits[0].deviceId).toBe('d1');
@@ -140,14 +150,16 @@ describe('circuit CSV', () => {
     expect(dropped.every((i) => i > 0)).toBe(true);
     const older = records.map((r) => r.filter((_, i) => !dropped.includes(i)));
     older[1][older[0].indexOf('label')] = 'Hall ring';
-    older.push(older[0].map((name) => ({ way: '7', label: 'Porch lights' } as Record<string, string>)[name] ?? ''));
+    older.push(older[0].map((name) => (({ way: '7', label: 'Porch lights' }) as Record<string, string>)[name] ?? ''));
     const res = await owner.post(`/api/boards/${id}/circuits/import-csv`, { csv: older.map((r) => r.join(',')).join('\n'), baseRevision: 2 }).expect(200);
     expect(res.body).toMatchObject({ revision: 3, changed: true });
     const { circuits } = (await owner.get(`/api/boards/${id}/schedule`).expect(200)).body;
     expect(circuits[0]).toMatchObject({ label: 'Hall ring', cable: { ambientC: 35, groupedWith: 4, insulatedLengthMm: 100 } });
     expect(circuits[2].cable).toMatchObject({ ambientC: null, groupedWith: null, insulatedLengthMm: null });
 
-    const bad = await owner.post(`/api/boards/${id}/circuits/import-csv`, { csv: 'way,label,ambient_c,grouped_with,insulated_length_mm\n1,A,hot,2.5,-3\n', baseRevision: 3 }).expect(400);
+    const bad = await owner
+      .post(`/api/boards/${id}/circuits/import-csv`, { csv: 'way,label,ambient_c,grouped_with,insulated_length_mm\n1,A,hot,2.5,-3\n', baseRevision: 3 })
+      .expect(400);
     expect(Object.keys(bad.body.error.fields).sort()).toEqual(['rows.2.ambient_c', 'rows.2.grouped_with', 'rows.2.insulated_length_mm']);
   });
 
@@ -184,7 +196,12 @@ describe('circuit CSV', () => {
     expect(Object.keys(quote.body.error.fields)).toEqual(['rows.2']);
     const body = await owner.post(`/api/boards/${id}/circuits/import-csv`, { csv: 5 }).expect(400);
     expect(Object.keys(body.body.error.fields).sort()).toEqual(['baseRevision', 'csv']);
-    const noBase = await owner.agent.post(`/api/boards/${id}/circuits/import-csv`).set('X-CSRF-Token', owner.csrf).set('Content-Type', 'text/csv').send('way,label\n1,A\n').expect(400);
+    const noBase = await owner.agent
+      .post(`/api/boards/${id}/circuits/import-csv`)
+      .set('X-CSRF-Token', owner.csrf)
+      .set('Content-Type', 'text/csv')
+      .send('way,label\n1,A\n')
+      .expect(400);
     expect(Object.keys(noBase.body.error.fields)).toEqual(['baseRevision']);
   });
 

@@ -8,8 +8,12 @@ import { addMember, inviteAndReadToken, linkToken, mailText } from '../helpers/a
 import { isoDay, shortDate } from '../../shared/rules/dates.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const DAY_MS = 24 * 3600 * 1000;
 
@@ -90,14 +94,19 @@ describe('inviting a member', () => {
     const owner = await signupOwner(t.app);
     const email = uniqueEmail('invitee');
     const token = await inviteAndReadToken(t, owner, email, 'viewer');
-    await t.database.db.update(invitations).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(invitations.tokenHash, hashToken(token)));
+    await t.database.db
+      .update(invitations)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(invitations.tokenHash, hashToken(token)));
     await request(t.app).get(`/api/invitations/${token}`).expect(404);
     await (await client(t.app)).post('/api/invitations/accept', { token, name: 'Late', password: TEST_PASSWORD }).expect(400);
     expect(await t.database.db.select().from(users).where(eq(users.email, email))).toHaveLength(0);
   });
 
   it('when a link is unknown, then 404; when it is not even token-shaped, then 400 naming the token', async () => {
-    await request(t.app).get(`/api/invitations/${'x'.repeat(43)}`).expect(404);
+    await request(t.app)
+      .get(`/api/invitations/${'x'.repeat(43)}`)
+      .expect(404);
     const res = await request(t.app).get('/api/invitations/short').expect(400);
     expect(res.body.error.fields.token).toBeTruthy();
   });
@@ -218,8 +227,12 @@ describe('who may manage invitations', () => {
 describe('when the mail relay is down', () => {
   let down: TestApp;
   // Port 1 on loopback: nothing listens there, so every connection is refused.
-  beforeAll(async () => { down = await startTestApp({ smtp: { host: '127.0.0.1', port: 1, from: 'Waymark <no-reply@waymark.test>' } }); });
-  afterAll(async () => { await down.close(); });
+  beforeAll(async () => {
+    down = await startTestApp({ smtp: { host: '127.0.0.1', port: 1, from: 'Waymark <no-reply@waymark.test>' } });
+  });
+  afterAll(async () => {
+    await down.close();
+  });
 
   it('when an invitation cannot be mailed, then 503 with a plain message and no invitation is left behind', async () => {
     const owner = await signupOwner(down.app);

@@ -4,8 +4,12 @@ import { client, signupOwner, startTestApp, TEST_PASSWORD, type TestApp } from '
 import { addMember } from '../helpers/accounts.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 async function ownerId(owner: Awaited<ReturnType<typeof signupOwner>>): Promise<number> {
   return (await owner.get('/api/auth/me').expect(200)).body.user.id;

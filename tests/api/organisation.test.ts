@@ -4,8 +4,12 @@ import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.
 import { addMember } from '../helpers/accounts.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const settings = {
   name: 'Kernow Circuits Ltd',
@@ -20,7 +24,12 @@ describe('organisation settings', () => {
     const owner = await signupOwner(t.app, 'Fresh Start Ltd');
     const res = await owner.get('/api/organisation').expect(200);
     expect(organisationSchema.parse(res.body)).toMatchObject({
-      name: 'Fresh Start Ltd', contactPhone: '', contactEmail: '', printOffsetXMm: 0, printOffsetYMm: 0, revision: 1,
+      name: 'Fresh Start Ltd',
+      contactPhone: '',
+      contactEmail: '',
+      printOffsetXMm: 0,
+      printOffsetYMm: 0,
+      revision: 1,
     });
   });
 
@@ -53,8 +62,11 @@ describe('organisation settings', () => {
 
   it('when two saves are made from the same revision, then one wins and the other is 409 stale with the current revision', async () => {
     const owner = await signupOwner(t.app, 'Racing Ltd');
-    const [a, b] = await Promise.all(['Saved By A Ltd', 'Saved By B Ltd'].map((name) =>
-      owner.put('/api/organisation', { name, contactPhone: '', contactEmail: '', printOffsetXMm: name.includes('A') ? 1 : 2, baseRevision: 1 })));
+    const [a, b] = await Promise.all(
+      ['Saved By A Ltd', 'Saved By B Ltd'].map((name) =>
+        owner.put('/api/organisation', { name, contactPhone: '', contactEmail: '', printOffsetXMm: name.includes('A') ? 1 : 2, baseRevision: 1 }),
+      ),
+    );
     expect([a.status, b.status].sort()).toEqual([200, 409]);
     const [won, lost] = a.status === 200 ? [a, b] : [b, a];
     expect(lost.body).toMatchObject({ error: { code: 'stale', fields: { baseRevision: expect.any(String) } }, revision: 2 });
@@ -76,9 +88,16 @@ describe('organisation settings', () => {
 
   it('when the settings are bad, then 400 naming each field and nothing is saved', async () => {
     const owner = await signupOwner(t.app, 'Unchanged Ltd');
-    const res = await owner.put('/api/organisation', {
-      name: '', contactPhone: 'x'.repeat(41), contactEmail: 'not-mail', printOffsetXMm: 11, printOffsetYMm: '2', baseRevision: 1,
-    }).expect(400);
+    const res = await owner
+      .put('/api/organisation', {
+        name: '',
+        contactPhone: 'x'.repeat(41),
+        contactEmail: 'not-mail',
+        printOffsetXMm: 11,
+        printOffsetYMm: '2',
+        baseRevision: 1,
+      })
+      .expect(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['contactEmail', 'contactPhone', 'name', 'printOffsetXMm', 'printOffsetYMm']);
     const extra = await owner.put('/api/organisation', { ...settings, id: 99, baseRevision: 1 }).expect(400);
     expect(extra.body.error.fields).toBeDefined();

@@ -27,7 +27,8 @@ describe('printing the changeover schedule', () => {
     expect(res.headers['content-type']).toBe('application/pdf');
     expect(res.headers['content-disposition']).toMatch(/-changeover-a4\.pdf"$/);
     const text = (await pdfPages(res.body)).join(' ');
-    for (const part of ['Changeover schedule', 'Fuse 1 (red dot)', 'Fuse 2', 'Way 3 Sockets front', '30 A BS 3036', 'Isolate the supply and prove dead']) expect(text).toContain(part);
+    for (const part of ['Changeover schedule', 'Fuse 1 (red dot)', 'Fuse 2', 'Way 3 Sockets front', '30 A BS 3036', 'Isolate the supply and prove dead'])
+      expect(text).toContain(part);
     expect(text).toMatch(/Fix before ?changeover/);
     await getPdf(owner, `/api/boards/${id}/pdf/changeover?media=a5-landscape&showReadings=false`).expect(200);
   });

@@ -6,8 +6,12 @@ import { getPdf, postBinary } from './print-support.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 async function pdfText(pdf: Buffer): Promise<{ pages: string[]; all: string }> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -44,8 +48,10 @@ describe('print records and history', () => {
     await postBinary(owner, `/api/boards/${id}/pdf/chart?media=a5`).expect(200);
     await postBinary(owner, `/api/boards/${id}/pdf/flags?media=tape-12`).expect(200);
     const { items } = (await owner.get(`/api/boards/${id}/prints`).expect(200)).body;
-    expect(items.map((p: { output: string; media: string; revision: number; userName: string }) => [p.output, p.media, p.revision, p.userName]))
-      .toEqual([['flags', 'tape-12', revision, 'Test Owner'], ['chart', 'a5', revision, 'Test Owner']]);
+    expect(items.map((p: { output: string; media: string; revision: number; userName: string }) => [p.output, p.media, p.revision, p.userName])).toEqual([
+      ['flags', 'tape-12', revision, 'Test Owner'],
+      ['chart', 'a5', revision, 'Test Owner'],
+    ]);
     expect(Date.parse(items[0].createdAt)).toBeGreaterThan(Date.now() - 60_000);
   });
 
@@ -65,7 +71,7 @@ describe('print records and history', () => {
     expect((await owner.get(`/api/boards/${id}/prints`).expect(200)).body.items).toEqual([]);
   });
 
-  it("when another organisation asks for the history, then 404; signed out, 401", async () => {
+  it('when another organisation asks for the history, then 404; signed out, 401', async () => {
     const { id } = await ownerWithBoard();
     const other = await signupOwner(t.app, 'Other Electrical');
     await other.get(`/api/boards/${id}/prints`).expect(404);

@@ -6,8 +6,12 @@ import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { getBinary, postBinary } from './print-support.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 /**
  * A small ZIP reader written from the format's published description (PKWARE APPNOTE.TXT 4.3):
@@ -62,8 +66,13 @@ describe('the print pack', () => {
 
     const files = readZip(res.body);
     const pdfs = [...files.keys()].filter((n) => n.endsWith('.pdf'));
-    expect(pdfs.map((n) => n.replace(`${code}-`, '').replace(/-(tape-\d+|a4|a5)(-landscape)?\.pdf$/, '')).sort())
-      .toEqual(['chart', 'flags', 'notices', 'tag', 'way-labels']);
+    expect(pdfs.map((n) => n.replace(`${code}-`, '').replace(/-(tape-\d+|a4|a5)(-landscape)?\.pdf$/, '')).sort()).toEqual([
+      'chart',
+      'flags',
+      'notices',
+      'tag',
+      'way-labels',
+    ]);
     for (const name of pdfs) {
       expect(name).toMatch(new RegExp(`^${code}-[a-z-]+-(tape-\\d+|a4|a5)\\.pdf$`));
       expect(files.get(name)!.subarray(0, 5).toString('latin1')).toBe('%PDF-'); // ISO 32000-1 7.5.2

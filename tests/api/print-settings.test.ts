@@ -5,8 +5,12 @@ import { addMember, createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { getPdf, inkBox, MM, pdfPages } from './print-support.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 async function ownerWithBoard() {
   const owner = await signupOwner(t.app);
@@ -16,8 +20,18 @@ async function ownerWithBoard() {
 
 describe('sheet layouts and printer offsets in prints', () => {
   const sheet = {
-    name: 'A4 21-up', pageWidthMm: 210, pageHeightMm: 297, labelWidthMm: 63.5, labelHeightMm: 38.1, // ISO 216 A4; 63.5 × 38.1 labels // common practice
-    columns: 3, rows: 7, marginTopMm: 15.15, marginLeftMm: 7.25, gapXMm: 2.5, gapYMm: 0, cornerRadiusMm: 2,
+    name: 'A4 21-up',
+    pageWidthMm: 210,
+    pageHeightMm: 297,
+    labelWidthMm: 63.5,
+    labelHeightMm: 38.1, // ISO 216 A4; 63.5 × 38.1 labels // common practice
+    columns: 3,
+    rows: 7,
+    marginTopMm: 15.15,
+    marginLeftMm: 7.25,
+    gapXMm: 2.5,
+    gapYMm: 0,
+    cornerRadiusMm: 2,
   };
 
   it("when a stored sheet layout is the medium, then the page is the sheet's size; another organisation's layout is 404", async () => {
@@ -40,8 +54,8 @@ describe('sheet layouts and printer offsets in prints', () => {
     const after = await getPdf(owner, `/api/boards/${id}/pdf/calibration?media=a4`).expect(200);
     const [a, b] = [inkBox(before.body), inkBox(after.body)];
     // 100 dpi: 1 mm = 100 / 25.4 px (ISO 32000-1 user unit 1/72 in); allow a pixel of rounding
-    expect(Math.abs((b.left - a.left) - 1.5 * 100 / 25.4)).toBeLessThanOrEqual(1.5);
-    expect(Math.abs((b.top - a.top) - -2 * 100 / 25.4)).toBeLessThanOrEqual(1.5);
+    expect(Math.abs(b.left - a.left - (1.5 * 100) / 25.4)).toBeLessThanOrEqual(1.5);
+    expect(Math.abs(b.top - a.top - (-2 * 100) / 25.4)).toBeLessThanOrEqual(1.5);
   });
 
   it('when the offset is out of range or a viewer sets it, then 400 with fields, or 403', async () => {
@@ -60,12 +74,22 @@ describe('sheet layouts and printer offsets in prints', () => {
     const electrician = await addMember(t, owner, 'electrician');
     const { revision } = (await owner.get('/api/organisation').expect(200)).body;
     await electrician.put('/api/print-settings/offset', { xMm: 0.5, yMm: 0.5, baseRevision: revision }).expect(200);
-    const lost = await owner.put('/api/organisation', {
-      name: 'Overwriter Ltd', contactPhone: '', contactEmail: '', printOffsetXMm: 0, printOffsetYMm: 0, baseRevision: revision,
-    }).expect(409);
+    const lost = await owner
+      .put('/api/organisation', {
+        name: 'Overwriter Ltd',
+        contactPhone: '',
+        contactEmail: '',
+        printOffsetXMm: 0,
+        printOffsetYMm: 0,
+        baseRevision: revision,
+      })
+      .expect(409);
     expect(lost.body).toMatchObject({ error: { code: 'stale' }, revision: revision + 1 });
     expect((await owner.get('/api/organisation').expect(200)).body).toMatchObject({
-      name: 'Test Electrical', printOffsetXMm: 0.5, printOffsetYMm: 0.5, revision: revision + 1,
+      name: 'Test Electrical',
+      printOffsetXMm: 0.5,
+      printOffsetYMm: 0.5,
+      revision: revision + 1,
     });
     // And the other way round: a settings save moves the revision on, so an offset from before it is stale.
     await owner.put('/api/organisation', { name: 'Renamed Ltd', contactPhone: '', contactEmail: '', baseRevision: revision + 1 }).expect(200);

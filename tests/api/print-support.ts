@@ -19,10 +19,18 @@ export const binary = (res: Response, done: (err: Error | null, body: Buffer) =>
   res.on('end', () => done(null, Buffer.concat(chunks)));
 };
 /** A GET whose body (a PDF or a ZIP) comes back as a Buffer. */
-export const getBinary = (c: Client, path: string) => c.get(path).buffer(true).parse(binary as never);
+export const getBinary = (c: Client, path: string) =>
+  c
+    .get(path)
+    .buffer(true)
+    .parse(binary as never);
 export const getPdf = getBinary;
 /** A POST (with the CSRF token): the only way a print is recorded. */
-export const postBinary = (c: Client, path: string) => c.post(path).buffer(true).parse(binary as never);
+export const postBinary = (c: Client, path: string) =>
+  c
+    .post(path)
+    .buffer(true)
+    .parse(binary as never);
 
 export async function pdfPages(pdf: Buffer): Promise<string[]> {
   const parser = new PDFParse({ data: new Uint8Array(pdf) });
@@ -53,7 +61,10 @@ export function inkBox(pdf: Buffer): { left: number; top: number } {
   for (let y = 0; y < png.height; y++) {
     for (let x = 0; x < png.width; x++) {
       const i = (y * png.width + x) * 4;
-      if (png.data[i] < 128 && png.data[i + 1] < 128 && png.data[i + 2] < 128) { left = Math.min(left, x); top = Math.min(top, y); }
+      if (png.data[i] < 128 && png.data[i + 1] < 128 && png.data[i + 2] < 128) {
+        left = Math.min(left, x);
+        top = Math.min(top, y);
+      }
     }
   }
   return { left, top };

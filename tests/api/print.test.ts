@@ -9,8 +9,12 @@ import { files } from '../../server/db/schema.js';
 import { getPdf, MM, pdfPages, renderPage } from './print-support.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 async function ownerWithBoard(schedule: Schedule = makeSchedule(6)) {
   const owner = await signupOwner(t.app);
@@ -22,7 +26,14 @@ async function ownerWithBoard(schedule: Schedule = makeSchedule(6)) {
 describe('printing each output of a stored board', () => {
   it('when each output is asked for, then a PDF comes back, named by board code, output and medium', async () => {
     const { owner, id, code } = await ownerWithBoard();
-    const cases = [['flags', 'tape-12'], ['way-labels', 'tape-12'], ['chart', 'a4'], ['notices', 'a4'], ['tag', 'tape-24'], ['calibration', 'a4']];
+    const cases = [
+      ['flags', 'tape-12'],
+      ['way-labels', 'tape-12'],
+      ['chart', 'a4'],
+      ['notices', 'a4'],
+      ['tag', 'tape-24'],
+      ['calibration', 'a4'],
+    ];
     for (const [output, media] of cases) {
       const res = await getPdf(owner, `/api/boards/${id}/pdf/${output}?media=${media}`).expect(200);
       expect(res.headers['content-type']).toBe('application/pdf');
@@ -90,7 +101,10 @@ describe('printing each output of a stored board', () => {
   it('when the alternative-supply notice cannot show where to isolate on the chosen label, then the print is refused with 422, not cut', async () => {
     const base = makeSchedule(3);
     const where = 'PV isolator and inverter in the loft beside the hatch; battery isolator on the garage wall by the door';
-    const schedule = scheduleSchema.parse({ ...base, board: { ...base.board, alternativeSupply: { present: true, kinds: ['pv', 'battery'], description: where } } });
+    const schedule = scheduleSchema.parse({
+      ...base,
+      board: { ...base.board, alternativeSupply: { present: true, kinds: ['pv', 'battery'], description: where } },
+    });
     const { owner, id } = await ownerWithBoard(schedule);
     const res = await owner.get(`/api/boards/${id}/pdf/notices?media=custom-40x20&kinds=alternative-supply`).expect(422);
     expect(JSON.stringify(res.body)).toMatch(/alternative-supply notice/);
@@ -114,8 +128,8 @@ describe('printing each output of a stored board', () => {
 /** Image XObjects in a PDF (ISO 32000-1 8.9.5: a stream whose /Subtype is /Image). */
 async function imageCount(pdf: Buffer): Promise<number> {
   const doc = await PDFDocument.load(pdf);
-  return doc.context.enumerateIndirectObjects()
-    .filter(([, o]) => o instanceof PDFRawStream && o.dict.get(PDFName.of('Subtype')) === PDFName.of('Image')).length;
+  return doc.context.enumerateIndirectObjects().filter(([, o]) => o instanceof PDFRawStream && o.dict.get(PDFName.of('Subtype')) === PDFName.of('Image'))
+    .length;
 }
 
 describe('the board tag', () => {

@@ -44,14 +44,40 @@ export function markedSchedule(): ScheduleInput {
       { id: 'zqprivRCBO', row: 1, kind: 'rcbo', rating: 40, curve: 'B', residualMa: 30, rcdType: 'A' },
     ],
     circuits: [
-      { id: 'zqprivC1', way: 1, deviceId: 'zqprivB32', label: 'Kitchen sockets', kind: 'ring', socketOutlets: true, legs: 2,
-        locations: ['Kitchen', 'Utility'], description: 'Ring final, worktop and appliance sockets',
-        notes: 'ZQPRIV circuit note: client refused RCD upgrade', notesPublic: false, previousReference: 'ZQPRIV-OLD-7' },
-      { id: 'zqprivC2', way: 2, deviceId: 'zqprivB6', label: 'Lights downstairs', kind: 'lighting', locations: ['Hall', 'Lounge'],
-        notes: 'Junction box in the loft above the landing', notesPublic: true },
+      {
+        id: 'zqprivC1',
+        way: 1,
+        deviceId: 'zqprivB32',
+        label: 'Kitchen sockets',
+        kind: 'ring',
+        socketOutlets: true,
+        legs: 2,
+        locations: ['Kitchen', 'Utility'],
+        description: 'Ring final, worktop and appliance sockets',
+        notes: 'ZQPRIV circuit note: client refused RCD upgrade',
+        notesPublic: false,
+        previousReference: 'ZQPRIV-OLD-7',
+      },
+      {
+        id: 'zqprivC2',
+        way: 2,
+        deviceId: 'zqprivB6',
+        label: 'Lights downstairs',
+        kind: 'lighting',
+        locations: ['Hall', 'Lounge'],
+        notes: 'Junction box in the loft above the landing',
+        notesPublic: true,
+      },
       { id: 'zqprivC3', way: 3, deviceId: 'zqprivB16', label: 'Garage sockets', kind: 'radial', socketOutlets: true, locations: ['Garage'] },
-      { id: 'zqprivC4', way: 4, deviceId: 'zqprivRCBO', label: 'Garden studio', kind: 'sub-main', locations: ['Studio', 'Garden'],
-        description: 'Sub-main to the studio board' },
+      {
+        id: 'zqprivC4',
+        way: 4,
+        deviceId: 'zqprivRCBO',
+        label: 'Garden studio',
+        kind: 'sub-main',
+        locations: ['Studio', 'Garden'],
+        description: 'Sub-main to the studio board',
+      },
     ],
   };
 }
@@ -64,11 +90,16 @@ export async function signupMarkedOwner(app: Express, withContactEmail = true): 
   return Object.assign(c, { contactEmail });
 }
 
-export interface StoredBoard { id: number; token: string; code: string; revision: number }
+export interface StoredBoard {
+  id: number;
+  token: string;
+  code: string;
+  revision: number;
+}
 
 /** Creates a board (on a new marked site) through the API and saves the schedule into it. */
 export async function createBoard(owner: Client, schedule: ScheduleInput = markedSchedule(), withSite = true): Promise<StoredBoard> {
-  const siteId = withSite ? (await owner.post('/api/sites', markedSite).expect(201)).body.id as number : null;
+  const siteId = withSite ? ((await owner.post('/api/sites', markedSite).expect(201)).body.id as number) : null;
   const created = await owner.post('/api/boards', { name: schedule.board.name, siteId }).expect(201);
   const id = created.body.id as number;
   const current = await owner.get(`/api/boards/${id}/schedule`).expect(200);

@@ -44,10 +44,12 @@ describe('board page reads arriving together', () => {
 
     const asked = Array.from({ length: 60 }, (_, i) => [...boards.map((b) => b.token), unknown, off.token][i % 5]!);
     const before = t.database.queryCount();
-    const answers = await Promise.all(asked.map(async (token) => {
-      const res = await read(token);
-      return { token, status: res.status, name: res.ok ? ((await res.json()) as { board: { name: string } }).board.name : null };
-    }));
+    const answers = await Promise.all(
+      asked.map(async (token) => {
+        const res = await read(token);
+        return { token, status: res.status, name: res.ok ? ((await res.json()) as { board: { name: string } }).board.name : null };
+      }),
+    );
     const statements = t.database.queryCount() - before;
 
     for (const a of answers) {

@@ -8,7 +8,10 @@ import { markedSchedule } from './public-fixture.js';
 
 const meta = {
   organisation: { name: 'Lanternfield Electrical', contactPhone: '', contactEmail: '' },
-  hasLogo: false, revision: 3, revisionDate: '2026-01-05', nextInspectionOn: null,
+  hasLogo: false,
+  revision: 3,
+  revisionDate: '2026-01-05',
+  nextInspectionOn: null,
 };
 const flat = toPublicBoard(demoSites[0].boards[0].schedule, meta);
 const marked = toPublicBoard(scheduleSchema.parse(markedSchedule()), meta);

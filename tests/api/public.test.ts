@@ -8,13 +8,21 @@ import { putAtCurrentRevision, startTestApp, type TestApp } from '../helpers/app
 import { createBoard, markedSite, PRIVATE_MARK, signupMarkedOwner } from './public-fixture.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 /** Every key anywhere in a JSON value. */
 function keysOf(value: unknown, out = new Set<string>()): Set<string> {
   if (Array.isArray(value)) value.forEach((v) => keysOf(v, out));
-  else if (value && typeof value === 'object') for (const [k, v] of Object.entries(value)) { out.add(k); keysOf(v, out); }
+  else if (value && typeof value === 'object')
+    for (const [k, v] of Object.entries(value)) {
+      out.add(k);
+      keysOf(v, out);
+    }
   return out;
 }
 
@@ -31,7 +39,19 @@ describe('the public board page data', () => {
     for (const value of Object.values(markedSite)) expect(text).not.toContain(value.toLowerCase());
     expect(text).not.toContain(owner.email.toLowerCase());
     const keys = keysOf(res.body);
-    for (const internal of ['id', 'deviceId', 'boardId', 'organisationId', 'siteId', 'feedsBoardId', 'protectedBy', 'privateNotes', 'previousReference', 'code', 'publicToken']) {
+    for (const internal of [
+      'id',
+      'deviceId',
+      'boardId',
+      'organisationId',
+      'siteId',
+      'feedsBoardId',
+      'protectedBy',
+      'privateNotes',
+      'previousReference',
+      'code',
+      'publicToken',
+    ]) {
       expect(keys.has(internal), `key ${internal}`).toBe(false);
     }
     expect(res.headers['cache-control']).toBe('no-store');
@@ -99,7 +119,7 @@ describe('the public board page data', () => {
     expect(after.supply.voltageText).toBe('400/230 V (three-phase, 230 V to earth)');
   });
 
-  it('when a way is a sub-main linked to another board, then the page flags it without naming the other board\'s id', async () => {
+  it("when a way is a sub-main linked to another board, then the page flags it without naming the other board's id", async () => {
     const owner = await signupMarkedOwner(t.app);
     const studio = await createBoard(owner, demoSites[0].boards[1].schedule, false);
     const main = demoSites[0].boards[0].schedule;
@@ -156,7 +176,9 @@ describe('the public board page data', () => {
 
   it('when the token is unknown or not even token-shaped, then the same plain 404', async () => {
     for (const token of ['A'.repeat(32), 'short', '..%2F..%2Fetc', "x' OR 1=1 --"]) {
-      const res = await request(t.app).get(`/api/public/boards/${encodeURIComponent(token)}`).expect(404);
+      const res = await request(t.app)
+        .get(`/api/public/boards/${encodeURIComponent(token)}`)
+        .expect(404);
       expect(res.body).toEqual({ error: { code: 'not_found', message: 'Not found' } });
     }
   });
@@ -183,7 +205,9 @@ describe('public rate limit', () => {
       expect(Number(res.headers['retry-after'])).toBeGreaterThan(0);
       expect(res.body.error.code).toBe('rate_limited');
       // Unknown tokens count too, so guessing is limited as well.
-      await request(limited.app).get(`/api/public/boards/${'B'.repeat(32)}`).expect(429);
+      await request(limited.app)
+        .get(`/api/public/boards/${'B'.repeat(32)}`)
+        .expect(429);
     } finally {
       await limited.close();
     }

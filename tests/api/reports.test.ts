@@ -14,8 +14,12 @@ const demoBoard = (key: string) => demoSites.flatMap((s) => s.boards).find((b) =
 
 let t: TestApp;
 // This file sends many reports from one address; the limits themselves are tested at the end.
-beforeAll(async () => { t = await startTestApp({ rateLimits: { reportsPerHour: 1000 } as ServerConfig['rateLimits'] }); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp({ rateLimits: { reportsPerHour: 1000 } as ServerConfig['rateLimits'] });
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const storedReports = (boardId: number) => t.database.db.select().from(reports).where(eq(reports.boardId, boardId));
 
@@ -24,9 +28,15 @@ describe('discrepancy reports from the board page', () => {
     const owner = await signupMarkedOwner(t.app);
     const board = await createBoard(owner, undefined, false);
     const visitor = await client(t.app);
-    const res = await visitor.post(`/api/public/boards/${board.token}/reports`, {
-      message: 'This also feeds the shed lights', way: 3, name: 'Ffion Marsh', contact: '01632 960777', website: '',
-    }).expect(202);
+    const res = await visitor
+      .post(`/api/public/boards/${board.token}/reports`, {
+        message: 'This also feeds the shed lights',
+        way: 3,
+        name: 'Ffion Marsh',
+        contact: '01632 960777',
+        website: '',
+      })
+      .expect(202);
     expect(res.body).toEqual({ received: true });
 
     const raw = await waitForMail(t.database, owner.contactEmail);
@@ -40,7 +50,12 @@ describe('discrepancy reports from the board page', () => {
 
     const list = reportListSchema.parse((await owner.get(`/api/boards/${board.id}/reports`).expect(200)).body);
     expect(list.items).toHaveLength(1);
-    expect(list.items[0]).toMatchObject({ message: 'Way 3: This also feeds the shed lights', reporterName: 'Ffion Marsh', reporterContact: '01632 960777', status: 'open' });
+    expect(list.items[0]).toMatchObject({
+      message: 'Way 3: This also feeds the shed lights',
+      reporterName: 'Ffion Marsh',
+      reporterContact: '01632 960777',
+      status: 'open',
+    });
     expect((await owner.get(`/api/boards/${board.id}/sharing`).expect(200)).body.openReports).toBe(1);
 
     // A visitor who already began with the way is not repeated.
@@ -61,7 +76,11 @@ describe('discrepancy reports from the board page', () => {
   it('when the honeypot field is filled, then 202 and nothing is stored or sent', async () => {
     const owner = await signupMarkedOwner(t.app);
     const board = await createBoard(owner, undefined, false);
-    const res = await (await client(t.app)).post(`/api/public/boards/${board.token}/reports`, { message: 'Buy cheap watches', website: 'http://spam.example' }).expect(202);
+    const res = await (
+      await client(t.app)
+    )
+      .post(`/api/public/boards/${board.token}/reports`, { message: 'Buy cheap watches', website: 'http://spam.example' })
+      .expect(202);
     expect(res.body).toEqual({ received: true });
     // A real report afterwards proves mail is flowing, so the absence of the first one is meaningful.
     await (await client(t.app)).post(`/api/public/boards/${board.token}/reports`, { message: 'Real report' }).expect(202);
@@ -99,7 +118,9 @@ describe('discrepancy reports from the board page', () => {
     await visitor.post(path, { message: 'Way 4 L3 label is faded', way: 4, phase: 'L3' }).expect(202);
     await visitor.post(path, { message: 'Not sure which phase', way: 4 }).expect(202);
     expect((await storedReports(board.id)).map((r) => r.message).sort()).toEqual([
-      'Way 4 L2: Bench sockets are now on the other wall', 'Way 4 L3 label is faded', 'Way 4: Not sure which phase',
+      'Way 4 L2: Bench sockets are now on the other wall',
+      'Way 4 L3 label is faded',
+      'Way 4: Not sure which phase',
     ]);
     // Way 5 has no circuit on L3 (its device there is a spare), so "5 L3" is no way of this board.
     expect((await visitor.post(path, { message: 'ok', way: 5, phase: 'L3' }).expect(400)).body.error.fields.phase).toMatch(/No way 5 L3/);

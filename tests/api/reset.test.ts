@@ -7,8 +7,12 @@ import { client, mailTo, signupOwner, startTestApp, TEST_PASSWORD, uniqueEmail, 
 import { addMember, linkToken, mailText } from '../helpers/accounts.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const NEW_PASSWORD = 'a-brand-new-passphrase';
 const HOUR_MS = 3600 * 1000;
@@ -129,7 +133,10 @@ describe('choosing the new password', () => {
   it('when the link has expired, then it is refused and the password is unchanged', async () => {
     const owner = await signupOwner(t.app);
     const token = await resetToken(owner.email);
-    await t.database.db.update(passwordResets).set({ expiresAt: new Date(Date.now() - 1000) }).where(eq(passwordResets.tokenHash, hashToken(token)));
+    await t.database.db
+      .update(passwordResets)
+      .set({ expiresAt: new Date(Date.now() - 1000) })
+      .where(eq(passwordResets.tokenHash, hashToken(token)));
     await (await client(t.app)).post('/api/auth/reset', { token, password: NEW_PASSWORD }).expect(400);
     await (await client(t.app)).post('/api/auth/login', { email: owner.email, password: TEST_PASSWORD }).expect(200);
   });
@@ -145,6 +152,9 @@ describe('choosing the new password', () => {
   });
 
   it('when reset is posted without the CSRF header, then 403', async () => {
-    await request(t.app).post('/api/auth/reset').send({ token: 'y'.repeat(43), password: NEW_PASSWORD }).expect(403);
+    await request(t.app)
+      .post('/api/auth/reset')
+      .send({ token: 'y'.repeat(43), password: NEW_PASSWORD })
+      .expect(403);
   });
 });

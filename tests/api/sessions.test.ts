@@ -9,7 +9,9 @@ async function app(): Promise<TestApp> {
   started.push(t);
   return t;
 }
-afterAll(async () => { await Promise.all(started.map((t) => t.close().catch(() => {}))); });
+afterAll(async () => {
+  await Promise.all(started.map((t) => t.close().catch(() => {})));
+});
 
 describe('sessions live in MariaDB', () => {
   it('when the app restarts, then a cookie from before the restart is still signed in', async () => {
@@ -32,8 +34,12 @@ describe('sessions live in MariaDB', () => {
     const owner = await signupOwner(a.app, 'Two Instances Ltd');
     const { cookie, csrf } = await sessionCookie(a.app, owner.email);
     await request(b.app).get('/api/auth/me').set('Cookie', cookie).expect(200);
-    const saved = await request(b.app).put('/api/organisation').set('Cookie', cookie).set('X-CSRF-Token', csrf)
-      .send({ name: 'Renamed On B Ltd', contactPhone: '', contactEmail: '', baseRevision: 1 }).expect(200); // a new organisation is at revision 1
+    const saved = await request(b.app)
+      .put('/api/organisation')
+      .set('Cookie', cookie)
+      .set('X-CSRF-Token', csrf)
+      .send({ name: 'Renamed On B Ltd', contactPhone: '', contactEmail: '', baseRevision: 1 })
+      .expect(200); // a new organisation is at revision 1
     expect(saved.body.name).toBe('Renamed On B Ltd');
     const me = await request(a.app).get('/api/auth/me').set('Cookie', cookie).expect(200);
     expect(me.body.organisation.name).toBe('Renamed On B Ltd');
@@ -48,7 +54,7 @@ describe('sessions live in MariaDB', () => {
     await request(b.app).get('/api/auth/me').set('Cookie', cookie).expect(401);
   });
 
-  it('when an owner disables a member on A, then the member\'s session on B answers 401 on its next request', async () => {
+  it("when an owner disables a member on A, then the member's session on B answers 401 on its next request", async () => {
     const a = await app();
     const b = await app();
     const owner = await signupOwner(a.app);

@@ -3,17 +3,27 @@ import { client, signupOwner, startTestApp, type TestApp } from '../helpers/app.
 import { addMember } from '../helpers/boards.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 /** 21 labels on an A4 sheet: 210 × 297 mm page // ISO 216; 3 × 7 labels of 63.5 × 38.1 mm // common practice */
 const a4TwentyOne = {
   name: 'A4 21-up',
-  pageWidthMm: 210, pageHeightMm: 297,
-  labelWidthMm: 63.5, labelHeightMm: 38.1,
-  columns: 3, rows: 7,
-  marginTopMm: 15.15, marginLeftMm: 7.25,
-  gapXMm: 2.5, gapYMm: 0, cornerRadiusMm: 2,
+  pageWidthMm: 210,
+  pageHeightMm: 297,
+  labelWidthMm: 63.5,
+  labelHeightMm: 38.1,
+  columns: 3,
+  rows: 7,
+  marginTopMm: 15.15,
+  marginLeftMm: 7.25,
+  gapXMm: 2.5,
+  gapYMm: 0,
+  cornerRadiusMm: 2,
 };
 
 describe('sheet layouts', () => {
@@ -65,7 +75,9 @@ describe('sheet layouts', () => {
   it('when two saves are made from the same revision, then one wins and the other is 409 stale with the current revision', async () => {
     const owner = await signupOwner(t.app);
     const electrician = await addMember(t, owner, 'electrician');
-    const { body: { id } } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
+    const {
+      body: { id },
+    } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
     const [a, b] = await Promise.all([
       owner.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, name: 'Saved by the owner', rows: 6, baseRevision: 1 }),
       electrician.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, name: 'Saved by the electrician', rows: 5, baseRevision: 1 }),
@@ -81,7 +93,9 @@ describe('sheet layouts', () => {
 
   it('when a PUT has no baseRevision, then 400 on baseRevision and nothing is saved; the fit checks still apply', async () => {
     const owner = await signupOwner(t.app);
-    const { body: { id } } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
+    const {
+      body: { id },
+    } = await owner.post('/api/sheet-layouts', a4TwentyOne).expect(201);
     for (const baseRevision of [undefined, 0, 1.5, null]) {
       const res = await owner.put(`/api/sheet-layouts/${id}`, { ...a4TwentyOne, name: 'Not saved', baseRevision }).expect(400);
       expect(res.body.error.fields.baseRevision, String(baseRevision)).toBe('baseRevision is required');

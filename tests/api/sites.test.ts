@@ -5,11 +5,17 @@ import { siteDetailSchema, siteListResponseSchema, siteSchema } from '../../shar
 
 let t: TestApp, owner: Client, viewer: Client, stranger: Client;
 beforeAll(async () => ({ t, owner, viewer, stranger } = await startWithCast('Sites Test Ltd', 'Neighbouring Sparks')));
-afterAll(async () => { await t.close(); });
+afterAll(async () => {
+  await t.close();
+});
 
 const fullSite = {
-  reference: 'JOB-2291', clientName: 'Perpetua Oakhanger', address: '14 Larkspur Row\nWendlebury Parva',
-  clientEmail: 'Perpetua@Client.Example', clientPhone: '01632 960 771', notes: 'Key with the neighbour at number 12',
+  reference: 'JOB-2291',
+  clientName: 'Perpetua Oakhanger',
+  address: '14 Larkspur Row\nWendlebury Parva',
+  clientEmail: 'Perpetua@Client.Example',
+  clientPhone: '01632 960 771',
+  notes: 'Key with the neighbour at number 12',
 };
 
 describe('sites', () => {
@@ -38,7 +44,9 @@ describe('sites', () => {
   });
 
   it('when two saves are made from the same revision, then one wins and the other is 409 stale with the current revision', async () => {
-    const { body: { id } } = await owner.post('/api/sites', fullSite).expect(201);
+    const {
+      body: { id },
+    } = await owner.post('/api/sites', fullSite).expect(201);
     const [a, b] = await Promise.all([
       owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Saved by A', baseRevision: 1 }),
       owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Saved by B', baseRevision: 1 }),
@@ -54,7 +62,9 @@ describe('sites', () => {
   });
 
   it('when a PUT has no baseRevision, then 400 on baseRevision and nothing is saved', async () => {
-    const { body: { id } } = await owner.post('/api/sites', fullSite).expect(201);
+    const {
+      body: { id },
+    } = await owner.post('/api/sites', fullSite).expect(201);
     for (const baseRevision of [undefined, 0, 1.5, '1']) {
       const res = await owner.put(`/api/sites/${id}`, { ...fullSite, clientName: 'Not saved', baseRevision }).expect(400);
       expect(res.body.error.fields.baseRevision, String(baseRevision)).toBe('baseRevision is required');
@@ -65,7 +75,10 @@ describe('sites', () => {
   it('when the list is searched, then the query matches reference, client or address', async () => {
     const created = await owner.post('/api/sites', { reference: 'SRCH-77', clientName: 'Hepzibah Tallow', address: 'Quillet Lane' }).expect(201);
     for (const q of ['srch-77', 'tallow', 'quillet']) {
-      expect((await owner.get(`/api/sites?q=${q}`).expect(200)).body.items.map((s: any) => s.id), q).toEqual([created.body.id]);
+      expect(
+        (await owner.get(`/api/sites?q=${q}`).expect(200)).body.items.map((s: any) => s.id),
+        q,
+      ).toEqual([created.body.id]);
     }
     expect((await stranger.get('/api/sites?q=tallow').expect(200)).body.items).toEqual([]);
   });

@@ -28,7 +28,7 @@ describe('the survey CSV and the readings columns of the circuit CSV', () => {
     expect(rows[6]).toMatchObject({ action: 'retire', new_ways: '', verdict: 'ok' });
   });
 
-  it('when a board has no survey, then 400 on survey; another organisation\'s board is 404', async () => {
+  it("when a board has no survey, then 400 on survey; another organisation's board is 404", async () => {
     const { id } = await createBoardWith(owner, makeSchedule(2));
     const res = await owner.get(`/api/boards/${id}/survey.csv`).expect(400);
     expect(res.body.error.fields).toHaveProperty('survey');
@@ -36,11 +36,15 @@ describe('the survey CSV and the readings columns of the circuit CSV', () => {
     await stranger.get(`/api/boards/${surveyed.id}/survey.csv`).expect(404);
   });
 
-  it('when a circuit\'s readings are exported and imported, then they come back; a board without readings re-imports unchanged', async () => {
+  it("when a circuit's readings are exported and imported, then they come back; a board without readings re-imports unchanged", async () => {
     const s = makeSchedule(3);
     s.circuits[0]!.readings = {
-      insulation: { testVoltage: 500, lineLine: 200, lineEarth: 150, neutralEarth: 120 }, r1PlusR2: 0.32, r2: null,
-      ring: { r1: 0.48, rn: 0.49, r2: 0.8 }, polarity: 'correct', zs: null,
+      insulation: { testVoltage: 500, lineLine: 200, lineEarth: 150, neutralEarth: 120 },
+      r1PlusR2: 0.32,
+      r2: null,
+      ring: { r1: 0.48, rn: 0.49, r2: 0.8 },
+      polarity: 'correct',
+      zs: null,
     };
     const { id, revision } = await createBoardWith(owner, s);
     const csv = (await owner.get(`/api/boards/${id}/circuits.csv`).expect(200)).text;
@@ -58,7 +62,10 @@ describe('the survey CSV and the readings columns of the circuit CSV', () => {
     expect(read.body.circuits[0].readings.r1PlusR2).toBe(0.35);
     expect(read.body.circuits[1].readings ?? null).toBeNull();
     const bad = csv.replace(',500,', ',750,');
-    const refused = await owner.post(`/api/boards/${id}/circuits/import-csv`).send({ csv: bad, baseRevision: revision + 1 }).expect(400);
+    const refused = await owner
+      .post(`/api/boards/${id}/circuits/import-csv`)
+      .send({ csv: bad, baseRevision: revision + 1 })
+      .expect(400);
     expect(refused.body.error.fields).toHaveProperty('rows.2.ir_test_voltage');
   });
 });

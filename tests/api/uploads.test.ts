@@ -19,7 +19,9 @@ beforeAll(async () => {
   t = await startTestApp();
   jpeg = await realJpeg();
 });
-afterAll(async () => { await t.close(); });
+afterAll(async () => {
+  await t.close();
+});
 
 /** A real PNG from pngjs (an encoder independent of the sniffing code). */
 function realPng(width = 8, height = 8): Buffer {
@@ -44,7 +46,10 @@ async function realJpeg(): Promise<Buffer> {
 
 const orgIdOf = async (c: Client) => (await c.get('/api/auth/me').expect(200)).body.organisation.id as number;
 const storedFiles = async (organisationId: number, kind: 'logo' | 'photo') =>
-  t.database.db.select({ id: files.id, mime: files.mime, size: files.size }).from(files).where(and(eq(files.organisationId, organisationId), eq(files.kind, kind)));
+  t.database.db
+    .select({ id: files.id, mime: files.mime, size: files.size })
+    .from(files)
+    .where(and(eq(files.organisationId, organisationId), eq(files.kind, kind)));
 
 const putLogo = (c: Client, data: Buffer, filename: string, contentType: string) =>
   c.agent.put('/api/organisation/logo').set('X-CSRF-Token', c.csrf).attach('file', data, { filename, contentType });
@@ -109,9 +114,15 @@ describe('organisation logo', () => {
 
   it('when no file or two files are sent, then 400; an electrician may not change the logo; signed out 401', async () => {
     const owner = await signupMarkedOwner(t.app);
-    expect((await owner.agent.put('/api/organisation/logo').set('X-CSRF-Token', owner.csrf).field('caption', 'x').expect(400)).body.error.fields.file).toBe('Required');
-    await owner.agent.put('/api/organisation/logo').set('X-CSRF-Token', owner.csrf)
-      .attach('file', realPng(), 'a.png').attach('file', realPng(), 'b.png').expect(400);
+    expect((await owner.agent.put('/api/organisation/logo').set('X-CSRF-Token', owner.csrf).field('caption', 'x').expect(400)).body.error.fields.file).toBe(
+      'Required',
+    );
+    await owner.agent
+      .put('/api/organisation/logo')
+      .set('X-CSRF-Token', owner.csrf)
+      .attach('file', realPng(), 'a.png')
+      .attach('file', realPng(), 'b.png')
+      .expect(400);
     const electrician = await addMember(t, owner, 'electrician');
     await putLogo(electrician, realPng(), 'logo.png', 'image/png').expect(403);
     await electrician.get('/api/organisation/logo').expect(404);
@@ -173,8 +184,13 @@ describe('board photos', () => {
     expect((await postPhoto(owner, board.id, big, 'big.jpg', 'image/jpeg').expect(413)).body.error.message).toMatch(/larger than 10 MB/);
     expect((await postPhoto(owner, board.id, Buffer.from('%PDF-1.7 not a photo'), 'photo.jpg', 'image/jpeg').expect(400)).body.error.fields.file).toBeTruthy();
     expect((await postPhoto(owner, board.id, realPng(), 'ok.png', 'image/png', 'x'.repeat(201)).expect(400)).body.error.fields.caption).toBeTruthy();
-    await owner.agent.post(`/api/boards/${board.id}/photos`).set('X-CSRF-Token', owner.csrf)
-      .field('caption', 'a').field('path', '../../etc/passwd').attach('file', realPng(), '../../evil.png').expect(400);
+    await owner.agent
+      .post(`/api/boards/${board.id}/photos`)
+      .set('X-CSRF-Token', owner.csrf)
+      .field('caption', 'a')
+      .field('path', '../../etc/passwd')
+      .attach('file', realPng(), '../../evil.png')
+      .expect(400);
     expect(await storedFiles(orgId, 'photo')).toEqual([]);
     await owner.get(`/api/boards/${board.id}/photos/abc`).expect(400);
   });

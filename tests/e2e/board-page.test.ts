@@ -14,8 +14,12 @@ import { simpleParser } from 'mailparser';
 import { uniqueEmail, waitForMail } from '../helpers/app.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 /** The demo flat's main board: way 8 is the sub-main to the garden studio. */
 const flatMain = demoSites[0].boards.find((b) => b.key === 'flat-main')!.schedule;
@@ -35,13 +39,14 @@ async function storeDemoBoard(page: Page, contactEmail = uniqueEmail('office'), 
   const headers = { 'X-CSRF-Token': await csrf(page.request) };
   const created = await page.request.post('/api/boards', { headers, data: { name: schedule.board.name } });
   expect(created.status()).toBe(201);
-  const { id } = await created.json() as { id: number };
-  const current = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as { revision: number };
+  const { id } = (await created.json()) as { id: number };
+  const current = (await (await page.request.get(`/api/boards/${id}/schedule`)).json()) as { revision: number };
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: current.revision } });
   expect(saved.status()).toBe(200);
-  const organisation = await (await page.request.get('/api/organisation')).json() as { revision: number };
+  const organisation = (await (await page.request.get('/api/organisation')).json()) as { revision: number };
   const contact = await page.request.put('/api/organisation', {
-    headers, data: { name: 'Quillmarsh Test Electrical', contactPhone: '01632 960418', contactEmail, baseRevision: organisation.revision },
+    headers,
+    data: { name: 'Quillmarsh Test Electrical', contactPhone: '01632 960418', contactEmail, baseRevision: organisation.revision },
   });
   expect(contact.status()).toBe(200);
   return id;
@@ -77,7 +82,9 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     const page = await app.newPage({ viewport: PHONE });
     page.setDefaultTimeout(60_000);
     const scriptUrls = new Set<string>();
-    page.on('request', (req) => { if (req.resourceType() === 'script') scriptUrls.add(req.url()); });
+    page.on('request', (req) => {
+      if (req.resourceType() === 'script') scriptUrls.add(req.url());
+    });
     await page.goto(url, { waitUntil: 'networkidle' });
     await page.getByRole('heading', { level: 1, name: flatMain.board.name }).waitFor();
     await page.getByRole('heading', { name: 'Before you touch this board' }).waitFor();
@@ -99,11 +106,15 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
 
     // Nothing is cut off or needs sideways scrolling on a phone.
     // The test runs under Node's types, so the page's `document` is reached through globalThis.
-    const scrollWidth = await page.evaluate(() => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth);
+    const scrollWidth = await page.evaluate(
+      () => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth,
+    );
     expect(scrollWidth).toBeLessThanOrEqual(PHONE.width);
     await page.getByLabel('Find a way by room, place or name').fill('');
     // Every way of the flat has its own RCBO, so "if an RCD trips" names the sub-main's RCBO on its own line.
-    expect(await page.locator('.public-rcds').textContent()).toContain('If the RCBO of way 8 (Garden studio) trips, everything on the board it feeds goes off too');
+    expect(await page.locator('.public-rcds').textContent()).toContain(
+      'If the RCBO of way 8 (Garden studio) trips, everything on the board it feeds goes off too',
+    );
     const axe = await new AxeBuilder({ page }).analyze();
     const serious = axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
     expect(serious.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`)).toEqual([]);
@@ -114,10 +125,14 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     // Every script the route loaded, read from the built files and gzipped as a server would send them.
     // Modulepreloaded chunks count too, whether or not the browser reports them as script requests.
     const html = readFileSync(join(DIST, 'index.html'), 'utf8');
-    for (const m of html.matchAll(/<(?:script|link rel="modulepreload")[^>]*(?:src|href)="(\/assets\/[^"]+\.js)"/g)) scriptUrls.add(new URL(m[1], app.baseUrl).toString());
+    for (const m of html.matchAll(/<(?:script|link rel="modulepreload")[^>]*(?:src|href)="(\/assets\/[^"]+\.js)"/g))
+      scriptUrls.add(new URL(m[1], app.baseUrl).toString());
     const scripts = [...scriptUrls].map((u) => ({ url: u, gzip: gzipSync(readFileSync(join(DIST, new URL(u).pathname))).length }));
     const routeJs = scripts.reduce((sum, s) => sum + s.gzip, 0);
-    console.log(`board page route: ${scripts.length} scripts, ${(routeJs / 1024).toFixed(1)} KB gzipped:`, scripts.map((s) => `${new URL(s.url).pathname} ${s.gzip}`).join(', '));
+    console.log(
+      `board page route: ${scripts.length} scripts, ${(routeJs / 1024).toFixed(1)} KB gzipped:`,
+      scripts.map((s) => `${new URL(s.url).pathname} ${s.gzip}`).join(', '),
+    );
     expect(scripts.some((s) => /antd|ant-design/i.test(s.url))).toBe(false);
     // The route guard loads the session store (and zod) only for signed-in screens; an eager import would cost ~25 KB here.
     expect(routeJs, 'board page route JS (gzip) over the 80 KB budget: see which scripts above').toBeLessThanOrEqual(ROUTE_JS_BUDGET_GZIP);
@@ -165,7 +180,9 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     await page.getByRole('heading', { name: 'Inspection overdue' }).waitFor();
     expect(await page.locator('.public-overdue').textContent()).toContain('recommended by 8 November 2025');
     expect(await page.locator('.public-facts__list').textContent()).toContain('Overdue (recommended by 8 November 2025)');
-    const scrollWidth = await page.evaluate(() => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth);
+    const scrollWidth = await page.evaluate(
+      () => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth,
+    );
     expect(scrollWidth).toBeLessThanOrEqual(PHONE.width);
     const axe = await new AxeBuilder({ page }).analyze();
     expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual([]);

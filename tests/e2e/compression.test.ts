@@ -14,8 +14,12 @@ import { demoSites } from '../../server/seed/demo-data.js';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 const DIST = join(import.meta.dirname, '..', '..', 'dist');
 const flatMain = demoSites[0].boards.find((b) => b.key === 'flat-main')!.schedule;
@@ -23,7 +27,11 @@ const flatMain = demoSites[0].boards.find((b) => b.key === 'flat-main')!.schedul
 const DYNAMIC_THRESHOLD = 1024;
 const TEXT_TYPE = /^(text\/|application\/(javascript|json)|image\/svg\+xml)/;
 
-interface Raw { status: number; headers: IncomingHttpHeaders; body: Buffer }
+interface Raw {
+  status: number;
+  headers: IncomingHttpHeaders;
+  body: Buffer;
+}
 
 /** A GET with exactly the Accept-Encoding given (node:http adds none of its own and decodes nothing). */
 function rawGet(url: string, acceptEncoding: string, cookie = ''): Promise<Raw> {
@@ -60,12 +68,21 @@ function shellAssetUrls(): string[] {
 }
 
 /** Bytes received for a page: all responses, and its text responses alone (fonts and images are sent as they are). */
-interface Loaded { urls: Set<string>; browserCodings: Map<string, string>; wireBytes: number; plainBytes: number; textWire: number; textPlain: number }
+interface Loaded {
+  urls: Set<string>;
+  browserCodings: Map<string, string>;
+  wireBytes: number;
+  plainBytes: number;
+  textWire: number;
+  textPlain: number;
+}
 
 /** Opens a path, recording every same-origin text response and the bytes it took on the wire. */
 async function load(page: Page, path: string, ready: (p: Page) => Promise<unknown>): Promise<Loaded> {
   const responses: Response[] = [];
-  page.on('response', (r) => { if (r.url().startsWith(app.baseUrl)) responses.push(r); });
+  page.on('response', (r) => {
+    if (r.url().startsWith(app.baseUrl)) responses.push(r);
+  });
   await page.goto(path, { waitUntil: 'networkidle' });
   await ready(page);
   const loaded: Loaded = { urls: new Set(), browserCodings: new Map(), wireBytes: 0, plainBytes: 0, textWire: 0, textPlain: 0 };
@@ -88,7 +105,10 @@ async function load(page: Page, path: string, ready: (p: Page) => Promise<unknow
 /** Fetches each URL as a br client and as a gzip-only client and checks what came back. */
 async function expectCompressed(urls: Iterable<string>, cookie = ''): Promise<void> {
   for (const url of urls) {
-    for (const [accept, expected] of [['gzip, deflate, br', 'br'], ['gzip', 'gzip']] as const) {
+    for (const [accept, expected] of [
+      ['gzip, deflate, br', 'br'],
+      ['gzip', 'gzip'],
+    ] as const) {
       const raw = await rawGet(url, accept, cookie);
       expect(raw.status, url).toBe(200);
       const file = distFile(url);
@@ -111,8 +131,8 @@ describe('compressed responses', { timeout: 180_000 }, () => {
   it('when the board page and the editor load, then every text response goes out brotli to a br client and gzip to a gzip-only client, decoding to the built files', async () => {
     const { page: owner } = await signedInOwnerPage(app, 'Compression Test Electrical');
     const headers = { 'X-CSRF-Token': ((await (await owner.request.get('/api/auth/csrf')).json()) as { token: string }).token };
-    const { id } = await (await owner.request.post('/api/boards', { headers, data: { name: flatMain.board.name } })).json() as { id: number };
-    const current = await (await owner.request.get(`/api/boards/${id}/schedule`)).json() as { revision: number };
+    const { id } = (await (await owner.request.post('/api/boards', { headers, data: { name: flatMain.board.name } })).json()) as { id: number };
+    const current = (await (await owner.request.get(`/api/boards/${id}/schedule`)).json()) as { revision: number };
     expect((await owner.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...flatMain, baseRevision: current.revision } })).status()).toBe(200);
     const token = ((await (await owner.request.get(`/api/boards/${id}`)).json()) as { publicToken: string }).publicToken;
 
@@ -120,8 +140,13 @@ describe('compressed responses', { timeout: 180_000 }, () => {
     const boardPage = await load(visitor, `/b/${token}`, (p) => p.getByRole('heading', { level: 1, name: flatMain.board.name }).waitFor());
     const editor = await load(owner, `/boards/${id}`, (p) => p.getByText(flatMain.circuits[0].label).first().waitFor());
     const kb = (n: number) => `${(n / 1024).toFixed(1)} KB`;
-    for (const [name, l] of [['board page', boardPage], ['editor', editor]] as const) {
-      console.log(`${name}: ${kb(l.wireBytes)} on the wire (${kb(l.plainBytes)} decoded); its ${l.urls.size} text responses ${kb(l.textWire)} (${kb(l.textPlain)} decoded)`);
+    for (const [name, l] of [
+      ['board page', boardPage],
+      ['editor', editor],
+    ] as const) {
+      console.log(
+        `${name}: ${kb(l.wireBytes)} on the wire (${kb(l.plainBytes)} decoded); its ${l.urls.size} text responses ${kb(l.textWire)} (${kb(l.textPlain)} decoded)`,
+      );
     }
 
     // The shell, its scripts and styles, and the board page's JSON are all among what the page loaded.

@@ -9,8 +9,12 @@ import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/
 import { makeSchedule } from '../helpers/boards.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 /** Set to a folder to keep screenshots of what the tests saw (for looking, not for asserting). */
 const SHOTS = process.env.WAYMARK_SHOTS;
@@ -18,10 +22,10 @@ const PHONE = { width: 390, height: 844 }; // a common phone viewport in CSS pix
 
 /** A board made through the page's session from the shared fixture (way 1 a ring on an RCBO B32), at revision 2. */
 async function boardWithCircuits(page: Page, circuits: number): Promise<number> {
-  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   const headers = { 'X-CSRF-Token': token };
   const schedule = makeSchedule(circuits, 'Kitchen extension board');
-  const { id } = await (await page.request.post('/api/boards', { headers, data: { name: schedule.board.name } })).json() as { id: number };
+  const { id } = (await (await page.request.post('/api/boards', { headers, data: { name: schedule.board.name } })).json()) as { id: number };
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: 1 } });
   if (saved.status() !== 200) throw new Error(`save failed: ${saved.status()} ${await saved.text()}`);
   return id;
@@ -30,7 +34,10 @@ async function boardWithCircuits(page: Page, circuits: number): Promise<number> 
 /** Native browser dialogs (confirm, alert) the page opened; each is dismissed. The app asks in its own popups instead. */
 function nativeDialogs(page: Page): string[] {
   const seen: string[] = [];
-  page.on('dialog', (dialog) => { seen.push(dialog.message()); void dialog.dismiss(); });
+  page.on('dialog', (dialog) => {
+    seen.push(dialog.message());
+    void dialog.dismiss();
+  });
   return seen;
 }
 

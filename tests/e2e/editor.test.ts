@@ -12,8 +12,12 @@ import { hashPassword } from '../../server/auth/passwords.js';
 import { users } from '../../server/db/schema.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 /** Picks an option of the ant-design select inside a circuit table cell. */
 async function choose(page: Page, cell: string, option: string): Promise<void> {
@@ -23,7 +27,7 @@ async function choose(page: Page, cell: string, option: string): Promise<void> {
 
 /** Writes through the page's own session, as the API client the editor uses would. */
 async function api(page: Page, method: 'POST' | 'PUT', path: string, data: unknown) {
-  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   const res = await page.request.fetch(path, { method, headers: { 'X-CSRF-Token': token }, data });
   if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
   return res.json();
@@ -235,7 +239,9 @@ describe('building a board in the editor', () => {
     const boardId = await boardWithCircuits(ownerPage, 2);
     const me = await (await ownerPage.request.get('/api/auth/me')).json();
     const email = uniqueEmail('viewer');
-    await app.database.db.insert(users).values({ organisationId: me.organisation.id, email, name: 'Test Viewer', role: 'viewer', passwordHash: await hashPassword(TEST_PASSWORD) });
+    await app.database.db
+      .insert(users)
+      .values({ organisationId: me.organisation.id, email, name: 'Test Viewer', role: 'viewer', passwordHash: await hashPassword(TEST_PASSWORD) });
     const page = await app.newPage({ viewport: { width: 820, height: 1180 } });
     await api(page, 'POST', '/api/auth/login', { email, password: TEST_PASSWORD });
 
@@ -269,7 +275,11 @@ describe('building a board in the editor', () => {
     await page.waitForURL((url) => /^\/boards\/\d+$/.test(url.pathname) && url.pathname !== `/boards/${boardId}`);
     const copyId = Number(new URL(page.url()).pathname.split('/').pop());
     const [original, copy] = await Promise.all([boardId, copyId].map(async (id) => (await page.request.get(`/api/boards/${id}/schedule`)).json()));
-    expect({ board: copy.board, devices: copy.devices, circuits: copy.circuits }).toEqual({ board: original.board, devices: original.devices, circuits: original.circuits });
+    expect({ board: copy.board, devices: copy.devices, circuits: copy.circuits }).toEqual({
+      board: original.board,
+      devices: original.devices,
+      circuits: original.circuits,
+    });
 
     // A CSV with two bad rows: nothing is imported and both rows are named (the header is row 1).
     await page.locator('td[data-cell="label-c1"] input').waitFor();

@@ -6,8 +6,12 @@ import { organisationSettingsSchema } from '../../shared/schemas/organisation.js
 import { fieldErrors } from '../../shared/schemas/errors.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 async function chooseOption(page: Page, select: ReturnType<Page['locator']>, label: string) {
   await select.click();
@@ -56,7 +60,10 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
 
     // A viewer typing the members address is sent back with the reason.
     await page.goto('/members');
-    await page.getByRole('alert').getByText(/for owners only/).waitFor();
+    await page
+      .getByRole('alert')
+      .getByText(/for owners only/)
+      .waitFor();
     expect(new URL(page.url()).pathname).toBe('/boards');
 
     // The link works once.
@@ -90,7 +97,7 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     await owner.page.locator('.ant-popover:visible').getByRole('button', { name: 'Disable' }).click();
     await row.getByText('Disabled', { exact: true }).waitFor();
 
-    const members = await (await owner.page.request.get('/api/members')).json() as { members: Array<{ email: string; role: string; disabled: boolean }> };
+    const members = (await (await owner.page.request.get('/api/members')).json()) as { members: Array<{ email: string; role: string; disabled: boolean }> };
     expect(members.members.find((m) => m.email === memberEmail)).toMatchObject({ role: 'electrician', disabled: true });
     // The disabled member's next navigation to a signed-in screen goes to sign-in.
     expect((await member.request.get('/api/auth/me')).status()).toBe(401);
@@ -106,7 +113,10 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     await name.waitFor();
     await page.getByLabel('Contact e-mail').fill('office-at-halyard');
     await page.getByRole('button', { name: 'Save' }).click();
-    await page.locator('.ant-form-item-has-error', { has: page.getByLabel('Contact e-mail') }).getByText(contactEmailMessage('office-at-halyard')).waitFor();
+    await page
+      .locator('.ant-form-item-has-error', { has: page.getByLabel('Contact e-mail') })
+      .getByText(contactEmailMessage('office-at-halyard'))
+      .waitFor();
 
     await name.fill('Halyard & Daughters Electrical');
     await page.getByLabel('Contact phone').fill('01632 960 482'); // Ofcom's range kept for drama, never a real line (from memory)
@@ -128,8 +138,11 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     await name.waitFor();
     // Another tab saves first, from the same revision the page loaded.
     const headers = { 'X-CSRF-Token': ((await (await page.request.get('/api/auth/csrf')).json()) as { token: string }).token };
-    const { revision } = await (await page.request.get('/api/organisation')).json() as { revision: number };
-    const other = await page.request.put('/api/organisation', { headers, data: { name: 'Saved In Another Tab Ltd', contactPhone: '', contactEmail: '', baseRevision: revision } });
+    const { revision } = (await (await page.request.get('/api/organisation')).json()) as { revision: number };
+    const other = await page.request.put('/api/organisation', {
+      headers,
+      data: { name: 'Saved In Another Tab Ltd', contactPhone: '', contactEmail: '', baseRevision: revision },
+    });
     expect(other.status()).toBe(200);
 
     await name.fill('Overwriting Ltd');

@@ -5,8 +5,12 @@ import { makeSchedule } from '../helpers/boards.js';
 import { signedInOwnerPage, startBrowserApp, type BrowserApp } from '../helpers/browser.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 /** Set to a folder to keep screenshots of what the tests saw (for looking, not for asserting). */
 const SHOTS = process.env.WAYMARK_SHOTS;
@@ -15,11 +19,14 @@ const PHONE = { width: 390, height: 844 }; // a common phone viewport in CSS pix
 
 /** A board with two revisions (the second changes the last inspection date), made in the page's session. */
 async function boardWithTwoRevisions(page: Page): Promise<number> {
-  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   const headers = { 'X-CSRF-Token': token };
-  const { id } = await (await page.request.post('/api/boards', { headers, data: { name: 'Garden studio board' } })).json() as { id: number };
+  const { id } = (await (await page.request.post('/api/boards', { headers, data: { name: 'Garden studio board' } })).json()) as { id: number };
   const base = makeSchedule(6, 'Garden studio board');
-  for (const [baseRevision, lastInspectionOn] of [[1, '2021-05-14'], [2, '2025-06-01']] as const) {
+  for (const [baseRevision, lastInspectionOn] of [
+    [1, '2021-05-14'],
+    [2, '2025-06-01'],
+  ] as const) {
     const schedule = scheduleSchema.parse({ ...base, board: { ...base.board, lastInspectionOn } });
     const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision } });
     if (saved.status() !== 200) throw new Error(`save failed: ${saved.status()} ${await saved.text()}`);
@@ -28,8 +35,16 @@ async function boardWithTwoRevisions(page: Page): Promise<number> {
 }
 
 /** The little of the DOM the check reads (the test's own type-check has no DOM library). */
-interface Box { scrollWidth: number; clientWidth: number; className: string; querySelector(selector: string): { textContent: string | null } | null }
-interface PageDocument { documentElement: Box; querySelectorAll(selector: string): ArrayLike<Box> }
+interface Box {
+  scrollWidth: number;
+  clientWidth: number;
+  className: string;
+  querySelector(selector: string): { textContent: string | null } | null;
+}
+interface PageDocument {
+  documentElement: Box;
+  querySelectorAll(selector: string): ArrayLike<Box>;
+}
 
 /** How far the page, and any card on it, is wider than what shows; 0 when nothing scrolls sideways. */
 async function sidewaysOverflow(page: Page): Promise<{ page: number; cards: string[] }> {
@@ -48,9 +63,15 @@ describe('signed-in pages on a phone', { timeout: 240_000 }, () => {
     const { page } = await signedInOwnerPage(app, 'Longfield and Harrowby Electrical Contractors', { viewport: PHONE });
     const id = await boardWithTwoRevisions(page);
     const pages: Array<[string, string]> = [
-      ['/boards', 'Boards'], ['/sites', 'Sites'], [`/boards/${id}`, 'Garden studio board'], [`/boards/${id}/history`, 'History of'],
-      [`/boards/${id}/print`, 'Print'], [`/boards/${id}/page`, 'Garden studio board'], ['/settings/printing', 'Print'],
-      ['/members', 'Members'], ['/settings/organisation', 'Organisation'],
+      ['/boards', 'Boards'],
+      ['/sites', 'Sites'],
+      [`/boards/${id}`, 'Garden studio board'],
+      [`/boards/${id}/history`, 'History of'],
+      [`/boards/${id}/print`, 'Print'],
+      [`/boards/${id}/page`, 'Garden studio board'],
+      ['/settings/printing', 'Print'],
+      ['/members', 'Members'],
+      ['/settings/organisation', 'Organisation'],
     ];
     for (const [path, title] of pages) {
       await page.goto(path);
@@ -67,7 +88,7 @@ describe('signed-in pages on a phone', { timeout: 240_000 }, () => {
     expect(app.pageErrors).toEqual([]);
   });
 
-  it('when a board\'s history is read, then the days in the differences are written as elsewhere and every revision shows who and what changed on screen', async () => {
+  it("when a board's history is read, then the days in the differences are written as elsewhere and every revision shows who and what changed on screen", async () => {
     const { page } = await signedInOwnerPage(app, 'Phone History Electrical', { viewport: PHONE });
     const id = await boardWithTwoRevisions(page);
     await page.goto(`/boards/${id}/history`);
@@ -88,7 +109,13 @@ describe('signed-in pages on a phone', { timeout: 240_000 }, () => {
         expect(box, column).not.toBeNull();
         expect(box!.x).toBeGreaterThanOrEqual(0);
         expect(box!.x + box!.width).toBeLessThanOrEqual(PHONE.width);
-        expect(await cells.nth(i).evaluate((el) => (globalThis as unknown as { getComputedStyle(e: unknown, p: string): { content: string } }).getComputedStyle(el, '::before').content)).toBe(`"${column}"`);
+        expect(
+          await cells
+            .nth(i)
+            .evaluate(
+              (el) => (globalThis as unknown as { getComputedStyle(e: unknown, p: string): { content: string } }).getComputedStyle(el, '::before').content,
+            ),
+        ).toBe(`"${column}"`);
       }
     }
     expect(await list.locator('tbody td[data-label="By"]').first().textContent()).toContain('Test Owner');
@@ -97,7 +124,7 @@ describe('signed-in pages on a phone', { timeout: 240_000 }, () => {
     if (SHOTS) await page.screenshot({ path: `${SHOTS}/phone-history.png`, fullPage: true });
   });
 
-  it('when a circuit\'s or a device\'s drawer is opened at 390 px, then the whole drawer is on the screen', async () => {
+  it("when a circuit's or a device's drawer is opened at 390 px, then the whole drawer is on the screen", async () => {
     const { page } = await signedInOwnerPage(app, 'Phone Drawer Electrical', { viewport: PHONE });
     const id = await boardWithTwoRevisions(page);
     await page.goto(`/boards/${id}`);
@@ -106,10 +133,15 @@ describe('signed-in pages on a phone', { timeout: 240_000 }, () => {
     await page.getByLabel('Circuits grouped, this one included').waitFor();
     const onScreen = async (what: string) => {
       // Polled: the drawer slides in from the right before it settles.
-      await expect.poll(async () => {
-        const box = await drawer.boundingBox();
-        return { what, starts: box!.x >= 0, right: Math.round(box!.x + box!.width) };
-      }, { timeout: 5_000 }).toEqual({ what, starts: true, right: PHONE.width });
+      await expect
+        .poll(
+          async () => {
+            const box = await drawer.boundingBox();
+            return { what, starts: box!.x >= 0, right: Math.round(box!.x + box!.width) };
+          },
+          { timeout: 5_000 },
+        )
+        .toEqual({ what, starts: true, right: PHONE.width });
       // Its fields too: the widest control ends inside the screen.
       const field = await page.locator('.ant-drawer-open .ant-form-item').first().boundingBox();
       expect(field!.x + field!.width).toBeLessThanOrEqual(PHONE.width);

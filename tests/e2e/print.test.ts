@@ -6,18 +6,22 @@ import { makeSchedule } from '../helpers/boards.js';
 import { signedInOwnerPage, startBrowserApp, type BrowserApp } from '../helpers/browser.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 const MM = 72 / 25.4; // ISO 32000-1 8.3.2.1: user unit 1/72 inch
 const LONG_LABEL = 'W'.repeat(24);
 
 /** A board with one label too long for narrow tape, made through the API in the page's session. */
 async function boardWithLongLabel(page: Page): Promise<number> {
-  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   const headers = { 'X-CSRF-Token': token };
   const created = await page.request.post('/api/boards', { headers, data: { name: 'Workshop board' } });
-  const { id } = await created.json() as { id: number };
+  const { id } = (await created.json()) as { id: number };
   const base = makeSchedule(4, 'Workshop board');
   const schedule = scheduleSchema.parse({ ...base, circuits: base.circuits.map((c, i) => (i === 1 ? { ...c, label: LONG_LABEL } : c)) });
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: 1 } });
@@ -30,12 +34,15 @@ async function boardWithLongLabel(page: Page): Promise<number> {
  * new blob URL; returns the first page size in mm of the PDF that request answers.
  */
 async function previewFollows(page: Page, change: () => Promise<void>, output: string, media: string, previous: string | null) {
-  const response = page.waitForResponse((r) => r.url().includes(`/pdf/${output}?`) && r.url().includes(`media=${media}`) && r.status() === 200, { timeout: 60_000 });
+  const response = page.waitForResponse((r) => r.url().includes(`/pdf/${output}?`) && r.url().includes(`media=${media}`) && r.status() === 200, {
+    timeout: 60_000,
+  });
   await change();
   // The browser hands the body to the page, not to the test: fetch the same URL again in the same session.
   const pdf = await (await page.request.get((await response).url())).body();
   const frame = page.getByTestId('print-preview-frame');
-  await expect.poll(async () => frame.getAttribute('src').catch(() => null), { timeout: 30_000, interval: 200 })
+  await expect
+    .poll(async () => frame.getAttribute('src').catch(() => null), { timeout: 30_000, interval: 200 })
     .toSatisfy((src: string | null) => typeof src === 'string' && src.startsWith('blob:') && src !== previous);
   const size = (await PDFDocument.load(pdf)).getPage(0).getSize();
   return { src: (await frame.getAttribute('src'))!, widthMm: size.width / MM, heightMm: size.height / MM };
@@ -50,7 +57,15 @@ describe('the print page', { timeout: 180_000 }, () => {
   it('when the output and medium change, then the live preview follows with the real PDF and its warnings', async () => {
     const { page } = await signedInOwnerPage(app, 'Print Page Electrical');
     const id = await boardWithLongLabel(page);
-    const chart = await previewFollows(page, async () => { await page.goto(`/boards/${id}/print`); }, 'chart', 'a4', null);
+    const chart = await previewFollows(
+      page,
+      async () => {
+        await page.goto(`/boards/${id}/print`);
+      },
+      'chart',
+      'a4',
+      null,
+    );
     expect(chart.widthMm).toBeCloseTo(210, 1); // ISO 216 A4
     expect(chart.heightMm).toBeCloseTo(297, 1); // ISO 216 A4
     await page.getByTestId('print-caution').waitFor();
@@ -75,25 +90,50 @@ describe('the print page', { timeout: 180_000 }, () => {
   it('when the medium is too small for the QR code, then the page says which tape would work', async () => {
     const { page } = await signedInOwnerPage(app, 'Print Page Electrical');
     const id = await boardWithLongLabel(page);
-    await previewFollows(page, async () => { await page.goto(`/boards/${id}/print`); }, 'chart', 'a4', null);
+    await previewFollows(
+      page,
+      async () => {
+        await page.goto(`/boards/${id}/print`);
+      },
+      'chart',
+      'a4',
+      null,
+    );
     await previewFollows(page, () => page.locator('[data-output="tag"]').click(), 'tag', 'tape-24', null);
     await pickMedium(page, 'Tape 6 mm');
     // Said beside the medium it is about.
     const mediumItem = page.locator('.ant-form-item').filter({ has: page.getByTestId('print-medium') });
-    await expect.poll(() => mediumItem.locator('.ant-form-item-explain').textContent().catch(() => ''), { timeout: 60_000 }).toMatch(/tape-\d+/);
+    await expect
+      .poll(
+        () =>
+          mediumItem
+            .locator('.ant-form-item-explain')
+            .textContent()
+            .catch(() => ''),
+        { timeout: 60_000 },
+      )
+      .toMatch(/tape-\d+/);
   });
 
   it('when a medium refuses the layout, then the old preview and "no warnings" go, the error shows once and nothing can be printed until a medium works', async () => {
     const { page } = await signedInOwnerPage(app, 'Print Refusal Electrical');
     const id = await boardWithLongLabel(page);
-    await previewFollows(page, async () => { await page.goto(`/boards/${id}/print`); }, 'chart', 'a4', null);
+    await previewFollows(
+      page,
+      async () => {
+        await page.goto(`/boards/${id}/print`);
+      },
+      'chart',
+      'a4',
+      null,
+    );
     const tag24 = await previewFollows(page, () => page.locator('[data-output="tag"]').click(), 'tag', 'tape-24', null);
     await expect.poll(() => page.getByTestId('print-download').isEnabled()).toBe(true);
 
     const refused = page.waitForResponse((r) => r.url().includes('/pdf/tag?') && r.url().includes('media=tape-12'), { timeout: 60_000 });
     await pickMedium(page, 'Tape 12 mm');
     expect((await refused).status()).toBe(422); // the server's answer for a layout that cannot fit (DEVELOPERS.md, Print API)
-    const message = (await (await refused).json() as { error: { message: string } }).error.message;
+    const message = ((await (await refused).json()) as { error: { message: string } }).error.message;
     expect(message).toMatch(/tape-\d+/);
 
     await page.getByTestId('print-preview-frame').waitFor({ state: 'detached', timeout: 30_000 });

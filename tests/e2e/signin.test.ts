@@ -4,8 +4,12 @@ import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/
 import { mailText, uniqueEmail } from '../helpers/app.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 /** True on the sign-in page when it will send the member back to `path` afterwards. */
 const signInFor = (path: string) => (url: URL) => url.pathname === '/signin' && url.searchParams.get('redirect') === path;
@@ -69,7 +73,9 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
   it('when the e-mail is malformed, then the schema message shows beside the field and nothing is sent', async () => {
     const page = await app.newPage();
     const logins: string[] = [];
-    page.on('request', (r) => { if (r.url().endsWith('/api/auth/login')) logins.push(r.url()); });
+    page.on('request', (r) => {
+      if (r.url().endsWith('/api/auth/login')) logins.push(r.url());
+    });
     await page.goto('/signin');
     await page.getByLabel('E-mail').fill('not-an-address');
     await page.getByLabel('Password', { exact: true }).fill('anything-at-all');
@@ -81,7 +87,7 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
     expect(page.url()).toMatch(/\/signin$/);
   });
 
-  it('when the sign-up password is too short, then the hint shows once, as the field\'s message, not twice', async () => {
+  it("when the sign-up password is too short, then the hint shows once, as the field's message, not twice", async () => {
     const page = await app.newPage();
     await page.goto('/signup');
     const hint = page.getByText('At least 10 characters');
@@ -100,7 +106,10 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
     await page.getByLabel('E-mail').fill(email);
     await page.getByLabel('Password', { exact: true }).fill('not-the-password-1');
     await page.getByRole('button', { name: 'Sign in' }).click();
-    await page.getByRole('alert').getByText(/e-mail or password/i).waitFor();
+    await page
+      .getByRole('alert')
+      .getByText(/e-mail or password/i)
+      .waitFor();
     expect((await page.request.get('/api/auth/me')).status()).toBe(401);
   });
 
@@ -132,7 +141,7 @@ describe('signing up and in through the forms', { timeout: 120_000 }, () => {
 
     // The link as the captured-mail API reads it (the owner's old session can still ask).
     const captured = (await mailText(app.database, owner.email, 2, 30_000)).row; // after the sign-up link
-    const message = await (await owner.page.request.get(`/api/dev/mail/${captured.id}`)).json() as { text: string };
+    const message = (await (await owner.page.request.get(`/api/dev/mail/${captured.id}`)).json()) as { text: string };
     const link = message.text.match(/https?:\/\/\S+\/reset\/[\w-]+/)?.[0];
     expect(link).toMatch(new RegExp(`^${app.baseUrl}/reset/`));
 

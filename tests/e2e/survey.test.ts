@@ -4,15 +4,19 @@ import { bungalowBoard } from '../../server/seed/demo-bungalow.js';
 import { signedInOwnerPage, startBrowserApp, type BrowserApp } from '../helpers/browser.js';
 
 let app: BrowserApp;
-beforeAll(async () => { app = await startBrowserApp(); });
-afterAll(async () => { await app?.close(); });
+beforeAll(async () => {
+  app = await startBrowserApp();
+});
+afterAll(async () => {
+  await app?.close();
+});
 
 /** Set to a folder to keep screenshots of what the tests saw (for looking, not for asserting). */
 const SHOTS = process.env.WAYMARK_SHOTS;
 const PHONE = { width: 390, height: 844 }; // a common phone viewport in CSS pixels // from memory
 
 async function csrf(page: Page): Promise<Record<string, string>> {
-  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   return { 'X-CSRF-Token': token };
 }
 
@@ -28,17 +32,20 @@ async function surveyedBoard(page: Page, mcbs = false): Promise<number> {
 /** Full-page screenshots cut into screen-high pieces, so each can be looked at at its real size. */
 async function shots(page: Page, name: string): Promise<void> {
   if (!SHOTS) return;
-  const height = await page.evaluate(() => (globalThis as unknown as { document: { documentElement: { scrollHeight: number } } }).document.documentElement.scrollHeight);
+  const height = await page.evaluate(
+    () => (globalThis as unknown as { document: { documentElement: { scrollHeight: number } } }).document.documentElement.scrollHeight,
+  );
   const width = page.viewportSize()!.width;
   for (let y = 0, n = 0; y < height; y += 1200, n++) {
     await page.screenshot({ path: `${SHOTS}/${name}-${n}.png`, fullPage: true, clip: { x: 0, y, width, height: Math.min(1200, height - y) } });
   }
 }
 
-const sideways = (page: Page) => page.evaluate(() => {
-  const el = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
-  return el.scrollWidth - el.clientWidth;
-});
+const sideways = (page: Page) =>
+  page.evaluate(() => {
+    const el = (globalThis as unknown as { document: { documentElement: { scrollWidth: number; clientWidth: number } } }).document.documentElement;
+    return el.scrollWidth - el.clientWidth;
+  });
 
 async function openSurvey(page: Page): Promise<void> {
   await page.getByRole('tab', { name: /Old board survey/ }).click();
@@ -95,15 +102,21 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
     await page.getByText('New board made from the plan: 5 circuits added').waitFor();
     await shots(page, 'survey-phone-applied');
 
-    const saved = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as {
-      circuits: Array<{ way: number; label: string }>; survey: { ways: Array<{ reference: string; readings: { insulation: { neutralEarth: number } } }> };
+    const saved = (await (await page.request.get(`/api/boards/${id}/schedule`)).json()) as {
+      circuits: Array<{ way: number; label: string }>;
+      survey: { ways: Array<{ reference: string; readings: { insulation: { neutralEarth: number } } }> };
     };
     expect(saved.circuits.map((c) => c.way).sort()).toEqual([2, 3, 4, 5, 6]);
     expect(saved.survey.ways[2]!.readings.insulation.neutralEarth).toBe(50);
     expect(saved.survey.ways[7]!.reference).toBe('Fuse 8 (behind the meter)');
     await expect.poll(() => page.getByRole('tab', { name: /Circuits \(5\)/ }).count()).toBe(1);
     // Saved: no draft is left on the phone.
-    expect(await page.evaluate((key) => (globalThis as unknown as { localStorage: { getItem(k: string): string | null } }).localStorage.getItem(key), `waymark.draft.${id}`)).toBeNull();
+    expect(
+      await page.evaluate(
+        (key) => (globalThis as unknown as { localStorage: { getItem(k: string): string | null } }).localStorage.getItem(key),
+        `waymark.draft.${id}`,
+      ),
+    ).toBeNull();
     expect(await sideways(page)).toBe(0);
 
     // The survey's print links open the print page on the changeover sheet and on the junction-box flags.
@@ -123,7 +136,7 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
 
   it('when a laptop opens a board without a survey, then a survey can be started and the first old way shows', async () => {
     const { page } = await signedInOwnerPage(app, 'Laptop Survey Electrical');
-    const { id } = await (await page.request.post('/api/boards', { headers: await csrf(page), data: { name: 'Garage board' } })).json() as { id: number };
+    const { id } = (await (await page.request.post('/api/boards', { headers: await csrf(page), data: { name: 'Garage board' } })).json()) as { id: number };
     await page.goto(`/boards/${id}`);
     await page.getByRole('tab', { name: /Old board survey/ }).click();
     await page.locator('[data-action="start-survey"]').click();
@@ -132,10 +145,10 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
     expect(app.pageErrors).toEqual([]);
   });
 
-  it('when a new circuit\'s insulation is recorded in its drawer below Table 64, then the finding shows beside the reading and the readings are saved', async () => {
+  it("when a new circuit's insulation is recorded in its drawer below Table 64, then the finding shows beside the reading and the readings are saved", async () => {
     const { page } = await signedInOwnerPage(app, 'Drawer Readings Electrical');
     const applied = await surveyedBoard(page);
-    const schedule = await (await page.request.get(`/api/boards/${applied}/schedule`)).json() as { revision: number };
+    const schedule = (await (await page.request.get(`/api/boards/${applied}/schedule`)).json()) as { revision: number };
     const made = await page.request.post(`/api/boards/${applied}/changeover/apply`, { headers: await csrf(page), data: { baseRevision: schedule.revision } });
     expect(made.status()).toBe(200);
     await page.goto(`/boards/${applied}`);
@@ -145,11 +158,22 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
     await choose(page, `${at}.insulation.testVoltage`, '500 V');
     await field(page, `${at}.insulation.lineEarth`).fill('0.5');
     // 0.5 MΩ at 500 V is under Table 64's 1 MΩ (BS 7671:2018+A2 Table 64, from memory)
-    await page.locator(`[data-field="${at}.insulation.lineEarth"]`).getByText(/below the 1 MΩ minimum of Table 64/).waitFor();
+    await page
+      .locator(`[data-field="${at}.insulation.lineEarth"]`)
+      .getByText(/below the 1 MΩ minimum of Table 64/)
+      .waitFor();
     await page.keyboard.press('Escape');
     await page.getByTestId('save').click();
-    await expect.poll(async () => ((await (await page.request.get(`/api/boards/${applied}/schedule`)).json()) as { circuits: Array<{ id: string; readings?: { insulation: { lineEarth: number | null } } }> })
-      .circuits.find((c) => c.id === 'cooker')?.readings?.insulation.lineEarth).toBe(0.5);
+    await expect
+      .poll(
+        async () =>
+          (
+            (await (await page.request.get(`/api/boards/${applied}/schedule`)).json()) as {
+              circuits: Array<{ id: string; readings?: { insulation: { lineEarth: number | null } } }>;
+            }
+          ).circuits.find((c) => c.id === 'cooker')?.readings?.insulation.lineEarth,
+      )
+      .toBe(0.5);
     expect(app.pageErrors).toEqual([]);
   });
 
@@ -170,8 +194,13 @@ describe('the survey of an old board, on a phone', { timeout: 300_000 }, () => {
     await page.locator('[data-action="accept-rcds"]').click();
     await page.locator('[data-action="apply-plan"]').click();
     await page.getByText(/New board made from the plan/).waitFor();
-    const saved = await (await page.request.get(`/api/boards/${id}/schedule`)).json() as { devices: Array<{ kind: string; label: string }> };
-    expect(saved.devices.filter((d) => d.kind === 'rcd').map((d) => d.label).sort()).toEqual(['RCD 1', 'RCD 2']);
+    const saved = (await (await page.request.get(`/api/boards/${id}/schedule`)).json()) as { devices: Array<{ kind: string; label: string }> };
+    expect(
+      saved.devices
+        .filter((d) => d.kind === 'rcd')
+        .map((d) => d.label)
+        .sort(),
+    ).toEqual(['RCD 1', 'RCD 2']);
     expect(app.pageErrors).toEqual([]);
   });
 });

@@ -16,7 +16,9 @@ beforeAll(async () => {
   running = await startAppOnPrivateDb('restart', { supervise: true });
   ({ mariadb, app } = running);
 });
-afterAll(async () => { await running?.close(); });
+afterAll(async () => {
+  await running?.close();
+});
 
 async function waitForStatus(status: number, timeoutMs: number): Promise<boolean> {
   const deadline = Date.now() + timeoutMs;

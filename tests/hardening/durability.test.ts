@@ -7,7 +7,12 @@ import mysql from 'mysql2/promise';
 import { removeDir, startPrivateMariadb, type PrivateMariadb } from '../../scripts/mariadb.js';
 
 const started: Array<{ db: PrivateMariadb; dir: string }> = [];
-afterAll(async () => { for (const s of started) { await s.db.stop(); removeDir(s.dir); } });
+afterAll(async () => {
+  for (const s of started) {
+    await s.db.stop();
+    removeDir(s.dir);
+  }
+});
 
 async function flushSetting(durable?: boolean): Promise<number> {
   const dir = mkdtempSync(join(tmpdir(), 'waymark-durable-'));

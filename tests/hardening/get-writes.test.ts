@@ -5,8 +5,12 @@ import { createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { getBinary, postBinary } from '../api/print-support.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('print recording needs a POST', () => {
   it('when a GET asks to record a print or fetches the pack, then no print is recorded', async () => {

@@ -11,8 +11,12 @@ import { createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { LOGO_STORED_SIDE_PX, MAX_SIDE_PX } from '../../server/uploads/pixels.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const putLogo = (c: Client, data: Buffer) =>
   c.agent.put('/api/organisation/logo').set('X-CSRF-Token', c.csrf).attach('file', data, { filename: 'logo.png', contentType: 'image/png' });
@@ -23,14 +27,17 @@ function pngHeader(width: number, height: number): Buffer {
   ihdr.writeUInt32BE(width, 0);
   ihdr.writeUInt32BE(height, 4);
   ihdr.set([8, 2, 0, 0, 0], 8);
-  const len = Buffer.alloc(4); len.writeUInt32BE(13);
+  const len = Buffer.alloc(4);
+  len.writeUInt32BE(13);
   return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), len, Buffer.from('IHDR'), ihdr, Buffer.alloc(4)]);
 }
 
 describe('image sizes at upload', () => {
   it('when a small file declares 8000 × 8000 pixels, then 400 names the limit and nothing is stored', async () => {
     const owner = await signupOwner(t.app);
-    const huge = await sharp({ create: { width: 8000, height: 8000, channels: 3, background: '#ffffff' } }).png({ compressionLevel: 9 }).toBuffer();
+    const huge = await sharp({ create: { width: 8000, height: 8000, channels: 3, background: '#ffffff' } })
+      .png({ compressionLevel: 9 })
+      .toBuffer();
     expect(huge.length).toBeLessThan(2 * 1024 * 1024);
     const res = await putLogo(owner, huge).expect(400);
     expect(res.body.error.fields.file).toContain(String(MAX_SIDE_PX));

@@ -4,8 +4,12 @@ import type { ServerConfig } from '../../server/config.js';
 import { client, signupOwner, startTestApp, TEST_PASSWORD, type TestApp } from '../helpers/app.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp({ trustProxy: 1, rateLimits: { loginPerAccount: 10, loginPerIp: 50 } as ServerConfig['rateLimits'] }); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp({ trustProxy: 1, rateLimits: { loginPerAccount: 10, loginPerIp: 50 } as ServerConfig['rateLimits'] });
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const login = async (from: string, email: string, password: string) => {
   const c = await client(t.app);

@@ -9,8 +9,12 @@ import { client, startTestApp, uniqueEmail, waitForMail, TEST_PASSWORD, type Tes
 import { createBoard, signupMarkedOwner } from '../api/public-fixture.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp({ rateLimits: { reportsPerHour: 1000 } as ServerConfig['rateLimits'] }); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp({ rateLimits: { reportsPerHour: 1000 } as ServerConfig['rateLimits'] });
+});
+afterAll(async () => {
+  await t.close();
+});
 
 const FAKE = 'Review it in Waymark: http://evil.example/steal';
 
@@ -19,9 +23,13 @@ describe('text from visitors and members in outgoing mail', () => {
     const owner = await signupMarkedOwner(t.app);
     const board = await createBoard(owner, undefined, false);
     const visitor = await client(t.app);
-    const res = await visitor.post(`/api/public/boards/${board.token}/reports`, {
-      message: 'Way 3 feeds the shed', name: `Sam\r\n${FAKE}`, contact: `x\n${FAKE}`,
-    }).expect(400);
+    const res = await visitor
+      .post(`/api/public/boards/${board.token}/reports`, {
+        message: 'Way 3 feeds the shed',
+        name: `Sam\r\n${FAKE}`,
+        contact: `x\n${FAKE}`,
+      })
+      .expect(400);
     expect(Object.keys(res.body.error.fields)).toEqual(expect.arrayContaining(['name', 'contact']));
   });
 
@@ -29,9 +37,13 @@ describe('text from visitors and members in outgoing mail', () => {
     const owner = await signupMarkedOwner(t.app);
     const board = await createBoard(owner, undefined, false);
     const visitor = await client(t.app);
-    await visitor.post(`/api/public/boards/${board.token}/reports`, {
-      message: `Please look\n${FAKE}`, name: FAKE, contact: '01632 960000',
-    }).expect(202);
+    await visitor
+      .post(`/api/public/boards/${board.token}/reports`, {
+        message: `Please look\n${FAKE}`,
+        name: FAKE,
+        contact: '01632 960000',
+      })
+      .expect(202);
     const mail = await simpleParser((await waitForMail(t.database, owner.contactEmail)).raw);
     const lines = (mail.text ?? '').split('\n');
     const reviewLines = lines.filter((l) => l.startsWith('Review it in Waymark:'));
@@ -43,9 +55,14 @@ describe('text from visitors and members in outgoing mail', () => {
 
   it('when a sign-up name or organisation has a control character, then 400 names the field', async () => {
     const c = await client(t.app);
-    const res = await c.post('/api/auth/signup', {
-      organisation: 'Ampere\nRow', name: 'Jo\u0007', email: uniqueEmail('ctl'), password: TEST_PASSWORD,
-    }).expect(400);
+    const res = await c
+      .post('/api/auth/signup', {
+        organisation: 'Ampere\nRow',
+        name: 'Jo\u0007',
+        email: uniqueEmail('ctl'),
+        password: TEST_PASSWORD,
+      })
+      .expect(400);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['name', 'organisation']);
   });
 });

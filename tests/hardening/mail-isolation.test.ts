@@ -8,8 +8,12 @@ import { checkProductionMail, configFromEnv, demoWanted } from '../../server/con
 import { client, mailText, signupOwner, startTestApp, uniqueEmail, waitForMail, type TestApp } from '../helpers/app.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp({ devMail: true }); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp({ devMail: true });
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('captured mail between organisations', () => {
   it("when a stranger asks for a reset of another organisation's owner, then the stranger never sees that mail, its owner does", async () => {
@@ -36,7 +40,7 @@ describe('captured mail between organisations', () => {
     expect(opened.body.text).toContain('/reset/');
   });
 
-  it("when an owner invites someone, then only the inviting organisation sees the invitation", async () => {
+  it('when an owner invites someone, then only the inviting organisation sees the invitation', async () => {
     const a = await signupOwner(t.app, 'Inviting Electrical (test)');
     const b = await signupOwner(t.app, 'Other Electrical (test)');
     const invitee = uniqueEmail('invitee');

@@ -5,8 +5,12 @@ import { client, signupOwner, startTestApp, TEST_PASSWORD, type TestApp } from '
 import { makeSchedule } from '../helpers/boards.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('odd input', () => {
   it('when a board name holds a lone UTF-16 surrogate, then create and save answer 400 naming the field', async () => {

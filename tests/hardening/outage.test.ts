@@ -18,7 +18,9 @@ beforeAll(async () => {
   running = await startAppOnPrivateDb('outage');
   ({ mariadb, app } = running);
 });
-afterAll(async () => { await running?.close(); });
+afterAll(async () => {
+  await running?.close();
+});
 
 /** Signs an owner in on the app (the account is made in its database: this app has no mail to send a sign-up link). */
 async function signedInOwner(email: string) {
@@ -34,7 +36,10 @@ describe('when the database goes away and comes back', () => {
     const { agent: signedIn, csrf } = await signedInOwner(uniqueEmail('session'));
     const acknowledged: number[] = [];
     for (let i = 0; i < 5; i++) {
-      const res = await signedIn.post('/api/boards').set('X-CSRF-Token', csrf).send({ name: `Before the outage ${i}` });
+      const res = await signedIn
+        .post('/api/boards')
+        .set('X-CSRF-Token', csrf)
+        .send({ name: `Before the outage ${i}` });
       expect(res.status).toBe(201);
       acknowledged.push(res.body.id as number);
     }
@@ -62,7 +67,9 @@ describe('when the database goes away and comes back', () => {
     }
     expect(health).toBe(200);
     await signedIn.get('/api/auth/me').expect(200);
-    await request(app).get(`/api/public/boards/${'D'.repeat(32)}`).expect(404);
+    await request(app)
+      .get(`/api/public/boards/${'D'.repeat(32)}`)
+      .expect(404);
     for (const id of acknowledged) await signedIn.get(`/api/boards/${id}/schedule`).expect(200);
   });
 });

@@ -6,8 +6,12 @@ import { createBoardWith, makeSchedule } from '../helpers/boards.js';
 import { flagCount, MAX_FLAGS_PER_PRINT } from '../../server/pdf/layout/work.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('the work one print may do', () => {
   it('when a viewer asks for every leg at both ends of a 300-way board, then 422 names the limit and the way out, before drawing', async () => {

@@ -7,8 +7,12 @@ import { organisations } from '../../server/db/schema.js';
 import { startAppOnPrivateDb, type PrivateDbApp } from '../helpers/private-db-app.js';
 
 let running: PrivateDbApp;
-beforeAll(async () => { running = await startAppOnPrivateDb('seed'); });
-afterAll(async () => { await running?.close(); });
+beforeAll(async () => {
+  running = await startAppOnPrivateDb('seed');
+});
+afterAll(async () => {
+  await running?.close();
+});
 
 describe('seeding the demo', () => {
   it('when seeding fails after the accounts are written, then nothing of the demo is left, and the next start seeds it whole', async () => {

@@ -4,8 +4,12 @@ import type { ServerConfig } from '../../server/config.js';
 import { signupOwner, startTestApp, uniqueEmail, type TestApp } from '../helpers/app.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp({ rateLimits: { sendsPerHour: 3 } as ServerConfig['rateLimits'] }); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp({ rateLimits: { sendsPerHour: 3 } as ServerConfig['rateLimits'] });
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('limits on mail sent for a member', () => {
   it('when an owner sends more invitations an hour than the limit, then the next is 429 with Retry-After and no mail is sent', async () => {

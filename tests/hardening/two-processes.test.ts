@@ -15,7 +15,10 @@ beforeAll(async () => {
   const env = { ...process.env, SESSION_SECRET: 'shared-secret-two-processes', PORT: '0', SMTP_PORT: '1' };
   [a, b] = await Promise.all([spawnServer(['server/index.ts'], env), spawnServer(['server/index.ts'], env)]);
 });
-afterAll(() => { a?.child.kill('SIGTERM'); b?.child.kill('SIGTERM'); });
+afterAll(() => {
+  a?.child.kill('SIGTERM');
+  b?.child.kill('SIGTERM');
+});
 
 /** A minimal cookie-keeping client over fetch, aimed at one process or the other. */
 function cookieJar() {
@@ -36,7 +39,9 @@ function cookieJar() {
   };
   return {
     call,
-    async csrfFrom(port: number) { csrf = (await call(port, 'GET', '/api/auth/csrf')).body.token; },
+    async csrfFrom(port: number) {
+      csrf = (await call(port, 'GET', '/api/auth/csrf')).body.token;
+    },
   };
 }
 
@@ -58,14 +63,22 @@ describe('when two app processes share one database', () => {
     const id = created.body.id as number;
     const onA = await jar.call(a.port, 'GET', `/api/boards/${id}/schedule`);
     const { id: _i, revision, updatedAt: _u, code: _c, siteId: _s, ...schedule } = onA.body;
-    const saved = await jar.call(a.port, 'PUT', `/api/boards/${id}/schedule`, { ...schedule, board: { ...schedule.board, location: 'Under the stairs' }, baseRevision: revision });
+    const saved = await jar.call(a.port, 'PUT', `/api/boards/${id}/schedule`, {
+      ...schedule,
+      board: { ...schedule.board, location: 'Under the stairs' },
+      baseRevision: revision,
+    });
     expect(saved.status).toBe(200);
 
     const onB = await jar.call(b.port, 'GET', `/api/boards/${id}/schedule`);
     expect(onB.body.board.location).toBe('Under the stairs');
     expect(onB.body.revision).toBe(saved.body.revision);
 
-    const stale = await jar.call(b.port, 'PUT', `/api/boards/${id}/schedule`, { ...schedule, board: { ...schedule.board, location: 'Loft' }, baseRevision: revision });
+    const stale = await jar.call(b.port, 'PUT', `/api/boards/${id}/schedule`, {
+      ...schedule,
+      board: { ...schedule.board, location: 'Loft' },
+      baseRevision: revision,
+    });
     expect(stale.status).toBe(409);
     expect((await jar.call(a.port, 'GET', `/api/boards/${id}/schedule`)).body.board.location).toBe('Under the stairs');
   });

@@ -7,11 +7,14 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { client, signupOwner, startTestApp, TEST_PASSWORD, type TestApp } from '../helpers/app.js';
 
 let t: TestApp;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
-const sessionCookie = (res: request.Response) =>
-  ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('waymark.sid='));
+const sessionCookie = (res: request.Response) => ([] as string[]).concat(res.headers['set-cookie'] ?? []).find((c) => c.startsWith('waymark.sid='));
 
 describe('visitors and the session store', () => {
   it('when a script fetches a CSRF token 200 times, then no answer sets a session cookie and no session row is written for it', async () => {
@@ -26,7 +29,7 @@ describe('visitors and the session store', () => {
     expect(Number((await rows())[0].n) - before).toBeLessThan(50);
   });
 
-  it('when a visitor uses the token for a write, then it counts; a token with another browser\'s cookie, or none, is refused', async () => {
+  it("when a visitor uses the token for a write, then it counts; a token with another browser's cookie, or none, is refused", async () => {
     const a = await client(t.app);
     const wrong = await a.post('/api/auth/login', { email: 'nobody@example.test', password: TEST_PASSWORD });
     expect(wrong.status).toBe(401); // past the CSRF check

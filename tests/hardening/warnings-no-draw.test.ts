@@ -5,7 +5,9 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 
 vi.mock('../../server/pdf/draw.js', () => ({
-  drawLayout: vi.fn(async () => { throw new Error('drawn: the warnings list must only lay out'); }),
+  drawLayout: vi.fn(async () => {
+    throw new Error('drawn: the warnings list must only lay out');
+  }),
 }));
 
 const { signupOwner, startTestApp } = await import('../helpers/app.js');
@@ -13,8 +15,12 @@ const { createBoardWith, makeSchedule } = await import('../helpers/boards.js');
 const { drawLayout } = await import('../../server/pdf/draw.js');
 
 let t: Awaited<ReturnType<typeof startTestApp>>;
-beforeAll(async () => { t = await startTestApp(); });
-afterAll(async () => { await t.close(); });
+beforeAll(async () => {
+  t = await startTestApp();
+});
+afterAll(async () => {
+  await t.close();
+});
 
 describe('the warnings list of a print', () => {
   it('when the print page asks what a 40-way chart and its flags would warn about, then it answers without drawing either', async () => {

@@ -31,7 +31,11 @@ export async function sessionCookie(app: Express, email: string, password = TEST
   const pairs = (res: request.Response) => ([] as string[]).concat(res.headers['set-cookie'] ?? []).map((s) => s.split(';')[0]);
   const first = await request(app).get('/api/auth/csrf').expect(200);
   const csrfCookie = pairs(first);
-  const res = await request(app).post('/api/auth/login').set('Cookie', csrfCookie.join('; ')).set('X-CSRF-Token', first.body.token)
-    .send({ email, password }).expect(200);
+  const res = await request(app)
+    .post('/api/auth/login')
+    .set('Cookie', csrfCookie.join('; '))
+    .set('X-CSRF-Token', first.body.token)
+    .send({ email, password })
+    .expect(200);
   return { cookie: [...csrfCookie, ...pairs(res)].join('; '), csrf: first.body.token as string };
 }

@@ -34,12 +34,19 @@ export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promi
   if (!databaseUrl) throw new Error('DATABASE_URL is not set: run the tests with `npm test`');
   const database = openDatabase(databaseUrl);
   const capture = await startCaptureServer(database.db);
-  const base = configFromEnv({ DATABASE_URL: databaseUrl, SESSION_SECRET: 'test-secret-not-for-production', PUBLIC_BASE_URL: 'http://waymark.test',
-    // Every test signs up and invites from one address; the send limits have their own test.
-    RATE_SENDS_HOUR: '100000' }, {
-    smtp: { host: '127.0.0.1', port: capture.port, from: 'Waymark <no-reply@waymark.test>' },
-    devMail: true,
-  });
+  const base = configFromEnv(
+    {
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: 'test-secret-not-for-production',
+      PUBLIC_BASE_URL: 'http://waymark.test',
+      // Every test signs up and invites from one address; the send limits have their own test.
+      RATE_SENDS_HOUR: '100000',
+    },
+    {
+      smtp: { host: '127.0.0.1', port: capture.port, from: 'Waymark <no-reply@waymark.test>' },
+      devMail: true,
+    },
+  );
   const config: ServerConfig = { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
   const mailer = smtpMailer({ ...config.smtp, tagOrganisation: config.devMail });
   const ctx: AppContext = { config, database, db: database.db, mailer };
@@ -81,9 +88,21 @@ export async function client(app: Express): Promise<Client> {
     agent,
     csrf,
     get: (p) => agent.get(p),
-    post: (p, b) => agent.post(p).set('X-CSRF-Token', csrf).send(b as object),
-    put: (p, b) => agent.put(p).set('X-CSRF-Token', csrf).send(b as object),
-    patch: (p, b) => agent.patch(p).set('X-CSRF-Token', csrf).send(b as object),
+    post: (p, b) =>
+      agent
+        .post(p)
+        .set('X-CSRF-Token', csrf)
+        .send(b as object),
+    put: (p, b) =>
+      agent
+        .put(p)
+        .set('X-CSRF-Token', csrf)
+        .send(b as object),
+    patch: (p, b) =>
+      agent
+        .patch(p)
+        .set('X-CSRF-Token', csrf)
+        .send(b as object),
     delete: (p) => agent.delete(p).set('X-CSRF-Token', csrf),
   };
 }
@@ -144,11 +163,13 @@ export function linkToken(text: string, base: string, kind: 'invite' | 'reset' |
   return m[1];
 }
 
-
-
 /** Messages the capture server stored for an address, newest first. */
 export async function mailTo(database: Database, address: string) {
-  return database.db.select().from(capturedMail).where(like(capturedMail.envelopeTo, `%${address}%`)).orderBy(desc(capturedMail.id));
+  return database.db
+    .select()
+    .from(capturedMail)
+    .where(like(capturedMail.envelopeTo, `%${address}%`))
+    .orderBy(desc(capturedMail.id));
 }
 
 /** Waits for a message to an address (SMTP delivery is asynchronous to the request). */

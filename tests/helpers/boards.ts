@@ -18,10 +18,19 @@ function circuitFor(n: number, threePhase: boolean): ScheduleInput['circuits'][n
   const kind = n % 3 === 1 ? 'ring' : n % 3 === 2 ? 'lighting' : 'radial';
   const cable = kind === 'ring' ? { liveCsa: 2.5, cpcCsa: 1.5 } : kind === 'lighting' ? { liveCsa: 1.5, cpcCsa: 1 } : { liveCsa: 2.5, cpcCsa: 1.5 };
   return {
-    id: `c${n}`, way, phase, deviceId: `d${n}`, label: `${room} ${kind === 'lighting' ? 'lights' : 'sockets'} ${n}`.slice(0, 24),
-    description: `${kind} circuit serving the ${room.toLowerCase()}`, kind, socketOutlets: kind !== 'lighting',
+    id: `c${n}`,
+    way,
+    phase,
+    deviceId: `d${n}`,
+    label: `${room} ${kind === 'lighting' ? 'lights' : 'sockets'} ${n}`.slice(0, 24),
+    description: `${kind} circuit serving the ${room.toLowerCase()}`,
+    kind,
+    socketOutlets: kind !== 'lighting',
     cable: { type: 'twin-earth', ...cable, referenceMethod: 'C', lengthM: 12 + (n % 20) },
-    points: 4 + (n % 6), locations: [room], legs: kind === 'ring' ? 2 : 1, measuredZs: 0.4 + (n % 10) / 20,
+    points: 4 + (n % 6),
+    locations: [room],
+    legs: kind === 'ring' ? 2 : 1,
+    measuredZs: 0.4 + (n % 10) / 20,
   };
 }
 
@@ -38,14 +47,27 @@ export function makeSchedule(circuits = 10, name = 'Test consumer unit'): Schedu
   for (let n = 1; n <= circuits; n++) {
     const c = circuitFor(n, threePhase);
     list.push(c);
-    devices.push({ id: `d${n}`, row: Math.min(12, 1 + Math.floor(n / 70)), kind: 'rcbo', rating: c.kind === 'lighting' ? 6 : 32, curve: 'B', breakingCapacityKa: 6, residualMa: 30, rcdType: 'A' });
+    devices.push({
+      id: `d${n}`,
+      row: Math.min(12, 1 + Math.floor(n / 70)),
+      kind: 'rcbo',
+      rating: c.kind === 'lighting' ? 6 : 32,
+      curve: 'B',
+      breakingCapacityKa: 6,
+      residualMa: 30,
+      rcdType: 'A',
+    });
   }
   return scheduleSchema.parse({
     board: {
-      name, location: 'Under the stairs, behind the coat hooks', rows: Math.min(12, 1 + Math.floor(circuits / 70)), modulesPerRow: 72,
+      name,
+      location: 'Under the stairs, behind the coat hooks',
+      rows: Math.min(12, 1 + Math.floor(circuits / 70)),
+      modulesPerRow: 72,
       phases: threePhase ? 3 : 1,
       supply: { earthing: 'TN-C-S', nominalVoltage: 230, ze: 0.35, pfcKa: 1.8, mainSwitchRating: 100, tailsCsa: 25, mainEarthCsa: 16, mainBondingCsa: 10 },
-      installedOn: '2021-05-14', lastInspectionOn: '2021-05-14',
+      installedOn: '2021-05-14',
+      lastInspectionOn: '2021-05-14',
     },
     devices,
     circuits: list,
@@ -66,16 +88,28 @@ export async function createBoardWith(c: Client, schedule: Schedule = makeSchedu
 export async function addMember(t: TestApp, owner: Client, role: Role): Promise<Client & { email: string; userId: number }> {
   const me = await owner.get('/api/auth/me').expect(200);
   const email = uniqueEmail(role);
-  const [row] = await t.database.db.insert(users).values({
-    organisationId: me.body.organisation.id, email, name: `Test ${role}`, role, passwordHash: await hashPassword(TEST_PASSWORD),
-  }).$returningId();
+  const [row] = await t.database.db
+    .insert(users)
+    .values({
+      organisationId: me.body.organisation.id,
+      email,
+      name: `Test ${role}`,
+      role,
+      passwordHash: await hashPassword(TEST_PASSWORD),
+    })
+    .$returningId();
   const c = await client(t.app);
   await c.post('/api/auth/login', { email, password: TEST_PASSWORD }).expect(200);
   return Object.assign(c, { email, userId: row.id });
 }
 
 /** The people most boards API tests need: an owner, a viewer of the same organisation, and an owner of another. */
-export interface Cast { t: TestApp; owner: Client; viewer: Client; stranger: Client }
+export interface Cast {
+  t: TestApp;
+  owner: Client;
+  viewer: Client;
+  stranger: Client;
+}
 
 /** Starts a test app and signs up the cast; the caller closes `t` when done. */
 export async function startWithCast(organisation: string, otherOrganisation: string): Promise<Cast> {

@@ -20,11 +20,19 @@ const clientDir = join(root, 'dist');
 
 /** Flags for Chromium in a container: no sandbox, no GPU, and nothing that phones home. */
 export const CHROMIUM_ARGS = [
-  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
-  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+  '--headless',
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
 ];
 
-export interface PageOptions { viewport?: { width: number; height: number } }
+export interface PageOptions {
+  viewport?: { width: number; height: number };
+}
 
 export interface BrowserApp {
   /** `http://127.0.0.1:<port>`, also the server's public base URL (links in mail point here). */
@@ -59,7 +67,13 @@ async function freePort(): Promise<number> {
 async function serverConfig(databaseUrl: string, smtpPort: number, overrides: Partial<ServerConfig>): Promise<ServerConfig> {
   const port = await freePort();
   const base = configFromEnv(
-    { DATABASE_URL: databaseUrl, SESSION_SECRET: 'browser-test-secret-not-for-production', PORT: String(port), PUBLIC_BASE_URL: `http://127.0.0.1:${port}`, RATE_SENDS_HOUR: '100000' },
+    {
+      DATABASE_URL: databaseUrl,
+      SESSION_SECRET: 'browser-test-secret-not-for-production',
+      PORT: String(port),
+      PUBLIC_BASE_URL: `http://127.0.0.1:${port}`,
+      RATE_SENDS_HOUR: '100000',
+    },
     { clientDir, devMail: true, smtp: { host: '127.0.0.1', port: smtpPort, from: 'Waymark <no-reply@waymark.test>' } },
   );
   return { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
@@ -96,7 +110,14 @@ export async function startBrowserApp(overrides: Partial<ServerConfig> = {}): Pr
   }
 
   return {
-    baseUrl, server, database, capture, browser, outsideRequests, pageErrors, newPage,
+    baseUrl,
+    server,
+    database,
+    capture,
+    browser,
+    outsideRequests,
+    pageErrors,
+    newPage,
     async close() {
       for (const context of contexts) await context.close().catch(() => {});
       await browser.close().catch(() => {});
@@ -107,7 +128,12 @@ export async function startBrowserApp(overrides: Partial<ServerConfig> = {}): Pr
   };
 }
 
-export interface SignedInPage { page: Page; email: string; password: string; organisation: string }
+export interface SignedInPage {
+  page: Page;
+  email: string;
+  password: string;
+  organisation: string;
+}
 
 /**
  * A new page already signed in as the owner of a fresh organisation, signed up through the
@@ -117,7 +143,7 @@ export async function signedInOwnerPage(app: BrowserApp, organisation = 'Test El
   const page = await app.newPage(options);
   const email = `owner-${crypto.randomUUID().slice(0, 12)}@example.test`;
   const password = 'correct-horse-battery';
-  const { token } = await (await page.request.get('/api/auth/csrf')).json() as { token: string };
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   const res = await page.request.post('/api/auth/signup', {
     headers: { 'X-CSRF-Token': token },
     data: { organisation, name: 'Test Owner', email, password },
@@ -125,7 +151,8 @@ export async function signedInOwnerPage(app: BrowserApp, organisation = 'Test El
   if (res.status() !== 202) throw new Error(`sign-up failed: ${res.status()} ${await res.text()}`);
   const mail = await mailText(app.database, email);
   const confirm = await page.request.post('/api/auth/signup/confirm', {
-    headers: { 'X-CSRF-Token': token }, data: { token: linkToken(mail.text, app.baseUrl, 'signup') },
+    headers: { 'X-CSRF-Token': token },
+    data: { token: linkToken(mail.text, app.baseUrl, 'signup') },
   });
   if (confirm.status() !== 201) throw new Error(`sign-up link failed: ${confirm.status()} ${await confirm.text()}`);
   return { page, email, password, organisation };

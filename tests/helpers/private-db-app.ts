@@ -13,7 +13,12 @@ import { createApp } from '../../server/app.js';
 import { configFromEnv } from '../../server/config.js';
 import { smtpMailer } from '../../server/mail/mailer.js';
 
-export interface PrivateDbApp { mariadb: PrivateMariadb; database: Database; app: Express; close(): Promise<void> }
+export interface PrivateDbApp {
+  mariadb: PrivateMariadb;
+  database: Database;
+  app: Express;
+  close(): Promise<void>;
+}
 
 export async function startAppOnPrivateDb(name: string, opts: { supervise?: boolean } = {}): Promise<PrivateDbApp> {
   const dataDir = mkdtempSync(join(tmpdir(), `waymark-${name}-`));
@@ -23,7 +28,9 @@ export async function startAppOnPrivateDb(name: string, opts: { supervise?: bool
   const config = configFromEnv({ DATABASE_URL: mariadb.url, SESSION_SECRET: `${name}-test` }, { smtp: { host: '127.0.0.1', port: 1, from: 'x@example.test' } });
   const built = createApp({ config, database, db: database.db, mailer: smtpMailer(config.smtp) });
   return {
-    mariadb, database, app: built.app,
+    mariadb,
+    database,
+    app: built.app,
     async close() {
       await built.close().catch(() => {});
       await database.close().catch(() => {});

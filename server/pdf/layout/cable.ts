@@ -18,7 +18,17 @@ export const TWIN_EARTH_SIZE_MM: Record<number, { w: number; h: number }> = {
 
 /** Typical overall diameter of 3-core SWA (BS 6724 style) by csa (mm). // from memory: makers vary, enter the real one as diameterMm */
 export const SWA_DIAMETER_MM: Record<number, number> = {
-  1.5: 12.5, 2.5: 13.6, 4: 15.5, 6: 16.9, 10: 19.6, 16: 21.8, 25: 25, 35: 27.2, 50: 27.9, 70: 31.5, 95: 35.5,
+  1.5: 12.5,
+  2.5: 13.6,
+  4: 15.5,
+  6: 16.9,
+  10: 19.6,
+  16: 21.8,
+  25: 25,
+  35: 27.2,
+  50: 27.9,
+  70: 31.5,
+  95: 35.5,
 };
 
 /** Typical overall diameter of round flex, 3-core, by csa (mm). // from memory */
@@ -38,7 +48,9 @@ export interface CableWrap {
 
 /** Nearest tabled size at or above `csa` (a flag a little long wraps; a short one does not). */
 function lookup<T>(table: Record<number, T>, csa: number): T | null {
-  const sizes = Object.keys(table).map(Number).sort((a, b) => a - b);
+  const sizes = Object.keys(table)
+    .map(Number)
+    .sort((a, b) => a - b);
   const size = sizes.find((s) => s >= csa - 1e-9);
   return size === undefined ? null : table[size];
 }
@@ -52,7 +64,8 @@ export function cablePerimeter(cable: Cable): CableWrap {
     const size = lookup(TWIN_EARTH_SIZE_MM, csa);
     if (size) return { perimeterMm: 2 * (size.w + size.h), basis: assumed ? 'assumed' : 'twin-earth-table' };
   }
-  const round = cable.type === 'swa' ? SWA_DIAMETER_MM : cable.type === 'flex' ? FLEX_DIAMETER_MM : cable.type === 'singles-conduit' ? SINGLE_DIAMETER_MM : SWA_DIAMETER_MM;
+  const round =
+    cable.type === 'swa' ? SWA_DIAMETER_MM : cable.type === 'flex' ? FLEX_DIAMETER_MM : cable.type === 'singles-conduit' ? SINGLE_DIAMETER_MM : SWA_DIAMETER_MM;
   const d = lookup(round, csa);
   if (d != null) return { perimeterMm: Math.PI * d, basis: assumed ? 'assumed' : 'round-table' };
   // Beyond every table: take the largest tabled round size so the flag still prints; the caller warns.

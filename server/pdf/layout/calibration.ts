@@ -50,10 +50,18 @@ function describe(ctx: LayoutContext<'calibration'>, w: number, h: number): stri
 
 /** A sheet or page: rulers both ways, crosshairs 10 mm in from each corner and at the centre. */
 function pageCalibration(ctx: LayoutContext<'calibration'>, w: number, h: number, labels: Box[]): LayoutPage {
-  if (w < RULER_MM + 2 * CROSS_INSET_MM || h < 60) throw new LayoutError(`The calibration page needs at least ${RULER_MM + 2 * CROSS_INSET_MM} × 60 mm`, 'media');
+  if (w < RULER_MM + 2 * CROSS_INSET_MM || h < 60)
+    throw new LayoutError(`The calibration page needs at least ${RULER_MM + 2 * CROSS_INSET_MM} × 60 mm`, 'media');
   const items: Item[] = labels.map((box): Item => ({ kind: 'rect', box, stroke: GREY, lineMm: 0.15 }));
   const i = CROSS_INSET_MM;
-  for (const c of [{ x: i, y: i }, { x: w - i, y: i }, { x: i, y: h - i }, { x: w - i, y: h - i }, { x: w / 2, y: h / 2 }]) items.push(...crosshair(c, 4));
+  for (const c of [
+    { x: i, y: i },
+    { x: w - i, y: i },
+    { x: i, y: h - i },
+    { x: w - i, y: h - i },
+    { x: w / 2, y: h / 2 },
+  ])
+    items.push(...crosshair(c, 4));
   const left = (w - RULER_MM) / 2;
   items.push(...ruler({ x: left, y: 24 }, 5, ctx));
   if (h >= RULER_MM + 60) items.push(...mapItems(ruler({ x: 0, y: 0 }, 5, ctx), { x: 26, y: (h - RULER_MM) / 2, rotation: 90 }));
@@ -63,7 +71,9 @@ function pageCalibration(ctx: LayoutContext<'calibration'>, w: number, h: number
     `The corner crosshairs should sit ${i} mm from both nearby edges and the middle one at the centre.`,
     'If every crosshair is shifted the same way, enter the shift as the printer offset and print again.',
   ];
-  lines.forEach((l, n) => items.push(...text(l, { x: left, y: 36 + n * 5, w: w - left - 12, h: 4.5 }, ctx, { maxPt: 7.5, maxLines: 1, face: n === 0 ? 'bold' : 'regular' })));
+  lines.forEach((l, n) =>
+    items.push(...text(l, { x: left, y: 36 + n * 5, w: w - left - 12, h: 4.5 }, ctx, { maxPt: 7.5, maxLines: 1, face: n === 0 ? 'bold' : 'regular' })),
+  );
   return { widthMm: w, heightMm: h, items };
 }
 
@@ -76,7 +86,12 @@ function tapeCalibration(ctx: LayoutContext<'calibration'>, band: number): Layou
   for (const x of [CROSS_INSET_MM / 2, length - CROSS_INSET_MM / 2]) items.push(...crosshair({ x, y: band / 2 }, Math.min(2.5, band * 0.4)));
   const textTop = 0.3 + tick + (numbers ? Math.min(3, tick) + 0.5 : 0.3);
   const widthMm = ctx.req.medium.kind === 'tape' ? ctx.req.medium.widthMm : 0;
-  items.push(...text(describe(ctx, widthMm, length), { x: CROSS_INSET_MM + 2, y: textTop, w: RULER_MM - 4, h: band - textTop - 0.2 }, ctx, { align: 'centre', maxLines: 2 }));
+  items.push(
+    ...text(describe(ctx, widthMm, length), { x: CROSS_INSET_MM + 2, y: textTop, w: RULER_MM - 4, h: band - textTop - 0.2 }, ctx, {
+      align: 'centre',
+      maxLines: 2,
+    }),
+  );
   const pages = placePieces([{ name: 'Calibration', widthMm: length, heightMm: band, items }], ctx.req.medium, ctx.tm);
   return { title: 'Calibration', pages, warnings: ctx.warnings.list };
 }
@@ -87,16 +102,23 @@ export function layoutCalibration(ctx: LayoutContext<'calibration'>): LayoutDoc 
   if (m.kind === 'page' && isLabelPage(m)) {
     throw new LayoutError(`The calibration page needs at least ${RULER_MM + 2 * CROSS_INSET_MM} mm across: print it on A4 or A5`, 'media');
   }
-  const page = m.kind === 'sheet'
-    ? pageCalibration(ctx, m.layout.pageWidthMm, m.layout.pageHeightMm, labelBoxes(m.layout))
-    : pageCalibration(ctx, m.widthMm, m.heightMm, []);
+  const page =
+    m.kind === 'sheet'
+      ? pageCalibration(ctx, m.layout.pageWidthMm, m.layout.pageHeightMm, labelBoxes(m.layout))
+      : pageCalibration(ctx, m.widthMm, m.heightMm, []);
   return { title: 'Calibration', pages: [page], warnings: ctx.warnings.list };
 }
 
 function labelBoxes(l: Extract<LayoutContext['req']['medium'], { kind: 'sheet' }>['layout']): Box[] {
   const boxes: Box[] = [];
   for (let r = 0; r < l.rows; r++) {
-    for (let c = 0; c < l.columns; c++) boxes.push({ x: l.marginLeftMm + c * (l.labelWidthMm + l.gapXMm), y: l.marginTopMm + r * (l.labelHeightMm + l.gapYMm), w: l.labelWidthMm, h: l.labelHeightMm });
+    for (let c = 0; c < l.columns; c++)
+      boxes.push({
+        x: l.marginLeftMm + c * (l.labelWidthMm + l.gapXMm),
+        y: l.marginTopMm + r * (l.labelHeightMm + l.gapYMm),
+        w: l.labelWidthMm,
+        h: l.labelHeightMm,
+      });
   }
   return boxes;
 }

@@ -38,6 +38,8 @@ export function withDefaults<O extends PrintOutput>(output: O, given: Partial<Pr
 
 /** Whether a circuit is among the ways asked for (`onlyWays` and, for flags, the `ways` option). */
 export function wayFilter(onlyWays: number[] | undefined, waysOption?: string): (c: Pick<Circuit, 'way'>) => boolean {
-  const sets = [onlyWays ? new Set(onlyWays) : null, waysOption ? new Set(waysOption.split(',').map(Number)) : null].filter((s): s is Set<number> => s !== null);
+  const sets = [onlyWays ? new Set(onlyWays) : null, waysOption ? new Set(waysOption.split(',').map(Number)) : null].filter(
+    (s): s is Set<number> => s !== null,
+  );
   return (c) => sets.every((s) => s.has(c.way));
 }

@@ -27,7 +27,12 @@ export interface FitStyle {
   color?: Color;
 }
 
-export interface FitResult { runs: TextRun[]; sizePt: number; lines: string[]; cut: boolean }
+export interface FitResult {
+  runs: TextRun[];
+  sizePt: number;
+  lines: string[];
+  cut: boolean;
+}
 
 const STEP_PT = 0.25;
 const ELLIPSIS = '…';
@@ -63,7 +68,8 @@ export function cutToWidth(text: string, widthMm: number, face: FontFace, sizePt
   while (lo < hi) {
     const mid = Math.ceil((lo + hi) / 2);
     const candidate = chars.slice(0, mid).join('').trimEnd() + ELLIPSIS;
-    if (tm.measure(candidate, face, sizePt) <= widthMm) lo = mid; else hi = mid - 1;
+    if (tm.measure(candidate, face, sizePt) <= widthMm) lo = mid;
+    else hi = mid - 1;
   }
   const best = chars.slice(0, lo).join('').trimEnd() + ELLIPSIS;
   return tm.measure(best, face, sizePt) <= widthMm ? best : '';
@@ -75,7 +81,10 @@ function breakWord(word: string, widthMm: number, face: FontFace, sizePt: number
   let current = '';
   for (const ch of codePoints(word)) {
     const next = current + ch;
-    if (current && tm.measure(next, face, sizePt) > widthMm) { pieces.push(current); current = ch; } else current = next;
+    if (current && tm.measure(next, face, sizePt) > widthMm) {
+      pieces.push(current);
+      current = ch;
+    } else current = next;
   }
   if (current) pieces.push(current);
   return pieces;
@@ -85,7 +94,15 @@ function breakWord(word: string, widthMm: number, face: FontFace, sizePt: number
  * Greedy wrap of clean text at one size. Word widths scale with size, so they are measured once
  * at 1 pt (`wordWidths1`) and the whole search over sizes stays linear in the words.
  */
-function wrapAt(words: string[], wordWidths1: number[], space1: number, widthMm: number, face: FontFace, sizePt: number, tm: TypeMetrics): string[] & { broke?: boolean } {
+function wrapAt(
+  words: string[],
+  wordWidths1: number[],
+  space1: number,
+  widthMm: number,
+  face: FontFace,
+  sizePt: number,
+  tm: TypeMetrics,
+): string[] & { broke?: boolean } {
   const lines: string[] & { broke?: boolean } = [];
   let line = '';
   let lineW = 0;
@@ -94,22 +111,44 @@ function wrapAt(words: string[], wordWidths1: number[], space1: number, widthMm:
     const w = wordWidths1[i] * sizePt;
     if (w > widthMm) {
       lines.broke = true;
-      if (line) { lines.push(line); line = ''; lineW = 0; }
+      if (line) {
+        lines.push(line);
+        line = '';
+        lineW = 0;
+      }
       const pieces = breakWord(words[i], widthMm, face, sizePt, tm);
       lines.push(...pieces.slice(0, -1));
       line = pieces[pieces.length - 1] ?? '';
       lineW = tm.measure(line, face, sizePt);
       continue;
     }
-    if (!line) { line = words[i]; lineW = w; continue; }
-    if (lineW + spaceW + w <= widthMm) { line += ` ${words[i]}`; lineW += spaceW + w; } else { lines.push(line); line = words[i]; lineW = w; }
+    if (!line) {
+      line = words[i];
+      lineW = w;
+      continue;
+    }
+    if (lineW + spaceW + w <= widthMm) {
+      line += ` ${words[i]}`;
+      lineW += spaceW + w;
+    } else {
+      lines.push(line);
+      line = words[i];
+      lineW = w;
+    }
   }
   if (line) lines.push(line);
   return lines;
 }
 
 /** Wrap `text` to `widthMm` at one size, keeping at most `maxLines` (the last cut with an ellipsis). */
-export function wrapText(raw: string, widthMm: number, face: FontFace, sizePt: number, tm: TypeMetrics, maxLines = Infinity): { lines: string[]; cut: boolean } {
+export function wrapText(
+  raw: string,
+  widthMm: number,
+  face: FontFace,
+  sizePt: number,
+  tm: TypeMetrics,
+  maxLines = Infinity,
+): { lines: string[]; cut: boolean } {
   const text = tm.printable(cleanText(raw), face);
   if (!text) return { lines: [], cut: false };
   const words = text.split(' ');
@@ -127,11 +166,13 @@ function limitLines(lines: string[], widthMm: number, face: FontFace, sizePt: nu
     if (maxLines > 0) kept[maxLines - 1] = cutToWidth(`${lines[maxLines - 1]} ${lines[maxLines]}`, widthMm, face, sizePt, tm);
   }
   // Shaped scripts can measure wider whole than in pieces: check every line as drawn.
-  kept = kept.map((l) => {
-    if (tm.measure(l, face, sizePt) <= widthMm) return l;
-    cut = true;
-    return cutToWidth(l, widthMm, face, sizePt, tm);
-  }).filter((l) => l !== '');
+  kept = kept
+    .map((l) => {
+      if (tm.measure(l, face, sizePt) <= widthMm) return l;
+      cut = true;
+      return cutToWidth(l, widthMm, face, sizePt, tm);
+    })
+    .filter((l) => l !== '');
   return { lines: kept, cut };
 }
 
@@ -139,7 +180,8 @@ function limitLines(lines: string[], widthMm: number, face: FontFace, sizePt: nu
 function bestSize(text: string, w: number, h: number, style: FitStyle, tm: TypeMetrics): { sizePt: number; lines: string[] } | null {
   const extentMm1 = (tm.ascent + tm.descent) * MM_PER_PT;
   const single = Math.min(style.maxPt, w / tm.measure(text, style.face, 1), h / extentMm1);
-  if (single >= Math.max(style.minPt, style.wrapBelowPt ?? 0) && (style.maxLines ?? 1) >= 1) return { sizePt: Math.max(style.minPt, floorStep(single)), lines: [text] };
+  if (single >= Math.max(style.minPt, style.wrapBelowPt ?? 0) && (style.maxLines ?? 1) >= 1)
+    return { sizePt: Math.max(style.minPt, floorStep(single)), lines: [text] };
   const words = text.split(' ');
   const widths = words.map((word) => tm.measure(word, style.face, 1));
   const space1 = tm.measure(' ', style.face, 1);
@@ -165,8 +207,18 @@ function placeLines(lines: string[], sizePt: number, w: number, h: number, style
     const align = style.align ?? 'left';
     const x = align === 'left' ? 0 : align === 'right' ? w - widthMm : (w - widthMm) / 2;
     return {
-      kind: 'text', text, face: style.face, sizePt, x: Math.max(0, x), y: top + tm.ascent * em + i * spacingOf(style, tm) * em,
-      rotation: 0, color: style.color ?? BLACK, cell: frame, widthMm, ascentMm: tm.ascent * em, descentMm: tm.descent * em,
+      kind: 'text',
+      text,
+      face: style.face,
+      sizePt,
+      x: Math.max(0, x),
+      y: top + tm.ascent * em + i * spacingOf(style, tm) * em,
+      rotation: 0,
+      color: style.color ?? BLACK,
+      cell: frame,
+      widthMm,
+      ascentMm: tm.ascent * em,
+      descentMm: tm.descent * em,
     };
   });
 }

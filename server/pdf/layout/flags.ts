@@ -20,13 +20,25 @@ const PAGE_FLAG_HEIGHT_MM = 15;
 /** Shortest panel that still carries the way number and a short label (mm). */
 const MIN_PANEL_MM = 12;
 
-export interface FlagSpec { circuit: Circuit; leg: number; legs: number; end: 'board' | 'far'; wrapMm: number }
+export interface FlagSpec {
+  circuit: Circuit;
+  leg: number;
+  legs: number;
+  end: 'board' | 'far';
+  wrapMm: number;
+}
 
 /**
  * What one flag says and how far it wraps, whatever it marks (a circuit's leg at the board, a leg
  * at a junction box): the big cell (`way`), the label, the small info line, and the name warnings use.
  */
-export interface FlagText { name: string; way: string; label: string; info: string; wrapMm: number }
+export interface FlagText {
+  name: string;
+  way: string;
+  label: string;
+  info: string;
+  wrapMm: number;
+}
 
 /** Panel length for a band height: long enough for the way number and a 24-character label. */
 export function panelLengthFor(heightMm: number): number {
@@ -49,7 +61,11 @@ export function flagSpecs(ctx: LayoutContext<'flags'>): FlagSpec[] {
     for (const circuit of circuitsInWayOrder(schedule).filter(wanted)) {
       const wrap = cablePerimeter(circuit.cable);
       if (wrap.basis === 'assumed') {
-        ctx.warnings.add({ code: 'cable-size-assumed', label: `Way ${wayText(circuit)} flag`, message: `Way ${wayText(circuit)}: no cable size recorded, so the flag is sized for ${DEFAULT_CSA} mm² twin and earth` });
+        ctx.warnings.add({
+          code: 'cable-size-assumed',
+          label: `Way ${wayText(circuit)} flag`,
+          message: `Way ${wayText(circuit)}: no cable size recorded, so the flag is sized for ${DEFAULT_CSA} mm² twin and earth`,
+        });
       }
       const legs = legsOf(circuit, ctx.options.legs);
       for (let leg = 1; leg <= legs; leg++) specs.push({ circuit, leg, legs, end, wrapMm: wrap.perimeterMm + ctx.options.overlapMm });
@@ -61,7 +77,8 @@ export function flagSpecs(ctx: LayoutContext<'flags'>): FlagSpec[] {
 function infoText(spec: FlagSpec, ctx: LayoutContext<'flags'>): string {
   const device = ctx.req.schedule.devices.find((d) => d.id === spec.circuit.deviceId);
   return [device ? deviceShortText(device) : '', ctx.req.board.code, spec.legs > 1 ? `leg ${spec.leg}/${spec.legs}` : '', spec.end === 'far' ? 'far end' : '']
-    .filter(Boolean).join(' · ');
+    .filter(Boolean)
+    .join(' · ');
 }
 
 type PanelText = Pick<FlagText, 'way' | 'label' | 'info'>;
@@ -76,7 +93,11 @@ const ptFilling = (heightMm: number) => heightMm / (1.164 * (25.4 / 72));
 
 /** Preferred sizes: the way number fills its cell; label and info share the rest (two rows when there is height). */
 function preferredSizes(areaH: number, two: boolean) {
-  return { way: Math.min(40, ptFilling(areaH)), label: Math.min(14, ptFilling(two ? areaH * 0.58 : areaH)), info: Math.min(9, ptFilling(two ? areaH * 0.42 : areaH * 0.8)) };
+  return {
+    way: Math.min(40, ptFilling(areaH)),
+    label: Math.min(14, ptFilling(two ? areaH * 0.58 : areaH)),
+    info: Math.min(9, ptFilling(two ? areaH * 0.42 : areaH * 0.8)),
+  };
 }
 
 function wantedWidths(t: PanelText, areaH: number, two: boolean, ctx: LayoutContext<'flags'>) {
@@ -90,7 +111,9 @@ function neededPanel(t: PanelText, heightMm: number, endMarginMm: number, ctx: L
   const areaH = heightMm - 0.6;
   const two = areaH >= 7;
   const want = wantedWidths(t, areaH, two, ctx);
-  const needed = two ? endMarginMm + Math.min(areaH * 1.1, want.way) + 1.6 + Math.max(want.label, want.info) : endMarginMm + want.way + want.label + want.info + 2.4;
+  const needed = two
+    ? endMarginMm + Math.min(areaH * 1.1, want.way) + 1.6 + Math.max(want.label, want.info)
+    : endMarginMm + want.way + want.label + want.info + 2.4;
   return Math.min(60, Math.max(panelLengthFor(heightMm) * 0.75, needed));
 }
 
@@ -107,7 +130,12 @@ function panelCells(t: PanelText, area: Box, ctx: LayoutContext<'flags'>): { way
     const wayW = Math.min(area.w * 0.38, area.h * 1.1, Math.max(want.way, area.h * 0.6));
     const x = area.x + wayW + 0.8;
     const w = area.x + area.w - x;
-    return { way: { ...area, w: wayW }, label: { x, y: area.y, w, h: area.h * 0.58 }, info: { x, y: area.y + area.h * 0.58, w, h: area.h * 0.42 }, divider: x - 0.4 };
+    return {
+      way: { ...area, w: wayW },
+      label: { x, y: area.y, w, h: area.h * 0.58 },
+      info: { x, y: area.y + area.h * 0.58, w, h: area.h * 0.42 },
+      divider: x - 0.4,
+    };
   }
   const free = area.w - 1.6;
   const total = want.way + want.label + want.info;
@@ -125,7 +153,10 @@ function panelItems(t: PanelText, name: string, panelMm: number, heightMm: numbe
   const area: Box = { x: endMarginMm, y: 0.3, w: panelMm - endMarginMm - 0.8, h: heightMm - 0.6 };
   const cells = panelCells(t, area, ctx);
   const size = preferredSizes(area.h, area.h >= 7);
-  const items: Item[] = cells.divider < 0 ? [] : [{ kind: 'line', from: { x: cells.divider, y: area.y + 0.3 }, to: { x: cells.divider, y: area.y + area.h - 0.3 }, lineMm: 0.15, color: LIGHT_GREY }];
+  const items: Item[] =
+    cells.divider < 0
+      ? []
+      : [{ kind: 'line', from: { x: cells.divider, y: area.y + 0.3 }, to: { x: cells.divider, y: area.y + area.h - 0.3 }, lineMm: 0.15, color: LIGHT_GREY }];
   const parts: Array<[string, Box, FitStyle]> = [
     [t.way, cells.way, { face: 'bold', maxPt: size.way, minPt, align: 'centre', maxLines: 1 }],
     [t.label, cells.label, { face: 'bold', maxPt: size.label, minPt, wrapBelowPt: 7, align: 'left', maxLines: 2, lineSpacing: 1.18 }],
@@ -156,10 +187,15 @@ export function flagPiece(flag: FlagText, slot: Slot, ctx: LayoutContext<'flags'
   let panel = neededPanel(text, h, slot.endMarginMm, ctx);
   if (slot.kind === 'fixed') {
     panel = (slot.widthMm - wrapMm) / 2;
-    if (panel < MIN_PANEL_MM) throw new LayoutError(`${name} needs labels at least ${(wrapMm + 2 * MIN_PANEL_MM).toFixed(0)} mm long (wrap ${wrapMm.toFixed(1)} mm round the cable plus two panels); these are ${slot.widthMm} mm`, 'media');
+    if (panel < MIN_PANEL_MM)
+      throw new LayoutError(
+        `${name} needs labels at least ${(wrapMm + 2 * MIN_PANEL_MM).toFixed(0)} mm long (wrap ${wrapMm.toFixed(1)} mm round the cable plus two panels); these are ${slot.widthMm} mm`,
+        'media',
+      );
   }
   const length = 2 * panel + wrapMm;
-  if (slot.kind === 'free' && length > slot.maxLengthMm + 1e-6) throw new LayoutError(`${name} is ${length.toFixed(0)} mm long and does not fit across ${ctx.req.medium.id}: use a wider page or tape`, 'media');
+  if (slot.kind === 'free' && length > slot.maxLengthMm + 1e-6)
+    throw new LayoutError(`${name} is ${length.toFixed(0)} mm long and does not fit across ${ctx.req.medium.id}: use a wider page or tape`, 'media');
   const a = panelItems(text, name, panel, h, slot.endMarginMm, ctx);
   const b = mapItems(a, placeFrame(panel, h, { x: panel + wrapMm, y: 0, w: panel, h }, 180));
   return { name, widthMm: length, heightMm: h, items: [...a, ...b, ...foldTicks(panel, h), ...foldTicks(panel + wrapMm, h)] };
@@ -175,7 +211,9 @@ export function layoutFlags(ctx: LayoutContext<'flags'>): LayoutDoc {
   const flags = atBoxes ? junctionBoxFlagTexts(ctx) : flagSpecs(ctx).map((s) => boardFlagText(s, ctx));
   const pieces = flags.map((f) => flagPiece(f, slot, ctx));
   if (pieces.length === 0) {
-    const message = atBoxes ? 'No planned leg goes through a junction box: there are no junction-box flags to print' : 'No circuits match: there are no cable flags to print';
+    const message = atBoxes
+      ? 'No planned leg goes through a junction box: there are no junction-box flags to print'
+      : 'No circuits match: there are no cable flags to print';
     ctx.warnings.add({ code: 'nothing-to-print', message });
   }
   const pages = placePieces(pieces, ctx.req.medium, ctx.tm, ctx.options.layout === 'strip');

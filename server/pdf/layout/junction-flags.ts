@@ -30,12 +30,20 @@ export function junctionBoxFlagTexts(ctx: LayoutContext<'flags'>): FlagText[] {
       for (const leg of t.legs) {
         const box = leg.junctionBoxId != null ? boxes.get(leg.junctionBoxId) : undefined;
         if (leg.junctionBoxId != null && !box) {
-          ctx.warnings.add({ code: 'junction-box-unknown', label: `Old ${w.reference}`, message: `${oldSide(w, leg.leg)}: junction box "${leg.junctionBoxId}" is not in the survey's list, so no flag is printed for it` });
+          ctx.warnings.add({
+            code: 'junction-box-unknown',
+            label: `Old ${w.reference}`,
+            message: `${oldSide(w, leg.leg)}: junction box "${leg.junctionBoxId}" is not in the survey's list, so no flag is printed for it`,
+          });
         }
         if (!box) continue;
         const wrap = cablePerimeter(w.cable);
         if (wrap.basis === 'assumed') {
-          ctx.warnings.add({ code: 'cable-size-assumed', label: `${box.name} flag`, message: `${oldSide(w, leg.leg)}: no cable size recorded, so the flag is sized for ${DEFAULT_CSA} mm² twin and earth` });
+          ctx.warnings.add({
+            code: 'cable-size-assumed',
+            label: `${box.name} flag`,
+            message: `${oldSide(w, leg.leg)}: no cable size recorded, so the flag is sized for ${DEFAULT_CSA} mm² twin and earth`,
+          });
         }
         flags.push({
           name: `${box.name} flag (${oldSide(w, leg.leg)})`,

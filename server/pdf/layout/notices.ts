@@ -40,11 +40,30 @@ const LENGTH_STEP_MM = 5;
 const GROW_STEP_MM = 8;
 const LINE_SPACING = 1.2;
 
-interface Block { lines: string[]; face: FontFace; sizePt: number; align: FitStyle['align']; heightMm: number }
+interface Block {
+  lines: string[];
+  face: FontFace;
+  sizePt: number;
+  align: FitStyle['align'];
+  heightMm: number;
+}
 /** `regulationInline`: the reference sits at the right end of the last line instead of a line of its own. */
-interface Stack { title: Block; middle: Block[]; regulation: Block; regulationInline: boolean; gapMm: number; heightMm: number }
+interface Stack {
+  title: Block;
+  middle: Block[];
+  regulation: Block;
+  regulationInline: boolean;
+  gapMm: number;
+  heightMm: number;
+}
 
-const styleOf = (face: FontFace, sizePt: number, align: FitStyle['align'] = 'left'): FitStyle => ({ face, maxPt: sizePt, minPt: sizePt, lineSpacing: LINE_SPACING, align });
+const styleOf = (face: FontFace, sizePt: number, align: FitStyle['align'] = 'left'): FitStyle => ({
+  face,
+  maxPt: sizePt,
+  minPt: sizePt,
+  lineSpacing: LINE_SPACING,
+  align,
+});
 
 /** The sizes at scale `s`, none below the minimum and the title never smaller than the body. */
 function sizesAt(s: number) {
@@ -88,7 +107,7 @@ function stackAt(c: NoticeContent, w: number, s: number, tm: TypeMetrics, joinDe
 const SCALES = Array.from({ length: 41 }, (_, i) => 1 - i * 0.02); // 1 … 0.2: below ~0.55 every size is at its minimum
 
 /** The largest scale at which the stack fits `w × h`, or null if it does not fit even at the minimum sizes. */
-function bestStack(c: NoticeContent, w: number, h: number, tm: TypeMetrics, joinDetails: boolean, floor = 0): Stack & { scale: number } | null {
+function bestStack(c: NoticeContent, w: number, h: number, tm: TypeMetrics, joinDetails: boolean, floor = 0): (Stack & { scale: number }) | null {
   for (const s of SCALES) {
     if (s < floor - 1e-9) break;
     const st = stackAt(c, w, s, tm, joinDetails);
@@ -123,7 +142,8 @@ function sideRoom(c: NoticeContent, h: number): number {
 /** Items of a stacked notice: title at the top, regulation at the bottom right, the rest centred between. */
 function stackItems(st: Stack, area: Box, tm: TypeMetrics): Item[] {
   const items: Item[] = [];
-  const put = (b: Block, y: number) => items.push(...runsForLines(b.lines, { x: area.x, y, w: area.w, h: b.heightMm }, styleOf(b.face, b.sizePt, b.align), b.sizePt, tm));
+  const put = (b: Block, y: number) =>
+    items.push(...runsForLines(b.lines, { x: area.x, y, w: area.w, h: b.heightMm }, styleOf(b.face, b.sizePt, b.align), b.sizePt, tm));
   // Title and wording kept together, centred in the room above the regulation line.
   const middleH = st.middle.reduce((sum, b) => sum + b.heightMm, 0) + st.gapMm * Math.max(0, st.middle.length - 1);
   const room = area.h - (st.regulationInline ? 0 : st.regulation.heightMm + st.gapMm);
@@ -131,7 +151,10 @@ function stackItems(st: Stack, area: Box, tm: TypeMetrics): Item[] {
   const titleY = area.y + Math.max(0, (room - groupH) / 2);
   put(st.title, titleY);
   let y = titleY + st.title.heightMm + st.gapMm;
-  for (const b of st.middle) { put(b, y); y += b.heightMm + st.gapMm; }
+  for (const b of st.middle) {
+    put(b, y);
+    y += b.heightMm + st.gapMm;
+  }
   if (!st.regulationInline) put(st.regulation, area.y + area.h - st.regulation.heightMm);
   else {
     // At the right end of the last line, sharing its bottom edge.
@@ -182,7 +205,10 @@ function roomHint(ctx: LayoutContext<'notices'>): string {
 function cannotFit(c: NoticeContent, lines: string[], ctx: LayoutContext<'notices'>): void {
   const name = `${c.title} notice`;
   if (c.kind === 'alternative-supply') {
-    throw new LayoutError(`The alternative-supply notice (${c.regulation}) cannot show where to isolate every source in type of at least ${NOTICE_MIN_PT} pt on ${ctx.req.medium.id}, and it is never printed cut: ${roomHint(ctx)}`, 'media');
+    throw new LayoutError(
+      `The alternative-supply notice (${c.regulation}) cannot show where to isolate every source in type of at least ${NOTICE_MIN_PT} pt on ${ctx.req.medium.id}, and it is never printed cut: ${roomHint(ctx)}`,
+      'media',
+    );
   }
   for (const line of lines) ctx.warnings.cut(name, line);
 }
@@ -223,7 +249,11 @@ function tapeNotice(c: NoticeContent, h: number, maxLength: number, ctx: LayoutC
       const widths = [st.title, ...st.middle, st.regulation].flatMap((b) => b.lines.map((l) => ctx.tm.measure(l, b.face, b.sizePt)));
       if (st.regulationInline) {
         const last = st.middle[st.middle.length - 1] ?? st.title;
-        widths.push(ctx.tm.measure(last.lines[last.lines.length - 1], last.face, last.sizePt) + 2 * st.gapMm + ctx.tm.measure(c.regulation, 'regular', st.regulation.sizePt));
+        widths.push(
+          ctx.tm.measure(last.lines[last.lines.length - 1], last.face, last.sizePt) +
+            2 * st.gapMm +
+            ctx.tm.measure(c.regulation, 'regular', st.regulation.sizePt),
+        );
       }
       const used = Math.max(...widths);
       const w = Math.ceil(used + room + 0.5);
@@ -251,7 +281,8 @@ function sheetNotice(c: NoticeContent, slot: Extract<Slot, { kind: 'free' }>, ct
   const h0 = Math.min(size.h, slot.heightMm);
   const tries: Array<[number, number]> = [];
   for (let h = h0; h <= slot.heightMm + 1e-6; h += GROW_STEP_MM) tries.push([w0, h]);
-  for (let w = w0 + GROW_STEP_MM * 2; w <= slot.maxLengthMm + 1e-6; w += GROW_STEP_MM * 2) tries.push([w, Math.min(slot.heightMm, Math.max(h0, tries[tries.length - 1][1]))]);
+  for (let w = w0 + GROW_STEP_MM * 2; w <= slot.maxLengthMm + 1e-6; w += GROW_STEP_MM * 2)
+    tries.push([w, Math.min(slot.heightMm, Math.max(h0, tries[tries.length - 1][1]))]);
   let fallback: { w: number; h: number; items: Item[] } | null = null;
   for (const [w, h] of tries) {
     const f = frame(c, w, h);
@@ -288,7 +319,11 @@ function warnIfOverdue(c: NoticeContent, ctx: LayoutContext<'notices'>): void {
   const due = overdueInspection(ctx.req.board.nextInspectionOn, ctx.req.today);
   if (c.kind !== 'inspection' || !due) return;
   const name = `${c.title} notice`;
-  ctx.warnings.add({ code: 'inspection-overdue', label: name, message: `${name}: the next inspection was due on ${due}, which has passed. Have the installation inspected and print the notice with the new dates.` });
+  ctx.warnings.add({
+    code: 'inspection-overdue',
+    label: name,
+    message: `${name}: the next inspection was due on ${due}, which has passed. Have the installation inspected and print the notice with the new dates.`,
+  });
 }
 
 export function layoutNotices(ctx: LayoutContext<'notices'>): LayoutDoc {

@@ -11,15 +11,20 @@ import { isLabelPage, TAPE_MAX_LENGTH_MM } from '../media.js';
 import { LayoutError, type Medium } from '../types.js';
 
 /** One thing to print, in its own frame (length `widthMm` along x, `heightMm` across). */
-export interface Piece { name: string; widthMm: number; heightMm: number; items: Item[]; caption?: string }
+export interface Piece {
+  name: string;
+  widthMm: number;
+  heightMm: number;
+  items: Item[];
+  caption?: string;
+}
 
 /**
  * The room a piece gets. `free`: the piece picks its length up to `maxLengthMm` (tape, tiles on a page);
  * `fixed`: the piece is exactly the label. `endMarginMm` is what the printer may not reach at each end.
  */
 export type Slot =
-  | { kind: 'free'; heightMm: number; maxLengthMm: number; endMarginMm: number }
-  | { kind: 'fixed'; widthMm: number; heightMm: number; endMarginMm: number };
+  { kind: 'free'; heightMm: number; maxLengthMm: number; endMarginMm: number } | { kind: 'fixed'; widthMm: number; heightMm: number; endMarginMm: number };
 
 /** Margin around tiles on a plain page, and the gap between them (mm). // common practice */
 export const PAGE_MARGIN_MM = 10;
@@ -34,7 +39,18 @@ const CUT_LINE = { lineMm: 0.15, color: GREY, dashMm: [1.5, 1] } as const;
 function labelGrid(medium: Medium) {
   if (medium.kind === 'sheet') return medium.layout;
   if (medium.kind === 'page' && isLabelPage(medium)) {
-    return { pageWidthMm: medium.widthMm, pageHeightMm: medium.heightMm, labelWidthMm: medium.widthMm, labelHeightMm: medium.heightMm, columns: 1, rows: 1, marginTopMm: 0, marginLeftMm: 0, gapXMm: 0, gapYMm: 0 };
+    return {
+      pageWidthMm: medium.widthMm,
+      pageHeightMm: medium.heightMm,
+      labelWidthMm: medium.widthMm,
+      labelHeightMm: medium.heightMm,
+      columns: 1,
+      rows: 1,
+      marginTopMm: 0,
+      marginLeftMm: 0,
+      gapXMm: 0,
+      gapYMm: 0,
+    };
   }
   return null;
 }
@@ -71,8 +87,24 @@ function joinMarks(y: number, dir: 1 | -1, band: { x: number; w: number }): Item
   const left = band.x;
   const right = band.x + band.w;
   return [
-    { kind: 'polygon', points: [{ x: left, y }, { x: left + mark, y }, { x: left, y: y + dir * mark }], fill: BLACK },
-    { kind: 'polygon', points: [{ x: right, y }, { x: right - mark, y }, { x: right, y: y + dir * mark }], fill: BLACK },
+    {
+      kind: 'polygon',
+      points: [
+        { x: left, y },
+        { x: left + mark, y },
+        { x: left, y: y + dir * mark },
+      ],
+      fill: BLACK,
+    },
+    {
+      kind: 'polygon',
+      points: [
+        { x: right, y },
+        { x: right - mark, y },
+        { x: right, y: y + dir * mark },
+      ],
+      fill: BLACK,
+    },
   ];
 }
 
@@ -85,7 +117,11 @@ function tapeStrip(pieces: Piece[], medium: Extract<Medium, { kind: 'tape' }>, m
   const pages: LayoutPage[] = [];
   let items: Item[] = [];
   let y = 0;
-  const close = () => { pages.push({ widthMm: medium.widthMm, heightMm: Math.max(y, 1), items }); items = []; y = 0; };
+  const close = () => {
+    pages.push({ widthMm: medium.widthMm, heightMm: Math.max(y, 1), items });
+    items = [];
+    y = 0;
+  };
   pieces.forEach((p, i) => {
     const band = { x: (medium.widthMm - p.heightMm) / 2, w: p.heightMm };
     if (i > 0 && y + STRIP_GAP_MM + p.widthMm > maxMm + 1e-6) {
@@ -119,17 +155,32 @@ function pageTiles(pieces: Piece[], medium: Extract<Medium, { kind: 'page' }>, t
   for (const p of pieces) {
     const h = p.heightMm + (p.caption ? CAPTION_MM : 0);
     if (p.widthMm > right - PAGE_MARGIN_MM + 1e-6 || h > bottom - PAGE_MARGIN_MM + 1e-6) {
-      throw new LayoutError(`${p.name} (${p.widthMm.toFixed(1)} × ${p.heightMm.toFixed(1)} mm) does not fit on ${medium.id}: choose a larger page or tape`, 'media');
+      throw new LayoutError(
+        `${p.name} (${p.widthMm.toFixed(1)} × ${p.heightMm.toFixed(1)} mm) does not fit on ${medium.id}: choose a larger page or tape`,
+        'media',
+      );
     }
-    if (x + p.widthMm > right + 1e-6) { x = PAGE_MARGIN_MM; y += rowH + TILE_GAP_MM; rowH = 0; }
+    if (x + p.widthMm > right + 1e-6) {
+      x = PAGE_MARGIN_MM;
+      y += rowH + TILE_GAP_MM;
+      rowH = 0;
+    }
     if (!page || y + h > bottom + 1e-6) {
       page = { widthMm: medium.widthMm, heightMm: medium.heightMm, items: [] };
       pages.push(page);
-      x = PAGE_MARGIN_MM; y = PAGE_MARGIN_MM; rowH = 0;
+      x = PAGE_MARGIN_MM;
+      y = PAGE_MARGIN_MM;
+      rowH = 0;
     }
     const top = y + (p.caption ? CAPTION_MM : 0);
     if (p.caption) page.items.push(...captionItems(p.caption, { x, y, w: p.widthMm, h: CAPTION_MM }, tm));
-    page.items.push({ kind: 'rect', box: { x, y: top, w: p.widthMm, h: p.heightMm }, stroke: CUT_LINE.color, lineMm: CUT_LINE.lineMm, dashMm: CUT_LINE.dashMm });
+    page.items.push({
+      kind: 'rect',
+      box: { x, y: top, w: p.widthMm, h: p.heightMm },
+      stroke: CUT_LINE.color,
+      lineMm: CUT_LINE.lineMm,
+      dashMm: CUT_LINE.dashMm,
+    });
     page.items.push(...mapItems(p.items, { x, y: top, rotation: 0 }));
     x += p.widthMm + TILE_GAP_MM;
     rowH = Math.max(rowH, h);
@@ -152,7 +203,12 @@ function sheetLabels(pieces: Piece[], medium: Medium): LayoutPage[] {
     const n = i % perPage;
     const col = n % grid.columns;
     const row = Math.floor(n / grid.columns);
-    const label: Box = { x: grid.marginLeftMm + col * (grid.labelWidthMm + grid.gapXMm), y: grid.marginTopMm + row * (grid.labelHeightMm + grid.gapYMm), w: grid.labelWidthMm, h: grid.labelHeightMm };
+    const label: Box = {
+      x: grid.marginLeftMm + col * (grid.labelWidthMm + grid.gapXMm),
+      y: grid.marginTopMm + row * (grid.labelHeightMm + grid.gapYMm),
+      w: grid.labelWidthMm,
+      h: grid.labelHeightMm,
+    };
     const at: Placement = tall ? placeFrame(p.widthMm, p.heightMm, label, 90) : placeFrame(p.widthMm, p.heightMm, label, 0);
     pages[pages.length - 1].items.push(...mapItems(p.items, at));
   });

@@ -82,14 +82,25 @@ export function tagPiece(slot: Slot, ctx: LayoutContext<'tag'>): Piece {
   if (besideW) items.push(...fitText(CAPTION, { x: slot.endMarginMm + qrSide + 0.3, y: pad, w: besideW - 0.3, h: qrSide }, CAPTION_STYLE, ctx.tm, 270).runs);
   const encodable = code128Pattern(board.code) !== '';
   const bars = encodable && x >= CODE128_MIN_X_MM - 1e-9;
-  if (!encodable) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `Code 128 cannot carry the board code "${board.code}"; the barcode was left off` });
-  else if (!bars) ctx.warnings.add({ code: 'barcode-left-off', label: 'Board tag', message: `The barcode needs ${code128WidthMm(board.code, CODE128_MIN_X_MM).toFixed(0)} mm beside the QR code; it was left off this size` });
+  if (!encodable)
+    ctx.warnings.add({
+      code: 'barcode-left-off',
+      label: 'Board tag',
+      message: `Code 128 cannot carry the board code "${board.code}"; the barcode was left off`,
+    });
+  else if (!bars)
+    ctx.warnings.add({
+      code: 'barcode-left-off',
+      label: 'Board tag',
+      message: `The barcode needs ${code128WidthMm(board.code, CODE128_MIN_X_MM).toFixed(0)} mm beside the QR code; it was left off this size`,
+    });
   items.push(...textSide(side, bars ? x : null, ctx));
   return { name: 'Board tag', widthMm: length, heightMm: h, items };
 }
 
 export function layoutTag(ctx: LayoutContext<'tag'>): LayoutDoc {
-  if (!ctx.req.board.publicEnabled) ctx.warnings.add({ code: 'qr-left-off', label: 'Board tag', message: 'The board page is switched off, so the tag has no QR code' });
+  if (!ctx.req.board.publicEnabled)
+    ctx.warnings.add({ code: 'qr-left-off', label: 'Board tag', message: 'The board page is switched off, so the tag has no QR code' });
   const slot = slotFor(ctx.req.medium, PAGE_TAG_HEIGHT_MM);
   const piece = tagPiece(slot, ctx);
   const pieces = Array.from({ length: ctx.options.copies }, () => piece);

@@ -8,19 +8,37 @@ import type { Box, Item } from '../model.js';
 import type { LayoutContext } from './context.js';
 import { blockHeight, fitText, runsForLines, type FitStyle } from './fit.js';
 
-export interface CellText { ways: string; device: string; main: string }
+export interface CellText {
+  ways: string;
+  device: string;
+  main: string;
+}
 
 /** Largest sizes (pt) for a cell's way number and main label: one pair per strip keeps the row even. */
-export interface CellCaps { ways: number; main: number }
+export interface CellCaps {
+  ways: number;
+  main: number;
+}
 /** Sizes a cell's text was set at, for working out the strip's caps. */
 export type CellSizes = CellCaps;
 /** A row's caps: one pair for its upright cells, one for its turned (half-module) cells, so each kind reads evenly. */
-export interface RowCaps { upright: CellCaps; turned: CellCaps }
+export interface RowCaps {
+  upright: CellCaps;
+  turned: CellCaps;
+}
 
 const PAD_MM = 0.6;
 
 /** Runs for a cell's text in a local `w × h` frame, and the sizes its way number and main label got. */
-function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: LayoutContext<'way-labels'>, name: string | null, caps?: CellCaps): { items: Item[]; sizes: CellSizes } {
+function frameItems(
+  t: CellText,
+  w: number,
+  h: number,
+  minPt: number,
+  ctx: LayoutContext<'way-labels'>,
+  name: string | null,
+  caps?: CellCaps,
+): { items: Item[]; sizes: CellSizes } {
   const inner: Box = { x: PAD_MM, y: PAD_MM * 0.6, w: w - 2 * PAD_MM, h: h - 1.2 * PAD_MM };
   const cap = (pt: number, c: number | undefined) => Math.max(minPt, Math.min(pt, c ?? pt));
   const bold: FitStyle = { face: 'bold', maxPt: cap(12, caps?.ways), minPt, maxLines: 1, align: 'left' };
@@ -29,7 +47,10 @@ function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: Layou
   const parts: Array<[string, Box, FitStyle, 'ways' | 'device' | 'main']> = [];
   const extra: Item[] = [];
   if (inner.h < 5) {
-    parts.push([t.ways, { ...inner, w: inner.w * 0.3 }, bold, 'ways'], [t.main, { ...inner, x: inner.x + inner.w * 0.32, w: inner.w * 0.68 }, { ...main, align: 'left', maxLines: 1 }, 'main']);
+    parts.push(
+      [t.ways, { ...inner, w: inner.w * 0.3 }, bold, 'ways'],
+      [t.main, { ...inner, x: inner.x + inner.w * 0.32, w: inner.w * 0.68 }, { ...main, align: 'left', maxLines: 1 }, 'main'],
+    );
   } else {
     let top = Math.max(2.2, inner.h * 0.38);
     // Share the top line by how wide each text is, so "9" next to "C32 30 mA" leaves the device room.
@@ -44,12 +65,19 @@ function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: Layou
     if (t.device && inner.w * (1 - wayShare) < deviceW * minPt) {
       deviceLines = twoLines(t.device, inner.w * (1 - wayShare), inner.h * 0.5, minPt, regular, ctx);
       if (deviceLines) top = Math.max(top, blockHeight(2, deviceLines.sizePt, regular, ctx.tm));
-      else { if (name) ctx.warnings.cut(name, t.device); wayShare = 1; t = { ...t, device: '' }; }
+      else {
+        if (name) ctx.warnings.cut(name, t.device);
+        wayShare = 1;
+        t = { ...t, device: '' };
+      }
     }
     const ways: Box = { x: inner.x, y: inner.y, w: inner.w * wayShare, h: top };
     parts.push([t.ways, ways, t.device ? bold : { ...bold, align: 'centre' }, 'ways']);
     const deviceBox: Box = { x: inner.x + inner.w * wayShare, y: inner.y, w: inner.w * (1 - wayShare), h: top };
-    if (deviceLines) extra.push(...runsForLines(deviceLines.lines, deviceBox, { ...regular, maxPt: deviceLines.sizePt, minPt: deviceLines.sizePt }, deviceLines.sizePt, ctx.tm));
+    if (deviceLines)
+      extra.push(
+        ...runsForLines(deviceLines.lines, deviceBox, { ...regular, maxPt: deviceLines.sizePt, minPt: deviceLines.sizePt }, deviceLines.sizePt, ctx.tm),
+      );
     else if (t.device) parts.push([t.device, deviceBox, regular, 'device']);
     parts.push([t.main, { x: inner.x, y: inner.y + top, w: inner.w, h: inner.h - top }, main, 'main']);
   }
@@ -65,7 +93,14 @@ function frameItems(t: CellText, w: number, h: number, minPt: number, ctx: Layou
 }
 
 /** `text` split at its first space into two lines, at the largest size up to the style's that fits `w × h`; null below `minPt`. */
-function twoLines(text: string, w: number, h: number, minPt: number, style: FitStyle, ctx: LayoutContext<'way-labels'>): { lines: string[]; sizePt: number } | null {
+function twoLines(
+  text: string,
+  w: number,
+  h: number,
+  minPt: number,
+  style: FitStyle,
+  ctx: LayoutContext<'way-labels'>,
+): { lines: string[]; sizePt: number } | null {
   const at = text.indexOf(' ');
   if (at <= 0) return null;
   const lines = [text.slice(0, at), text.slice(at + 1)];

@@ -14,8 +14,20 @@ import { cellItems, cellSizes, type CellCaps, type CellText, type RowCaps } from
 /** Strip height when tiled on a plain sheet (mm), unless the option says otherwise. // common practice */
 const PAGE_STRIP_HEIGHT_MM = 12;
 
-export interface WayCell { deviceId: string; x: number; w: number; ways: number[] }
-export interface WayStrip { row: number; part: number; parts: number; startMm: number; lengthMm: number; cells: WayCell[] }
+export interface WayCell {
+  deviceId: string;
+  x: number;
+  w: number;
+  ways: number[];
+}
+export interface WayStrip {
+  row: number;
+  part: number;
+  parts: number;
+  startMm: number;
+  lengthMm: number;
+  cells: WayCell[];
+}
 
 /** Cells of one DIN row along the rail, from 0 mm. */
 export function rowCells(devices: Device[], byDevice: Map<string, Circuit[]>, pitchMm: number): WayCell[] {
@@ -47,12 +59,18 @@ const sameText = (a: string, b: string) => a.toLowerCase().replace(/[^\p{L}\p{N}
 
 function textFor(d: Device, circuits: Circuit[], rcds: Map<string, string>, spareWay: string): CellText {
   if (d.kind === 'blank') return { ways: '', device: '', main: '' };
-  if (d.kind === 'rcd') return { ways: rcds.get(d.id) ?? 'RCD', device: '', main: deviceShortText(d).replace(/^RCD /, '') + (d.rcdType ? ` Type ${d.rcdType}` : '') };
-  if (d.kind === 'main-switch' || (d.kind === 'isolator' && circuits.length === 0)) return { ways: d.label || deviceKindName(d), device: '', main: d.rating != null ? `${d.rating} A` : '' };
+  if (d.kind === 'rcd')
+    return { ways: rcds.get(d.id) ?? 'RCD', device: '', main: deviceShortText(d).replace(/^RCD /, '') + (d.rcdType ? ` Type ${d.rcdType}` : '') };
+  if (d.kind === 'main-switch' || (d.kind === 'isolator' && circuits.length === 0))
+    return { ways: d.label || deviceKindName(d), device: '', main: d.rating != null ? `${d.rating} A` : '' };
   // A label that only repeats "Surge protection" is not printed twice: the short name goes on top.
   if (d.kind === 'spd') return { ways: d.label && !sameText(d.label, 'Surge protection') ? d.label : 'SPD', device: '', main: 'Surge protection' };
   const labels = [...new Set(circuits.map((c) => c.label))];
-  return { ways: circuits.length ? circuits.map((c) => wayText(c)).join(', ') : spareWay, device: deviceShortText(d), main: labels.length ? labels.join(' / ') : 'Spare' };
+  return {
+    ways: circuits.length ? circuits.map((c) => wayText(c)).join(', ') : spareWay,
+    device: deviceShortText(d),
+    main: labels.length ? labels.join(' / ') : 'Spare',
+  };
 }
 
 const PHASE_ORDER = ['L1', 'L2', 'L3'] as const;
@@ -69,10 +87,14 @@ export function spareWays(schedule: Schedule, byDevice: Map<string, Circuit[]>):
   for (const d of [...schedule.devices].sort((a, b) => a.row - b.row)) {
     if (d.kind !== 'mcb' && d.kind !== 'rcbo' && d.kind !== 'afdd') continue;
     const circuits = byDevice.get(d.id) ?? [];
-    if (circuits.length) { last = circuitsSorted(circuits)[circuits.length - 1]; continue; }
+    if (circuits.length) {
+      last = circuitsSorted(circuits)[circuits.length - 1];
+      continue;
+    }
     if (!last) continue;
-    const i = last.phase ? PHASE_ORDER.indexOf(last.phase as typeof PHASE_ORDER[number]) : -1;
-    const next: Pick<Circuit, 'way' | 'phase'> = i >= 0 && i < 2 ? { way: last.way, phase: PHASE_ORDER[i + 1] } : { way: last.way + 1, phase: i === 2 ? 'L1' : null };
+    const i = last.phase ? PHASE_ORDER.indexOf(last.phase as (typeof PHASE_ORDER)[number]) : -1;
+    const next: Pick<Circuit, 'way' | 'phase'> =
+      i >= 0 && i < 2 ? { way: last.way, phase: PHASE_ORDER[i + 1] } : { way: last.way + 1, phase: i === 2 ? 'L1' : null };
     last = next;
     if (!used.has(wayText(next))) out.set(d.id, wayText(next));
   }
@@ -108,9 +130,20 @@ function joinCaption(part: number, parts: number): string {
   return near.length === 2 ? `▼▲ meet parts ${near[0]} and ${near[1]}` : `▼▲ meet part ${near[0]}`;
 }
 
-interface StripPlan { strips: WayStrip[]; pieces: Piece[] }
+interface StripPlan {
+  strips: WayStrip[];
+  pieces: Piece[];
+}
 
-function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, Device>, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>, joins: { left: boolean; right: boolean }, caps: RowCaps): Piece {
+function segmentPiece(
+  strip: WayStrip,
+  heightMm: number,
+  devices: Map<string, Device>,
+  texts: Map<string, CellText>,
+  ctx: LayoutContext<'way-labels'>,
+  joins: { left: boolean; right: boolean },
+  caps: RowCaps,
+): Piece {
   const mark = Math.min(2, heightMm / 4);
   const name = `Row ${strip.row} way labels${strip.parts > 1 ? ` (part ${strip.part} of ${strip.parts})` : ''}`;
   const items: Item[] = [
@@ -121,7 +154,10 @@ function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, De
     const box: Box = { x: cell.x, y: 0, w: cell.w, h: heightMm };
     items.push({ kind: 'line', from: { x: cell.x, y: 0 }, to: { x: cell.x, y: heightMm }, lineMm: 0.2, color: BLACK });
     const textBox = { ...box };
-    if (joins.left && cell.x < 1e-6) { textBox.x += mark; textBox.w -= mark; }
+    if (joins.left && cell.x < 1e-6) {
+      textBox.x += mark;
+      textBox.w -= mark;
+    }
     if (joins.right && cell.x + cell.w > strip.lengthMm - 1e-6) textBox.w -= mark;
     const t = texts.get(cell.deviceId)!;
     const cellName = /^\d/.test(t.ways) ? `Way ${t.ways} label` : `${devices.get(cell.deviceId)?.label || t.ways || 'Device'} label`;
@@ -129,21 +165,39 @@ function segmentPiece(strip: WayStrip, heightMm: number, devices: Map<string, De
   }
   items.push({ kind: 'line', from: { x: strip.lengthMm, y: 0 }, to: { x: strip.lengthMm, y: heightMm }, lineMm: 0.2, color: BLACK });
   const half = (x: number, dir: 1 | -1): Item[] => [
-    { kind: 'polygon', points: [{ x, y: 0 }, { x, y: mark }, { x: x + dir * mark, y: 0 }], fill: BLACK },
-    { kind: 'polygon', points: [{ x, y: heightMm }, { x, y: heightMm - mark }, { x: x + dir * mark, y: heightMm }], fill: BLACK },
+    {
+      kind: 'polygon',
+      points: [
+        { x, y: 0 },
+        { x, y: mark },
+        { x: x + dir * mark, y: 0 },
+      ],
+      fill: BLACK,
+    },
+    {
+      kind: 'polygon',
+      points: [
+        { x, y: heightMm },
+        { x, y: heightMm - mark },
+        { x: x + dir * mark, y: heightMm },
+      ],
+      fill: BLACK,
+    },
   ];
   if (joins.left) items.push(...half(0, 1));
   if (joins.right) items.push(...half(strip.lengthMm, -1));
   const pitch = ctx.options.pitchMm;
-  const caption = strip.parts > 1
-    ? `Row ${strip.row} · part ${strip.part} of ${strip.parts} (${joinCaption(strip.part, strip.parts)}) · ${pitch} mm`
-    : `Row ${strip.row} · ${pitch} mm modules`;
+  const caption =
+    strip.parts > 1
+      ? `Row ${strip.row} · part ${strip.part} of ${strip.parts} (${joinCaption(strip.part, strip.parts)}) · ${pitch} mm`
+      : `Row ${strip.row} · ${pitch} mm modules`;
   return { name, widthMm: strip.lengthMm, heightMm, items, caption };
 }
 
 /** Cells clipped to one part of the strip, shifted so the part starts at 0. */
 function cellsIn(cells: WayCell[], a: number, b: number): WayCell[] {
-  return cells.filter((c) => c.x < b - 1e-6 && c.x + c.w > a + 1e-6)
+  return cells
+    .filter((c) => c.x < b - 1e-6 && c.x + c.w > a + 1e-6)
     .map((c) => ({ ...c, x: Math.max(c.x, a) - a, w: Math.min(c.x + c.w, b) - Math.max(c.x, a) }));
 }
 
@@ -162,7 +216,11 @@ export function wayLabelPlan(ctx: LayoutContext<'way-labels'>): StripPlan {
   const strips: WayStrip[] = [];
   const pieces: Piece[] = [];
   for (const row of rows) {
-    let cells = rowCells(schedule.devices.filter((d) => d.row === row), byDevice, ctx.options.pitchMm);
+    let cells = rowCells(
+      schedule.devices.filter((d) => d.row === row),
+      byDevice,
+      ctx.options.pitchMm,
+    );
     const caps = rowCaps(cells, slot.heightMm, texts, ctx);
     const groups = only ? cells.filter((c) => c.ways.some((w) => only.has(w))).map((c) => [{ ...c, x: 0 }]) : [cells];
     for (cells of groups) {

@@ -23,7 +23,14 @@ function coverText(f: CircuitFacts): string {
 
 function need(f: CircuitFacts, severity: Severity, code: string, rule: string, why: string): Finding {
   const cover = thirtyMaCover(f);
-  return circuitFinding(f, cover === 'unknown' ? 'warning' : severity, code, rule, 'deviceId', `${circuitName(f.circuit)}: ${why} need 30 mA RCD additional protection, but ${coverText(f)}`);
+  return circuitFinding(
+    f,
+    cover === 'unknown' ? 'warning' : severity,
+    code,
+    rule,
+    'deviceId',
+    `${circuitName(f.circuit)}: ${why} need 30 mA RCD additional protection, but ${coverText(f)}`,
+  );
 }
 
 function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
@@ -34,15 +41,24 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   const sockets = circuit.socketOutlets || circuit.kind === 'ring';
   if (sockets && (device.rating == null || device.rating <= SOCKET_RCD_MAX_RATING)) {
     // Outside dwellings 411.3.3 allows a documented risk assessment instead, so it is a warning there.
-    out.push(need(f, dwelling ? 'error' : 'warning', 'sockets-need-rcd', 'BS 7671 411.3.3',
-      dwelling ? 'socket-outlets up to 32 A' : 'socket-outlets up to 32 A (unless a documented risk assessment outside a dwelling says otherwise)'));
+    out.push(
+      need(
+        f,
+        dwelling ? 'error' : 'warning',
+        'sockets-need-rcd',
+        'BS 7671 411.3.3',
+        dwelling ? 'socket-outlets up to 32 A' : 'socket-outlets up to 32 A (unless a documented risk assessment outside a dwelling says otherwise)',
+      ),
+    );
   }
   if (circuit.kind === 'lighting' && dwelling) {
     out.push(need(f, 'error', 'lighting-needs-rcd', 'BS 7671 411.3.4', 'final circuits supplying luminaires in a dwelling'));
   }
   // Armoured cable with earthed armour counts as otherwise protected (522.6.204).
   if (circuit.concealedInWall && circuit.cable.type !== 'swa') {
-    out.push(need(f, 'error', 'concealed-cable-needs-rcd', 'BS 7671 522.6.202/203', 'cables concealed in a wall less than 50 mm deep, or in a wall with metal parts,'));
+    out.push(
+      need(f, 'error', 'concealed-cable-needs-rcd', 'BS 7671 522.6.202/203', 'cables concealed in a wall less than 50 mm deep, or in a wall with metal parts,'),
+    );
   }
   return out;
 }

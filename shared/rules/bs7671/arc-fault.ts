@@ -25,15 +25,29 @@ export function checkArcFault(view: ScheduleView): Finding[] {
   const missing = view.circuits.filter(lacksAfdd);
   if (!missing.length) return [];
   if (view.schedule.board.installationType === 'hmo') {
-    return missing.map((f) => circuitFinding(f, 'warning', 'sockets-need-afdd', RULE, 'deviceId',
-      `${circuitName(f.circuit)}: in a house in multiple occupation, socket-outlet circuits up to 32 A need an AFDD (BS EN 62606); its device is not one`));
+    return missing.map((f) =>
+      circuitFinding(
+        f,
+        'warning',
+        'sockets-need-afdd',
+        RULE,
+        'deviceId',
+        `${circuitName(f.circuit)}: in a house in multiple occupation, socket-outlet circuits up to 32 A need an AFDD (BS EN 62606); its device is not one`,
+      ),
+    );
   }
   const ways = [...new Set(missing.map((f) => f.circuit.way))].sort((a, b) => a - b);
   // The message names each way as printed ("4 L1"), so a three-phase board's ways can be told apart.
   const named = [...missing].sort((a, b) => a.circuit.way - b.circuit.way || (a.circuit.phase ?? '').localeCompare(b.circuit.phase ?? ''));
   const printed = [...new Set(named.map((f) => wayText(f.circuit)))];
-  return [{
-    severity: 'info', code: 'afdd-recommended', rule: RULE, ways, field: `circuits.${missing[0]!.index}.deviceId`,
-    message: `${waysText(printed, true)}: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A`,
-  }];
+  return [
+    {
+      severity: 'info',
+      code: 'afdd-recommended',
+      rule: RULE,
+      ways,
+      field: `circuits.${missing[0]!.index}.deviceId`,
+      message: `${waysText(printed, true)}: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A`,
+    },
+  ];
 }

@@ -14,15 +14,23 @@ import { deviceName, isOvercurrentDevice, num, waysText, type ScheduleView } fro
 
 const RULE = 'BS 7671 434.5.1';
 
-interface Placed { device: Device; index: number }
+interface Placed {
+  device: Device;
+  index: number;
+}
 
 /** "devices on ways 4 L1 and 4 L2", "device on way 3", "devices on way 1, and Spare (B16, no circuit)". */
 function describe(view: ScheduleView, placed: Placed[]): string {
   const ids = new Set(placed.map((p) => p.device.id));
-  const ways = view.circuits.filter((f) => f.circuit.deviceId != null && ids.has(f.circuit.deviceId))
-    .map((f) => f.circuit).sort((a, b) => a.way - b.way || (a.phase ?? '').localeCompare(b.phase ?? '')).map(wayText);
+  const ways = view.circuits
+    .filter((f) => f.circuit.deviceId != null && ids.has(f.circuit.deviceId))
+    .map((f) => f.circuit)
+    .sort((a, b) => a.way - b.way || (a.phase ?? '').localeCompare(b.phase ?? ''))
+    .map(wayText);
   const used = new Set(view.circuits.map((f) => f.circuit.deviceId));
-  const unused = placed.filter((p) => !used.has(p.device.id)).map((p) => (p.device.label ? `${p.device.label} (${deviceName(p.device)}, no circuit)` : `${deviceName(p.device)} (no circuit)`));
+  const unused = placed
+    .filter((p) => !used.has(p.device.id))
+    .map((p) => (p.device.label ? `${p.device.label} (${deviceName(p.device)}, no circuit)` : `${deviceName(p.device)} (no circuit)`));
   const word = placed.length === 1 ? 'device' : 'devices';
   const onWays = ways.length ? [`on ${waysText(ways)}`] : [];
   return `${word} ${[...onWays, ...unused].join(', and ')}`;
@@ -38,21 +46,32 @@ function belowFaultCurrent(view: ScheduleView, low: Placed[], pfc: number): Find
   for (const p of low) byCapacity.set(p.device.breakingCapacityKa!, [...(byCapacity.get(p.device.breakingCapacityKa!) ?? []), p]);
   const groups = [...byCapacity.entries()].sort(([a], [b]) => a - b).map(([ka, placed]) => `${num(ka)} kA ${describe(view, placed)}`);
   const { usualConditionalKa } = BREAKING_CAPACITY;
-  const conditional = pfc <= usualConditionalKa
-    ? `A consumer unit or distribution board to BS EN 61439-3 may carry a conditional short-circuit rating (commonly ${usualConditionalKa} kA) that covers the devices fitted in it`
-    : `A consumer unit or distribution board to BS EN 61439-3 may carry a conditional short-circuit rating that covers the devices fitted in it, but the common ${usualConditionalKa} kA would not cover ${num(pfc)} kA`;
+  const conditional =
+    pfc <= usualConditionalKa
+      ? `A consumer unit or distribution board to BS EN 61439-3 may carry a conditional short-circuit rating (commonly ${usualConditionalKa} kA) that covers the devices fitted in it`
+      : `A consumer unit or distribution board to BS EN 61439-3 may carry a conditional short-circuit rating that covers the devices fitted in it, but the common ${usualConditionalKa} kA would not cover ${num(pfc)} kA`;
   return {
-    severity: 'warning', code: 'breaking-capacity-below-pfc', rule: RULE, ways: waysOf(view, low), field: 'board.supply.pfcKa',
-    message: `The ${num(pfc)} kA prospective fault current at the board is above the breaking capacity of ${groups.join('; ')}. `
-      + `${conditional}: confirm from the maker's data that this assembly's rating, or a device upstream, covers ${num(pfc)} kA; otherwise fit devices rated for it`,
+    severity: 'warning',
+    code: 'breaking-capacity-below-pfc',
+    rule: RULE,
+    ways: waysOf(view, low),
+    field: 'board.supply.pfcKa',
+    message:
+      `The ${num(pfc)} kA prospective fault current at the board is above the breaking capacity of ${groups.join('; ')}. ` +
+      `${conditional}: confirm from the maker's data that this assembly's rating, or a device upstream, covers ${num(pfc)} kA; otherwise fit devices rated for it`,
   };
 }
 
 function capacityUnknown(view: ScheduleView, unknown: Placed[], pfc: number): Finding {
   return {
-    severity: 'info', code: 'breaking-capacity-not-recorded', rule: RULE, ways: waysOf(view, unknown), field: `devices.${unknown[0]!.index}.breakingCapacityKa`,
-    message: `The ${num(pfc)} kA prospective fault current is above the ${BREAKING_CAPACITY.usualDomesticKa} kA usual for domestic breakers, `
-      + `but no breaking capacity is recorded for the ${describe(view, unknown)}: record each device's Icn so it can be checked`,
+    severity: 'info',
+    code: 'breaking-capacity-not-recorded',
+    rule: RULE,
+    ways: waysOf(view, unknown),
+    field: `devices.${unknown[0]!.index}.breakingCapacityKa`,
+    message:
+      `The ${num(pfc)} kA prospective fault current is above the ${BREAKING_CAPACITY.usualDomesticKa} kA usual for domestic breakers, ` +
+      `but no breaking capacity is recorded for the ${describe(view, unknown)}: record each device's Icn so it can be checked`,
   };
 }
 

@@ -23,7 +23,13 @@ export function twinEarthIz(liveCsa: number, method: string): number | null {
   return row.iz[method as TwinEarthMethod];
 }
 
-const CABLE_NAMES = { 'twin-earth': 'flat twin-and-earth', swa: 'SWA', 'singles-conduit': 'singles in conduit', flex: 'flex', other: 'this cable type' } as const;
+const CABLE_NAMES = {
+  'twin-earth': 'flat twin-and-earth',
+  swa: 'SWA',
+  'singles-conduit': 'singles in conduit',
+  flex: 'flex',
+  other: 'this cable type',
+} as const;
 
 function unchecked(f: CircuitFacts, field: string, why: string): Finding {
   return circuitFinding(f, 'info', 'capacity-not-checked', 'BS 7671 433.1.1', field, `${circuitName(f.circuit)}: cable capacity not checked: ${why}`);
@@ -48,7 +54,10 @@ function capacityOf(cable: TabulatedCable, tabulated: number): Capacity | Extrac
   const texts = factors.map((x) => x.text);
   const listed = texts.length > 1 ? `${texts.slice(0, -1).join(', ')} and ${texts[texts.length - 1]}` : texts[0];
   // Ci is worked from the clipped-direct value; say so when the circuit's own method is another.
-  const method = insulatedAtMethodC && cable.referenceMethod !== 'C' ? `method C where it is in insulation (method ${cable.referenceMethod} elsewhere)` : `method ${cable.referenceMethod}`;
+  const method =
+    insulatedAtMethodC && cable.referenceMethod !== 'C'
+      ? `method C where it is in insulation (method ${cable.referenceMethod} elsewhere)`
+      : `method ${cable.referenceMethod}`;
   return { iz, factors, basis: `at ${method} with ${listed}, from ${num(insulatedAtMethodC ? atMethodC : tabulated)} A in Table 4D5` };
 }
 
@@ -64,8 +73,16 @@ function checkRing(f: CircuitFacts, cap: Capacity, tabulated: number): Finding[]
   const message = cap.factors.length
     ? `needs Iz of at least ${RING_FINAL.minIz} A under its installation conditions, but it has ${amps(cap.iz)} A ${cap.basis}`
     : `needs Iz of at least ${RING_FINAL.minIz} A, but method ${cable.referenceMethod} gives ${amps(cap.iz)} A (Table 4D5)`;
-  return [circuitFinding(f, 'error', 'ring-iz-below-20', 'BS 7671 433.1.204', blamedField(cap, tabulated >= RING_FINAL.minIz, 'cable.referenceMethod'),
-    `${circuitName(circuit)}: a 2.5 mm² ring final on a ${deviceName(device!)} ${message}`)];
+  return [
+    circuitFinding(
+      f,
+      'error',
+      'ring-iz-below-20',
+      'BS 7671 433.1.204',
+      blamedField(cap, tabulated >= RING_FINAL.minIz, 'cable.referenceMethod'),
+      `${circuitName(circuit)}: a 2.5 mm² ring final on a ${deviceName(device!)} ${message}`,
+    ),
+  ];
 }
 
 /** 433.1.202: a BS 3036 fuse's rating may be at most 0.725 of the cable's Iz. */
@@ -75,33 +92,53 @@ function checkSemiEnclosed(f: CircuitFacts, cap: Capacity, tabulated: number): F
   const allowed = BS3036_OVERLOAD_FACTOR * cap.iz;
   if (rating <= allowed + 1e-9) return [];
   const cable = circuit.cable;
-  return [circuitFinding(f, 'error', 'rating-over-0725-iz', 'BS 7671 433.1.202', blamedField(cap, rating <= BS3036_OVERLOAD_FACTOR * tabulated, 'cable.liveCsa'),
-    `${circuitName(circuit)}: a ${num(rating)} A BS 3036 rewireable fuse needs In ≤ 0.725 × Iz, but 0.725 × ${amps(cap.iz)} A = ${amps(allowed)} A for ${num(cable.liveCsa!)} mm² twin-and-earth ${cap.basis}; a larger cable, or a lower rating, is needed`)];
+  return [
+    circuitFinding(
+      f,
+      'error',
+      'rating-over-0725-iz',
+      'BS 7671 433.1.202',
+      blamedField(cap, rating <= BS3036_OVERLOAD_FACTOR * tabulated, 'cable.liveCsa'),
+      `${circuitName(circuit)}: a ${num(rating)} A BS 3036 rewireable fuse needs In ≤ 0.725 × Iz, but 0.725 × ${amps(cap.iz)} A = ${amps(allowed)} A for ${num(cable.liveCsa!)} mm² twin-and-earth ${cap.basis}; a larger cable, or a lower rating, is needed`,
+    ),
+  ];
 }
 
 function checkCircuit(f: CircuitFacts): Finding[] {
   const { circuit, device } = f;
   if (!device || !isOvercurrentDevice(device) || device.rating == null) return [];
   const cable = circuit.cable;
-  if (cable.type !== 'twin-earth') return [unchecked(f, 'cable.type', `no tabulated values for ${CABLE_NAMES[cable.type]} in this rule set; check In ≤ Iz against its Appendix 4 table`)];
+  if (cable.type !== 'twin-earth')
+    return [unchecked(f, 'cable.type', `no tabulated values for ${CABLE_NAMES[cable.type]} in this rule set; check In ≤ Iz against its Appendix 4 table`)];
   if (cable.liveCsa == null) return [unchecked(f, 'cable.liveCsa', 'record the live conductor csa')];
   if (cable.referenceMethod == null) return [unchecked(f, 'cable.referenceMethod', 'record the installation reference method')];
   const tabulated = twinEarthIz(cable.liveCsa, cable.referenceMethod);
   if (tabulated == null) return [unchecked(f, 'cable.referenceMethod', `Table 4D5 does not list ${num(cable.liveCsa)} mm² at method ${cable.referenceMethod}`)];
   const cap = capacityOf(cable as TabulatedCable, tabulated);
   if ('ok' in cap) {
-    return [cap.unsuitable
-      ? circuitFinding(f, 'error', 'ambient-over-cable-limit', 'BS 7671 Table 4B1', cap.field, `${circuitName(circuit)}: ${cap.why}`)
-      : unchecked(f, cap.field, cap.why)];
+    return [
+      cap.unsuitable
+        ? circuitFinding(f, 'error', 'ambient-over-cable-limit', 'BS 7671 Table 4B1', cap.field, `${circuitName(circuit)}: ${cap.why}`)
+        : unchecked(f, cap.field, cap.why),
+    ];
   }
   // 433.1.204 names breakers and BS 88 fuses; a rewireable fuse's ring is checked by 0.725 below.
   const ringDevice = device.kind !== 'fuse' || (device.fuseStandard != null && RING_RULE_FUSES.includes(device.fuseStandard));
-  const isRecognisedRing = ringDevice && circuit.kind === 'ring' && cable.liveCsa === RING_FINAL.liveCsa && (RING_FINAL.ratings as readonly number[]).includes(device.rating);
+  const isRecognisedRing =
+    ringDevice && circuit.kind === 'ring' && cable.liveCsa === RING_FINAL.liveCsa && (RING_FINAL.ratings as readonly number[]).includes(device.rating);
   if (isRecognisedRing) return checkRing(f, cap, tabulated);
   if (device.kind === 'fuse' && device.fuseStandard === 'BS 3036') return checkSemiEnclosed(f, cap, tabulated);
   if (device.rating <= cap.iz) return [];
-  return [circuitFinding(f, 'error', 'rating-over-iz', 'BS 7671 433.1.1', blamedField(cap, device.rating <= tabulated, 'cable.liveCsa'),
-    `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${amps(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`)];
+  return [
+    circuitFinding(
+      f,
+      'error',
+      'rating-over-iz',
+      'BS 7671 433.1.1',
+      blamedField(cap, device.rating <= tabulated, 'cable.liveCsa'),
+      `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${amps(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`,
+    ),
+  ];
 }
 
 /** In ≤ Iz × Ca × Cg × Ci for every circuit with a rated device, or why it could not be checked. */

@@ -53,13 +53,22 @@ function airFactors(cable: Cable): AppliedFactor[] | Extract<CorrectedIz, { ok: 
   const factors: AppliedFactor[] = [];
   if (cable.ambientC != null) {
     const ca = ambientFactor(cable.ambientC);
-    if (ca == null) return { ok: false, field: 'cable.ambientC', unsuitable: true, why: `Table 4B1 gives no factor for 70 °C thermoplastic cable above 60 °C ambient (${num(cable.ambientC)} °C recorded): the cable is not for that heat` };
-    if (ca !== 1) factors.push({ value: ca, effect: ca, field: 'cable.ambientC', text: factorText('Ca', ca, `${num(cable.ambientC)} °C ambient`, 'Table 4B1') });
+    if (ca == null)
+      return {
+        ok: false,
+        field: 'cable.ambientC',
+        unsuitable: true,
+        why: `Table 4B1 gives no factor for 70 °C thermoplastic cable above 60 °C ambient (${num(cable.ambientC)} °C recorded): the cable is not for that heat`,
+      };
+    if (ca !== 1)
+      factors.push({ value: ca, effect: ca, field: 'cable.ambientC', text: factorText('Ca', ca, `${num(cable.ambientC)} °C ambient`, 'Table 4B1') });
   }
   if (cable.groupedWith != null) {
     const cg = groupingFactor(cable.groupedWith);
-    if (cg == null) return { ok: false, field: 'cable.groupedWith', unsuitable: false, why: `Table 4C1 goes up to 20 circuits grouped (${cable.groupedWith} recorded)` };
-    if (cg !== 1) factors.push({ value: cg, effect: cg, field: 'cable.groupedWith', text: factorText('Cg', cg, `${cable.groupedWith} circuits grouped`, 'Table 4C1') });
+    if (cg == null)
+      return { ok: false, field: 'cable.groupedWith', unsuitable: false, why: `Table 4C1 goes up to 20 circuits grouped (${cable.groupedWith} recorded)` };
+    if (cg !== 1)
+      factors.push({ value: cg, effect: cg, field: 'cable.groupedWith', text: factorText('Cg', cg, `${cable.groupedWith} circuits grouped`, 'Table 4C1') });
   }
   return factors;
 }
@@ -82,7 +91,12 @@ export function correctedIz(cable: Cable & { liveCsa: number }, atMethod: number
     base = atMethodC;
     insulatedAtMethodC = true;
     const source = cable.liveCsa > FULLY_INSULATED.table52_2MaxCsa || length >= FULLY_INSULATED.fromMm ? '523.9' : 'Table 52.2';
-    factors.push({ value: ci, effect: (atMethodC * ci) / atMethod, field: 'cable.insulatedLengthMm', text: factorText('Ci', ci, `${num(length)} mm in thermal insulation`, source) });
+    factors.push({
+      value: ci,
+      effect: (atMethodC * ci) / atMethod,
+      field: 'cable.insulatedLengthMm',
+      text: factorText('Ci', ci, `${num(length)} mm in thermal insulation`, source),
+    });
   }
   const iz = factors.reduce((v, f) => v * f.value, base);
   // Rounded only to drop floating-point noise (27 × 0.7 = 18.900000000000002).

@@ -21,8 +21,16 @@ function duplicateWays(view: ScheduleView): Finding[] {
   view.circuits.forEach((f, i) => {
     const earlier = view.circuits.slice(0, i).find((e) => clash(view, e, f));
     if (!earlier) return;
-    out.push(circuitFinding(f, 'error', 'way-used-twice', RULE, 'way',
-      `${circuitName(f.circuit)}: way ${wayText(f.circuit)} is already used by ${earlier.circuit.label}`));
+    out.push(
+      circuitFinding(
+        f,
+        'error',
+        'way-used-twice',
+        RULE,
+        'way',
+        `${circuitName(f.circuit)}: way ${wayText(f.circuit)} is already used by ${earlier.circuit.label}`,
+      ),
+    );
   });
   return out;
 }
@@ -31,14 +39,31 @@ function deviceProblems(f: CircuitFacts): Finding[] {
   const { circuit, device } = f;
   const name = circuitName(circuit);
   if (circuit.deviceId == null) {
-    return [circuitFinding(f, 'warning', 'circuit-without-device', RULE, 'deviceId', `${name}: no protective device is recorded, so its rating, cable and Zs cannot be checked`)];
+    return [
+      circuitFinding(
+        f,
+        'warning',
+        'circuit-without-device',
+        RULE,
+        'deviceId',
+        `${name}: no protective device is recorded, so its rating, cable and Zs cannot be checked`,
+      ),
+    ];
   }
   if (!device) {
     return [circuitFinding(f, 'error', 'unknown-device', RULE, 'deviceId', `${name}: device "${circuit.deviceId}" is not on the board`)];
   }
   if (!isOvercurrentDevice(device)) {
-    return [circuitFinding(f, 'warning', 'device-gives-no-overcurrent-protection', 'BS 7671 433.1.1', 'deviceId',
-      `${name}: its device (${deviceName(device)}) gives no overcurrent protection; a circuit needs an MCB, RCBO or fuse`)];
+    return [
+      circuitFinding(
+        f,
+        'warning',
+        'device-gives-no-overcurrent-protection',
+        'BS 7671 433.1.1',
+        'deviceId',
+        `${name}: its device (${deviceName(device)}) gives no overcurrent protection; a circuit needs an MCB, RCBO or fuse`,
+      ),
+    ];
   }
   return [];
 }
@@ -52,24 +77,56 @@ function cableProblems(f: CircuitFacts): Finding[] {
   // Only once the live csa is recorded: a blank cable already gets "record the live conductor csa".
   if (type === 'twin-earth' && liveCsa != null && cpcCsa == null) {
     const usual = TWIN_EARTH_CPC[liveCsa];
-    return [circuitFinding(f, 'info', 'cpc-not-recorded', RULE, 'cable.cpcCsa',
-      `${circuitName(f.circuit)}: record the cpc csa of its twin-and-earth${usual != null ? ` (${num(liveCsa)} mm² twin-and-earth usually has ${num(usual)} mm²)` : ''}; without it the cpc cannot be judged for Zs or the adiabatic check (543.1.3)`)];
+    return [
+      circuitFinding(
+        f,
+        'info',
+        'cpc-not-recorded',
+        RULE,
+        'cable.cpcCsa',
+        `${circuitName(f.circuit)}: record the cpc csa of its twin-and-earth${usual != null ? ` (${num(liveCsa)} mm² twin-and-earth usually has ${num(usual)} mm²)` : ''}; without it the cpc cannot be judged for Zs or the adiabatic check (543.1.3)`,
+      ),
+    ];
   }
   // SWA armour or a separate cpc in conduit may rightly be larger than the live conductors.
   if (!INTEGRAL_CPC.has(type) || liveCsa == null || cpcCsa == null || cpcCsa <= liveCsa) return [];
-  return [circuitFinding(f, 'warning', 'cpc-larger-than-live', RULE, 'cable.cpcCsa',
-    `${circuitName(f.circuit)}: cpc ${num(cpcCsa)} mm² is larger than the live conductors (${num(liveCsa)} mm²); the two sizes may be swapped`)];
+  return [
+    circuitFinding(
+      f,
+      'warning',
+      'cpc-larger-than-live',
+      RULE,
+      'cable.cpcCsa',
+      `${circuitName(f.circuit)}: cpc ${num(cpcCsa)} mm² is larger than the live conductors (${num(liveCsa)} mm²); the two sizes may be swapped`,
+    ),
+  ];
 }
 
 function linkProblems(view: ScheduleView, f: CircuitFacts): Finding[] {
   const out: Finding[] = [];
   if (f.circuit.feedsBoardId != null && f.circuit.kind !== 'sub-main') {
-    out.push(circuitFinding(f, 'warning', 'feeds-board-on-final-circuit', RULE, 'feedsBoardId',
-      `${circuitName(f.circuit)}: it names a board it feeds but is not a sub-main; set its kind to sub-main or clear the link`));
+    out.push(
+      circuitFinding(
+        f,
+        'warning',
+        'feeds-board-on-final-circuit',
+        RULE,
+        'feedsBoardId',
+        `${circuitName(f.circuit)}: it names a board it feeds but is not a sub-main; set its kind to sub-main or clear the link`,
+      ),
+    );
   }
   if (view.schedule.board.phases === 1 && f.circuit.phase != null && f.circuit.phase !== 'L1') {
-    out.push(circuitFinding(f, 'warning', 'phase-on-single-phase-board', RULE, 'phase',
-      `${circuitName(f.circuit)}: phase ${f.circuit.phase} is recorded on a single-phase board`));
+    out.push(
+      circuitFinding(
+        f,
+        'warning',
+        'phase-on-single-phase-board',
+        RULE,
+        'phase',
+        `${circuitName(f.circuit)}: phase ${f.circuit.phase} is recorded on a single-phase board`,
+      ),
+    );
   }
   return out;
 }
@@ -77,7 +134,10 @@ function linkProblems(view: ScheduleView, f: CircuitFacts): Finding[] {
 function duplicateIds(view: ScheduleView): Finding[] {
   const seen = new Set<string>();
   return view.circuits.flatMap((f) => {
-    if (!seen.has(f.circuit.id)) { seen.add(f.circuit.id); return []; }
+    if (!seen.has(f.circuit.id)) {
+      seen.add(f.circuit.id);
+      return [];
+    }
     return [circuitFinding(f, 'error', 'circuit-id-twice', RULE, 'id', `${circuitName(f.circuit)}: id "${f.circuit.id}" is used by another circuit`)];
   });
 }

@@ -42,7 +42,13 @@ export function maxZs(device: Device, circuit: Circuit): ZsLimit | null {
   const printed = TABLE_41_3[device.curve][device.rating];
   // Ratings the table does not print: its own formula, to three significant figures (the table's precision at common sizes).
   const value = printed ?? Number(((CMIN * 230) / (INSTANT_TRIP_MULTIPLE[device.curve] * device.rating)).toPrecision(3));
-  return { ohms: value, table: 'Table 41.3', seconds: disconnectionSeconds(circuit, device), basis: `${device.curve}${device.rating}`, derived: printed == null };
+  return {
+    ohms: value,
+    table: 'Table 41.3',
+    seconds: disconnectionSeconds(circuit, device),
+    basis: `${device.curve}${device.rating}`,
+    derived: printed == null,
+  };
 }
 
 /**
@@ -80,23 +86,57 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   const ze = view.schedule.board.supply.ze;
   if (ze != null && measured < ze) {
     // Zs is normally Ze plus the circuit's R1+R2, but a parallel earth path (bonded pipework, steelwork) can lower it.
-    out.push(circuitFinding(f, 'warning', 'zs-below-ze', 'Common practice', 'measuredZs',
-      `${name}: measured Zs ${ohms(measured)} is below Ze ${ohms(ze)}: check both readings; a parallel earth path through bonded pipework can cause this`));
+    out.push(
+      circuitFinding(
+        f,
+        'warning',
+        'zs-below-ze',
+        'Common practice',
+        'measuredZs',
+        `${name}: measured Zs ${ohms(measured)} is below Ze ${ohms(ze)}: check both readings; a parallel earth path through bonded pipework can cause this`,
+      ),
+    );
   }
   const limit = zsLimit(view.schedule, f);
   if (!limit) {
     const fuse = f.device?.kind === 'fuse';
-    const what = !f.device ? 'it has no protective device recorded'
-      : fuse ? `its fuse (${deviceName(f.device)}) has no recorded standard and rating, or one our copy of the table does not hold`
+    const what = !f.device
+      ? 'it has no protective device recorded'
+      : fuse
+        ? `its fuse (${deviceName(f.device)}) has no recorded standard and rating, or one our copy of the table does not hold`
         : `its device (${deviceName(f.device)}) has no recorded curve and rating`;
-    out.push(circuitFinding(f, 'info', 'zs-not-checked', fuse ? 'BS 7671 Tables 41.2 and 41.4' : 'BS 7671 Table 41.3', 'measuredZs',
-      `${name}: measured Zs ${ohms(measured)} not checked because ${what}`));
+    out.push(
+      circuitFinding(
+        f,
+        'info',
+        'zs-not-checked',
+        fuse ? 'BS 7671 Tables 41.2 and 41.4' : 'BS 7671 Table 41.3',
+        'measuredZs',
+        `${name}: measured Zs ${ohms(measured)} not checked because ${what}`,
+      ),
+    );
   } else if (measured > limit.ohms) {
-    out.push(circuitFinding(f, 'error', 'zs-over-max', `BS 7671 ${limit.table}`, 'measuredZs',
-      `${name}: measured Zs ${ohms(measured)} exceeds the ${limitText(limit)}`));
+    out.push(
+      circuitFinding(
+        f,
+        'error',
+        'zs-over-max',
+        `BS 7671 ${limit.table}`,
+        'measuredZs',
+        `${name}: measured Zs ${ohms(measured)} exceeds the ${limitText(limit)}`,
+      ),
+    );
   } else if (f.circuit.zsAtAmbient && limit.table !== 'Table 41.5' && measured > limit.ohms * AMBIENT_RULE_OF_THUMB) {
-    out.push(circuitFinding(f, 'warning', 'zs-over-rule-of-thumb', 'IET guidance: 80 % rule of thumb', 'measuredZs',
-      `${name}: measured Zs ${ohms(measured)} is within the ${limitText(limit)} but above 80 % of it (${ohms(limit.ohms * AMBIENT_RULE_OF_THUMB)}), the rule of thumb in IET guidance for a reading taken cold; conductors warm in use and Zs rises`));
+    out.push(
+      circuitFinding(
+        f,
+        'warning',
+        'zs-over-rule-of-thumb',
+        'IET guidance: 80 % rule of thumb',
+        'measuredZs',
+        `${name}: measured Zs ${ohms(measured)} is within the ${limitText(limit)} but above 80 % of it (${ohms(limit.ohms * AMBIENT_RULE_OF_THUMB)}), the rule of thumb in IET guidance for a reading taken cold; conductors warm in use and Zs rises`,
+      ),
+    );
   }
   return out;
 }
@@ -114,8 +154,14 @@ export function checkEarthFaultLoop(view: ScheduleView): Finding[] {
 export function checkElectrode(view: ScheduleView): Finding[] {
   const { earthing, ze } = view.schedule.board.supply;
   if (earthing !== 'TT' || ze == null || ze <= TT_ELECTRODE_STABLE_MAX_OHMS) return [];
-  return [{
-    severity: 'warning', code: 'tt-electrode-may-be-unstable', rule: 'IET Guidance Note 3', ways: [], field: 'board.supply.ze',
-    message: `Ze ${ohms(ze)} is above ${TT_ELECTRODE_STABLE_MAX_OHMS} Ω: IET guidance treats an earth electrode resistance this high as possibly unstable (the soil drying or freezing raises it); check the electrode and consider improving it`,
-  }];
+  return [
+    {
+      severity: 'warning',
+      code: 'tt-electrode-may-be-unstable',
+      rule: 'IET Guidance Note 3',
+      ways: [],
+      field: 'board.supply.ze',
+      message: `Ze ${ohms(ze)} is above ${TT_ELECTRODE_STABLE_MAX_OHMS} Ω: IET guidance treats an earth electrode resistance this high as possibly unstable (the soil drying or freezing raises it); check the electrode and consider improving it`,
+    },
+  ];
 }

@@ -14,7 +14,9 @@ export function inspectionIntervalMonths(board: Pick<BoardDetails, 'inspectionIn
 }
 
 /** Next periodic inspection (YYYY-MM-DD): last inspection, else installation, plus the interval; null with neither date. */
-export function nextInspectionOn(board: Pick<BoardDetails, 'lastInspectionOn' | 'installedOn' | 'inspectionIntervalMonths' | 'installationType'>): string | null {
+export function nextInspectionOn(
+  board: Pick<BoardDetails, 'lastInspectionOn' | 'installedOn' | 'inspectionIntervalMonths' | 'installationType'>,
+): string | null {
   const from = board.lastInspectionOn ?? board.installedOn;
   return from ? addMonths(from, inspectionIntervalMonths(board)) : null;
 }
@@ -30,20 +32,45 @@ export function checkInspection(board: BoardDetails, context: CheckContext, next
   const out: Finding[] = [];
   if (board.lastInspectionOn == null) {
     out.push({
-      severity: 'info', code: 'no-last-inspection', rule: 'BS 7671 514.12.1', ways: [], field: 'board.lastInspectionOn',
+      severity: 'info',
+      code: 'no-last-inspection',
+      rule: 'BS 7671 514.12.1',
+      ways: [],
+      field: 'board.lastInspectionOn',
       message: board.installedOn
         ? `No last inspection date is recorded; the next inspection is counted from installation on ${longDate(board.installedOn)}`
         : 'No last inspection or installation date is recorded, so the next inspection date cannot be given',
     });
   } else if (board.lastInspectionOn > context.today) {
-    out.push({ severity: 'warning', code: 'last-inspection-in-future', rule: 'Data check', ways: [], field: 'board.lastInspectionOn', message: `The last inspection date ${longDate(board.lastInspectionOn)} is after today` });
+    out.push({
+      severity: 'warning',
+      code: 'last-inspection-in-future',
+      rule: 'Data check',
+      ways: [],
+      field: 'board.lastInspectionOn',
+      message: `The last inspection date ${longDate(board.lastInspectionOn)} is after today`,
+    });
   }
   if (next == null) return out;
   const field = board.lastInspectionOn != null ? 'board.lastInspectionOn' : 'board.installedOn';
   if (next < context.today) {
-    out.push({ severity: 'warning', code: 'inspection-overdue', rule, ways: [], field, message: `Periodic inspection overdue: it was due on ${longDate(next)} (${intervalText(months)} interval)` });
+    out.push({
+      severity: 'warning',
+      code: 'inspection-overdue',
+      rule,
+      ways: [],
+      field,
+      message: `Periodic inspection overdue: it was due on ${longDate(next)} (${intervalText(months)} interval)`,
+    });
   } else if (next <= addDays(context.today, INSPECTION_DUE_SOON_DAYS)) {
-    out.push({ severity: 'info', code: 'inspection-due-soon', rule, ways: [], field, message: `Periodic inspection due on ${longDate(next)} (${intervalText(months)} interval)` });
+    out.push({
+      severity: 'info',
+      code: 'inspection-due-soon',
+      rule,
+      ways: [],
+      field,
+      message: `Periodic inspection due on ${longDate(next)} (${intervalText(months)} interval)`,
+    });
   }
   return out;
 }

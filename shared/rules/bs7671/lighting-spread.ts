@@ -17,12 +17,14 @@ export function checkLightingSpread(view: ScheduleView): Finding[] {
   const sharing = view.circuits.filter((f) => f.rcd?.id === first.id && f.circuit.kind !== 'lighting').length;
   const ways = lighting.map((f) => f.circuit.way).sort((a, b) => a - b);
   const all = lighting.length === 1 ? 'The only lighting circuit is' : `All ${lighting.length} lighting circuits are`;
-  return [{
-    severity: 'warning',
-    code: 'lighting-behind-one-rcd',
-    rule: 'Common practice',
-    ways,
-    field: `circuits.${lighting[0].index}.deviceId`,
-    message: `${all} behind ${name}${sharing ? ` with ${sharing} other circuit${sharing === 1 ? '' : 's'}` : ''}: a single trip leaves the premises dark; spread lighting across RCDs or use RCBOs`,
-  }];
+  return [
+    {
+      severity: 'warning',
+      code: 'lighting-behind-one-rcd',
+      rule: 'Common practice',
+      ways,
+      field: `circuits.${lighting[0].index}.deviceId`,
+      message: `${all} behind ${name}${sharing ? ` with ${sharing} other circuit${sharing === 1 ? '' : 's'}` : ''}: a single trip leaves the premises dark; spread lighting across RCDs or use RCBOs`,
+    },
+  ];
 }

@@ -49,12 +49,24 @@ function checkDevice(view: ScheduleView, d: Device, index: number): Finding[] {
     const sockets = general.some((f) => f.circuit.kind !== 'sub-main');
     const subMain = general.some((f) => f.circuit.kind === 'sub-main');
     const what = [sockets ? 'socket-outlets' : '', subMain ? 'a sub-main' : ''].filter(Boolean).join(' and ');
-    return [finding(index, circuits, 'warning',
-      `${name(d)}: since A2:2022 Type AC may only serve fixed equipment whose load current is known to contain no DC components, but it protects ${what} (${texts(general)}); fit Type A (or F or B where the equipment needs it)`)];
+    return [
+      finding(
+        index,
+        circuits,
+        'warning',
+        `${name(d)}: since A2:2022 Type AC may only serve fixed equipment whose load current is known to contain no DC components, but it protects ${what} (${texts(general)}); fit Type A (or F or B where the equipment needs it)`,
+      ),
+    ];
   }
   if (fixed.length) {
-    return [finding(index, circuits, 'info',
-      `${name(d)}: Type AC may only serve fixed equipment whose load current is known to contain no DC components; confirm that for ${texts(fixed)} (LED drivers, induction hobs and inverters often have them) or fit Type A`)];
+    return [
+      finding(
+        index,
+        circuits,
+        'info',
+        `${name(d)}: Type AC may only serve fixed equipment whose load current is known to contain no DC components; confirm that for ${texts(fixed)} (LED drivers, induction hobs and inverters often have them) or fit Type A`,
+      ),
+    ];
   }
   return [];
 }

@@ -10,9 +10,12 @@ export function checkReadings(view: ScheduleView): Finding[] {
     const r = f.circuit.readings;
     if (!r) continue;
     const issues = judgeReadings(r, {
-      ring: f.circuit.kind === 'ring', ze, behindRcd: f.rcd != null,
+      ring: f.circuit.kind === 'ring',
+      ze,
+      behindRcd: f.rcd != null,
       zs: { value: f.circuit.measuredZs, field: '../measuredZs' },
-      liveCsa: f.circuit.cable.liveCsa, cpcCsa: f.circuit.cable.cpcCsa,
+      liveCsa: f.circuit.cable.liveCsa,
+      cpcCsa: f.circuit.cable.cpcCsa,
     });
     for (const i of issues) {
       const field = i.field === '../measuredZs' ? `circuits.${f.index}.measuredZs` : `circuits.${f.index}.readings.${i.field}`;
@@ -22,8 +25,14 @@ export function checkReadings(view: ScheduleView): Finding[] {
   view.schedule.devices.forEach((d, index) => {
     if (!d.rcdTrip) return;
     for (const i of judgeRcdTrip(d.rcdTrip, d.residualMa)) {
-      out.push({ severity: i.severity, code: i.code, rule: i.rule, ways: waysOfDevice(view, d.id), field: `devices.${index}.rcdTrip.${i.field}`,
-        message: `${d.label || deviceName(d)}: ${i.message}` });
+      out.push({
+        severity: i.severity,
+        code: i.code,
+        rule: i.rule,
+        ways: waysOfDevice(view, d.id),
+        field: `devices.${index}.rcdTrip.${i.field}`,
+        message: `${d.label || deviceName(d)}: ${i.message}`,
+      });
     }
   });
   return out;

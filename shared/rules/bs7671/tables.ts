@@ -72,7 +72,14 @@ export const TABLE_4D5: Record<number, TwinEarthRow> = {
  */
 export const TABLE_4B1_THERMOPLASTIC_70: Record<number, number> = {
   // BS 7671:2018 Appendix 4 Table 4B1, 70 °C thermoplastic column (from memory)
-  25: 1.03, 30: 1, 35: 0.94, 40: 0.87, 45: 0.79, 50: 0.71, 55: 0.61, 60: 0.5,
+  25: 1.03,
+  30: 1,
+  35: 0.94,
+  40: 0.87,
+  45: 0.79,
+  50: 0.71,
+  55: 0.61,
+  60: 0.5,
 };
 
 /**
@@ -84,7 +91,18 @@ export const TABLE_4B1_THERMOPLASTIC_70: Record<number, number> = {
  */
 export const TABLE_4C1_BUNCHED: Record<number, number> = {
   // BS 7671:2018 Appendix 4 Table 4C1, item 1 "bunched in air, on a surface, embedded or enclosed" (from memory)
-  1: 1, 2: 0.8, 3: 0.7, 4: 0.65, 5: 0.6, 6: 0.57, 7: 0.54, 8: 0.52, 9: 0.5, 12: 0.45, 16: 0.41, 20: 0.38,
+  1: 1,
+  2: 0.8,
+  3: 0.7,
+  4: 0.65,
+  5: 0.6,
+  6: 0.57,
+  7: 0.54,
+  8: 0.52,
+  9: 0.5,
+  12: 0.45,
+  16: 0.41,
+  20: 0.38,
 };
 
 /**
@@ -96,7 +114,10 @@ export const TABLE_4C1_BUNCHED: Record<number, number> = {
  */
 export const TABLE_52_2: Record<number, number> = {
   // BS 7671:2018 Table 52.2 (from memory)
-  50: 0.88, 100: 0.78, 200: 0.63, 400: 0.51,
+  50: 0.88,
+  100: 0.78,
+  200: 0.63,
+  400: 0.51,
 };
 /** 523.9: the factor for 0.5 m or more in insulation, and the largest csa Table 52.2 covers (from memory). */
 export const FULLY_INSULATED = { factor: 0.5, fromMm: 500, table52_2MaxCsa: 10 } as const;
@@ -107,7 +128,9 @@ export const FULLY_INSULATED = { factor: 0.5, fromMm: 500, table52_2MaxCsa: 10 }
  * last key. Tables here are small records keyed by number.
  */
 export function nextTabulatedKey(table: Record<number, number>, value: number): number | null {
-  const keys = Object.keys(table).map(Number).sort((a, b) => a - b);
+  const keys = Object.keys(table)
+    .map(Number)
+    .sort((a, b) => a - b);
   return keys.find((k) => k >= value) ?? null;
 }
 

@@ -30,7 +30,7 @@ export function viewOf(schedule: Schedule): ScheduleView {
   const circuits = schedule.circuits.map((circuit, index) => ({
     circuit,
     index,
-    device: circuit.deviceId ? devicesById.get(circuit.deviceId) ?? null : null,
+    device: circuit.deviceId ? (devicesById.get(circuit.deviceId) ?? null) : null,
     rcd: circuitRcd(schedule, circuit, rcds),
   }));
   return { schedule, devicesById, circuits };

@@ -40,8 +40,16 @@ function checkCircuit(view: ScheduleView, f: CircuitFacts): Finding[] {
   const percent = (volts / nominal) * 100;
   if (percent <= limitPercent) return [];
   const use = isLighting ? 'lighting' : 'this use';
-  return [circuitFinding(f, 'warning', 'voltage-drop-over-limit', VOLTAGE_DROP_RULE, 'cable.lengthM',
-    `${circuitName(f.circuit)}: estimated voltage drop ${num(volts)} V (${num(percent)} %) over ${num(f.circuit.cable.lengthM ?? 0)} m of ${num(f.circuit.cable.liveCsa ?? 0)} mm² at ${num(f.device?.rating ?? 0)} A exceeds the ${limitPercent} % limit for ${use} from a public supply (${num((nominal * limitPercent) / 100)} V; ${VOLTAGE_DROP_RULE})`)];
+  return [
+    circuitFinding(
+      f,
+      'warning',
+      'voltage-drop-over-limit',
+      VOLTAGE_DROP_RULE,
+      'cable.lengthM',
+      `${circuitName(f.circuit)}: estimated voltage drop ${num(volts)} V (${num(percent)} %) over ${num(f.circuit.cable.lengthM ?? 0)} m of ${num(f.circuit.cable.liveCsa ?? 0)} mm² at ${num(f.device?.rating ?? 0)} A exceeds the ${limitPercent} % limit for ${use} from a public supply (${num((nominal * limitPercent) / 100)} V; ${VOLTAGE_DROP_RULE})`,
+    ),
+  ];
 }
 
 /** Voltage drop of every circuit with a tabulated cable and a route length. */

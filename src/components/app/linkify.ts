@@ -1,5 +1,8 @@
 /** A piece of plain text, either words or a web address to show as a link. */
-export interface TextPart { text: string; href?: string }
+export interface TextPart {
+  text: string;
+  href?: string;
+}
 
 const WEB_ADDRESS = /https?:\/\/[^\s<>"')]+/g;
 

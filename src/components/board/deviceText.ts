@@ -24,7 +24,7 @@ export function deviceChoiceText(d: Device, kindName = d.kind.toUpperCase()): st
 /** "1st", "2nd", "3rd", "4th", "11th", "22nd". */
 export function ordinal(n: number): string {
   const tens = n % 100;
-  const suffix = tens >= 11 && tens <= 13 ? 'th' : ({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[n % 10] ?? 'th';
+  const suffix = tens >= 11 && tens <= 13 ? 'th' : (({ 1: 'st', 2: 'nd', 3: 'rd' } as Record<number, string>)[n % 10] ?? 'th');
   return `${n}${suffix}`;
 }
 

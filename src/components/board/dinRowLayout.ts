@@ -16,9 +16,16 @@ export const MARGIN_MM = 6;
 export const HEAD_MM = 9;
 
 /** The RCD group a device belongs to, as the picture colours it. */
-export interface DeviceGroup { name: string; colour: string }
+export interface DeviceGroup {
+  name: string;
+  colour: string;
+}
 
-export interface PlacedDevice { device: Device; x: number; width: number }
+export interface PlacedDevice {
+  device: Device;
+  x: number;
+  width: number;
+}
 export interface RowLayout {
   placed: PlacedDevice[];
   usedModules: number;
@@ -41,7 +48,10 @@ export function layoutRow(devices: Device[], capacityModules: number): RowLayout
   const usedModules = devices.reduce((sum, d) => sum + d.modules, 0);
   const capacityMm = capacityModules * MODULE_MM;
   return {
-    placed, usedModules, capacityModules, capacityMm,
+    placed,
+    usedModules,
+    capacityModules,
+    capacityMm,
     widthMm: Math.max(capacityMm, usedModules * MODULE_MM) + 2 * MARGIN_MM,
     heightMm: HEAD_MM + DEVICE_MM + MARGIN_MM,
   };
@@ -61,11 +71,21 @@ export function dropPosition(layout: RowLayout, id: string, dx: number): number 
 /** The short lines printed on a device's face: kind, rating and the residual current (an AFDD's too, when it has an RCBO built in). */
 export function deviceFace(d: Device): { kind: string; main: string; sub: string } {
   const kind: Record<Device['kind'], string> = {
-    'main-switch': 'MAIN', rcd: 'RCD', rcbo: 'RCBO', mcb: 'MCB', fuse: 'FUSE', afdd: 'AFDD', spd: 'SPD', isolator: 'ISOL', timer: 'TIMER', blank: '',
+    'main-switch': 'MAIN',
+    rcd: 'RCD',
+    rcbo: 'RCBO',
+    mcb: 'MCB',
+    fuse: 'FUSE',
+    afdd: 'AFDD',
+    spd: 'SPD',
+    isolator: 'ISOL',
+    timer: 'TIMER',
+    blank: '',
   };
   const breaker = d.kind === 'mcb' || d.kind === 'rcbo' || d.kind === 'afdd';
   const main = d.rating == null ? '' : breaker ? `${d.curve ?? ''}${d.rating}` : `${d.rating} A`;
   // A fuse's face names its standard under the rating: the limits differ by standard.
-  const sub = d.residualMa != null && (d.kind === 'rcd' || d.kind === 'rcbo' || d.kind === 'afdd') ? `${d.residualMa} mA${d.rcdType ? ` ${d.rcdType}` : ''}` : '';
-  return { kind: kind[d.kind], main, sub: d.kind === 'fuse' ? d.fuseStandard ?? '' : sub };
+  const sub =
+    d.residualMa != null && (d.kind === 'rcd' || d.kind === 'rcbo' || d.kind === 'afdd') ? `${d.residualMa} mA${d.rcdType ? ` ${d.rcdType}` : ''}` : '';
+  return { kind: kind[d.kind], main, sub: d.kind === 'fuse' ? (d.fuseStandard ?? '') : sub };
 }

@@ -6,17 +6,36 @@ import { tapeWidths, type PrintOutput } from '../../../shared/schemas/print.js';
 import type { SheetLayoutRecord } from '../../api/print.js';
 
 export const outputChoices: Array<{ value: PrintOutput; label: string; description: string }> = [
-  { value: 'chart', label: 'Circuit chart', description: 'The schedule for the board door: supply, RCDs and what each protects, every way with its device, cable and Zs.' },
-  { value: 'flags', label: 'Cable flags', description: 'One flag per cable leg, wrapped round the cable near its terminal; it reads the same from both faces.' },
+  {
+    value: 'chart',
+    label: 'Circuit chart',
+    description: 'The schedule for the board door: supply, RCDs and what each protects, every way with its device, cable and Zs.',
+  },
+  {
+    value: 'flags',
+    label: 'Cable flags',
+    description: 'One flag per cable leg, wrapped round the cable near its terminal; it reads the same from both faces.',
+  },
   { value: 'way-labels', label: 'Way labels', description: 'One strip per DIN row, each cell as wide as the device under it.' },
   { value: 'notices', label: 'Notices', description: 'Periodic inspection, RCD test, earthing and bonding, and the warnings this board calls for.' },
   { value: 'tag', label: 'Board tag', description: 'The QR code to the board page, the board code and its barcode, for the board front or door.' },
-  { value: 'changeover', label: 'Changeover schedule', description: 'For the job file when replacing an old board: each old way as surveyed, its readings, the new way it goes to and what to fix before the swap.' },
+  {
+    value: 'changeover',
+    label: 'Changeover schedule',
+    description:
+      'For the job file when replacing an old board: each old way as surveyed, its readings, the new way it goes to and what to fix before the swap.',
+  },
   { value: 'calibration', label: 'Calibration page', description: 'A 100 mm ruler and crosshairs to check your printer’s scale and alignment.' },
 ];
 
-export interface MediumOption { value: string; label: string }
-export interface MediumGroup { label: string; options: MediumOption[] }
+export interface MediumOption {
+  value: string;
+  label: string;
+}
+export interface MediumGroup {
+  label: string;
+  options: MediumOption[];
+}
 
 /** Outputs laid out on pages only: a chart on tape would not be readable. */
 const pageOnly = new Set<PrintOutput>(['chart', 'changeover']);
@@ -36,7 +55,10 @@ export function mediumGroups(output: PrintOutput, layouts: SheetLayoutRecord[]):
     ],
   });
   if (layouts.length && !pageOnly.has(output)) {
-    groups.push({ label: 'Your label sheets', options: layouts.map((l) => ({ value: `sheet-${l.id}`, label: `${l.name} (${l.columns} × ${l.rows} of ${l.labelWidthMm} × ${l.labelHeightMm} mm)` })) });
+    groups.push({
+      label: 'Your label sheets',
+      options: layouts.map((l) => ({ value: `sheet-${l.id}`, label: `${l.name} (${l.columns} × ${l.rows} of ${l.labelWidthMm} × ${l.labelHeightMm} mm)` })),
+    });
   }
   if (!paperOnly.has(output)) groups.push({ label: 'Other', options: [{ value: 'custom', label: 'Custom size…' }] });
   return groups;

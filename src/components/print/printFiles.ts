@@ -19,5 +19,8 @@ export function printBlob(blob: Blob): void {
     }
   });
   document.body.append(frame);
-  setTimeout(() => { frame.remove(); URL.revokeObjectURL(url); }, 10 * 60_000);
+  setTimeout(() => {
+    frame.remove();
+    URL.revokeObjectURL(url);
+  }, 10 * 60_000);
 }

@@ -15,8 +15,9 @@ describe('dates in the signed-in app', () => {
   });
 
   it('when a revision diff names days, then each is written as the rest of the app writes it', () => {
-    expect(formatDaysInText('last inspection 2025-06-01 → 2027-06-01; way 7 renamed Garage'))
-      .toBe('last inspection 1 Jun 2025 → 1 Jun 2027; way 7 renamed Garage');
+    expect(formatDaysInText('last inspection 2025-06-01 → 2027-06-01; way 7 renamed Garage')).toBe(
+      'last inspection 1 Jun 2025 → 1 Jun 2027; way 7 renamed Garage',
+    );
   });
 
   it('when text holds something date-like inside a longer word, then it is left alone', () => {

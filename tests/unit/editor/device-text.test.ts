@@ -39,11 +39,29 @@ describe('naming a device in the circuit table’s picker', () => {
 
   it('when three B32s sit on one row, then each is named by its place from the left, the main switch counted', () => {
     const names = row.map((d) => devicePickerText(d, row));
-    expect(names.slice(1)).toEqual(['B32 · row 1, 2nd from left', 'B32 · row 1, 3rd from left', 'Garage (B32) · row 1, 4th from left', 'B32 · row 2, 1st from left']);
+    expect(names.slice(1)).toEqual([
+      'B32 · row 1, 2nd from left',
+      'B32 · row 1, 3rd from left',
+      'Garage (B32) · row 1, 4th from left',
+      'B32 · row 2, 1st from left',
+    ]);
     expect(new Set(names).size).toBe(names.length);
   });
 
   it('when places are counted, then English ordinals are used', () => {
-    expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 23, 101, 111].map(ordinal)).toEqual(['1st', '2nd', '3rd', '4th', '11th', '12th', '13th', '21st', '22nd', '23rd', '101st', '111th']);
+    expect([1, 2, 3, 4, 11, 12, 13, 21, 22, 23, 101, 111].map(ordinal)).toEqual([
+      '1st',
+      '2nd',
+      '3rd',
+      '4th',
+      '11th',
+      '12th',
+      '13th',
+      '21st',
+      '22nd',
+      '23rd',
+      '101st',
+      '111th',
+    ]);
   });
 });

@@ -16,9 +16,12 @@ describe('the DIN row picture', () => {
   });
 
   it('when the devices need more modules than the row has, then the drawing grows to show the overflow', () => {
-    const layout = layoutRow(Array.from({ length: 5 }, (_, i) => device(`d${i}`, 1)), 4);
+    const layout = layoutRow(
+      Array.from({ length: 5 }, (_, i) => device(`d${i}`, 1)),
+      4,
+    );
     expect(layout.usedModules).toBeGreaterThan(layout.capacityModules);
-    expect(layout.widthMm - 2 * (layout.placed[0].x)).toBe(5 * 17.5);
+    expect(layout.widthMm - 2 * layout.placed[0].x).toBe(5 * 17.5);
   });
 
   it('when a device is dragged past its neighbour’s centre, then it lands after that neighbour', () => {
@@ -30,9 +33,17 @@ describe('the DIN row picture', () => {
 
   it('when a breaker or RCD is shown, then its face reads as the trade writes it', () => {
     expect(deviceFace(device('m', 1, { rating: 32, curve: 'B' }))).toEqual({ kind: 'MCB', main: 'B32', sub: '' });
-    expect(deviceFace(deviceSchema.parse({ id: 'r', row: 1, kind: 'rcd', rating: 63, residualMa: 30, rcdType: 'A' }))).toEqual({ kind: 'RCD', main: '63 A', sub: '30 mA A' });
+    expect(deviceFace(deviceSchema.parse({ id: 'r', row: 1, kind: 'rcd', rating: 63, residualMa: 30, rcdType: 'A' }))).toEqual({
+      kind: 'RCD',
+      main: '63 A',
+      sub: '30 mA A',
+    });
     // A combined AFDD/RCBO shows its IΔn like an RCBO; a plain AFDD has none. 30 mA: BS 7671:2018+A2 411.3.3
-    expect(deviceFace(deviceSchema.parse({ id: 'a', row: 1, kind: 'afdd', rating: 16, curve: 'B', residualMa: 30, rcdType: 'A' }))).toEqual({ kind: 'AFDD', main: 'B16', sub: '30 mA A' });
+    expect(deviceFace(deviceSchema.parse({ id: 'a', row: 1, kind: 'afdd', rating: 16, curve: 'B', residualMa: 30, rcdType: 'A' }))).toEqual({
+      kind: 'AFDD',
+      main: 'B16',
+      sub: '30 mA A',
+    });
     expect(deviceFace(deviceSchema.parse({ id: 'p', row: 1, kind: 'afdd', rating: 16, curve: 'B' }))).toEqual({ kind: 'AFDD', main: 'B16', sub: '' });
   });
 });

@@ -42,7 +42,20 @@ describe('calibration page', () => {
   });
 
   it('when printed for a die-cut sheet, then every label is outlined', () => {
-    const sheet = { name: 'Die-cut 2 × 5', pageWidthMm: 210, pageHeightMm: 297, labelWidthMm: 99, labelHeightMm: 57, columns: 2, rows: 5, marginTopMm: 6, marginLeftMm: 4.5, gapXMm: 3, gapYMm: 0, cornerRadiusMm: 0 };
+    const sheet = {
+      name: 'Die-cut 2 × 5',
+      pageWidthMm: 210,
+      pageHeightMm: 297,
+      labelWidthMm: 99,
+      labelHeightMm: 57,
+      columns: 2,
+      rows: 5,
+      marginTopMm: 6,
+      marginLeftMm: 4.5,
+      gapXMm: 3,
+      gapYMm: 0,
+      cornerRadiusMm: 0,
+    };
     const layout = layoutOutput({ ...request('calibration', 'a4'), medium: { kind: 'sheet', id: 'sheet-1', layout: sheet } });
     expect(layout.pages[0].items.filter((i) => i.kind === 'rect')).toHaveLength(10);
   });

@@ -51,7 +51,9 @@ describe('changeover schedule', () => {
     expect(text).toContain('Ze 0.24 Ω');
     expect(text).toContain('Retired');
     const layout = layoutOutput(req);
-    const joined = cells(layout).map((c) => c.text).join(' | ');
+    const joined = cells(layout)
+      .map((c) => c.text)
+      .join(' | ');
     expect(joined).toContain('Way 3 Sockets front · RCBO B32 30 mA leg 2 via JB1 loft, above the hall');
     expect(joined).toContain('R1+R2 0.32 Ω');
     expect(joined).toContain('r1/rn/r2 0.48/0.49/0.80 Ω');
@@ -66,7 +68,9 @@ describe('changeover schedule', () => {
     expect(verdictOf(layout, 'Fuse 5')).toBe('OK');
     const zs = textRuns(layout).find((r) => r.text === 'Zs 1.52 Ω');
     expect(zs?.color).toEqual(RED);
-    const detail = cells(layout).map((c) => c.text).find((t) => t.includes('Zs 1.52 Ω is over'));
+    const detail = cells(layout)
+      .map((c) => c.text)
+      .find((t) => t.includes('Zs 1.52 Ω is over'));
     expect(detail).toContain('1.37 Ω maximum'); // BS 7671:2018+A2 Table 41.3, B32 at 0.4 s
     const text = (await pdfText((await renderOutput(req)).pdf)).replace(/\s+/g, ' ');
     expect(text).toMatch(/Fix before ?changeover/);
@@ -83,7 +87,12 @@ describe('changeover schedule', () => {
   });
 
   it('when it prints on A4 and A5, then the pages are the ISO 216 sizes', async () => {
-    const sizes = [['a4', 210, 297], ['a5', 148, 210], ['a4-landscape', 297, 210], ['a5-landscape', 210, 148]] as const; // ISO 216: A4 210 × 297 mm, A5 148 × 210 mm
+    const sizes = [
+      ['a4', 210, 297],
+      ['a5', 148, 210],
+      ['a4-landscape', 297, 210],
+      ['a5-landscape', 210, 148],
+    ] as const; // ISO 216: A4 210 × 297 mm, A5 148 × 210 mm
     for (const [media, wMm, hMm] of sizes) {
       const doc = await PDFDocument.load((await renderOutput(bungalow(media))).pdf);
       const { width, height } = doc.getPage(0).getSize();
@@ -103,7 +112,9 @@ describe('changeover schedule', () => {
   });
 
   it('when readings are switched off, then the readings column is left out', () => {
-    const text = textRuns(layoutOutput(bungalow('a4', { showReadings: false }))).map((r) => r.text).join(' ');
+    const text = textRuns(layoutOutput(bungalow('a4', { showReadings: false })))
+      .map((r) => r.text)
+      .join(' ');
     expect(text).not.toContain('Readings as found');
     expect(text).not.toContain('R1+R2 0.32');
     expect(text).toContain('30 A BS 3036');

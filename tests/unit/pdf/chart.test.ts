@@ -9,8 +9,19 @@ describe('circuit chart', () => {
   it('when ten circuits print on A4 with findings asked for, then one page holds the header, every way, the findings and the caution', () => {
     const layout = layoutOutput(request('chart', 'a4', { showFindings: true }));
     expect(layout.pages).toHaveLength(1);
-    const text = textRuns(layout).map((r) => r.text).join(' ');
-    for (const part of ['Circuit chart', 'Main consumer unit', 'Brightwell & Daughters Electrical', 'Supply: TN-C-S', 'RCD 2', 'Findings at revision 6', 'Caution:']) expect(text).toContain(part);
+    const text = textRuns(layout)
+      .map((r) => r.text)
+      .join(' ');
+    for (const part of [
+      'Circuit chart',
+      'Main consumer unit',
+      'Brightwell & Daughters Electrical',
+      'Supply: TN-C-S',
+      'RCD 2',
+      'Findings at revision 6',
+      'Caution:',
+    ])
+      expect(text).toContain(part);
     expect(runsOutside(layout)).toEqual([]);
   });
 
@@ -32,7 +43,8 @@ describe('circuit chart', () => {
 
   it('when a description is long, then it wraps inside its cell and the row grows to hold it', () => {
     const schedule = tenCircuitBoard();
-    schedule.circuits[3].description = 'Cooker control unit beside the hob, with the oven spur behind the tall larder unit and a second switch by the back door for the hob extractor';
+    schedule.circuits[3].description =
+      'Cooker control unit beside the hob, with the oven spur behind the tall larder unit and a second switch by the back door for the hob extractor';
     const layout = layoutOutput(request('chart', 'a4', {}, schedule));
     const cooker = textRuns(layout).filter((r) => /hob|oven|larder|extractor/.test(r.text));
     expect(cooker.length).toBeGreaterThanOrEqual(3);
@@ -44,13 +56,17 @@ describe('circuit chart', () => {
     for (const media of ['a5', 'a4-landscape', 'a5-landscape', 'custom-250x180']) {
       const layout = layoutOutput(request('chart', media));
       expect(runsOutside(layout)).toEqual([]);
-      expect(layout.pages[0].widthMm).toBe(request('chart', media).medium.kind === 'page' ? (request('chart', media).medium as { widthMm: number }).widthMm : 0);
+      expect(layout.pages[0].widthMm).toBe(
+        request('chart', media).medium.kind === 'page' ? (request('chart', media).medium as { widthMm: number }).widthMm : 0,
+      );
     }
   });
 
   it('when findings are switched off, or not asked for (the default: the door chart carries the schedule), then the chart leaves them out', () => {
     for (const options of [{ showFindings: false }, {}]) {
-      const text = textRuns(layoutOutput(request('chart', 'a4', options))).map((r) => r.text).join(' ');
+      const text = textRuns(layoutOutput(request('chart', 'a4', options)))
+        .map((r) => r.text)
+        .join(' ');
       expect(text).not.toContain('Findings at revision');
       expect(text).not.toContain('Zs was measured cold');
     }
@@ -60,7 +76,12 @@ describe('circuit chart', () => {
     const req = { ...request('chart', 'a4'), maxZsByCircuit: { c7: 0.3 } };
     const runs = textRuns(layoutOutput(req));
     expect(runs.find((r) => r.text === '0.38')?.color).toEqual(RED);
-    expect(runs.filter((r) => r.color === RED).map((r) => r.text).join(' ')).toBe('0.38 over max');
+    expect(
+      runs
+        .filter((r) => r.color === RED)
+        .map((r) => r.text)
+        .join(' '),
+    ).toBe('0.38 over max');
   });
 
   it('when a TT board has readings in the hundreds and thousands of ohms, then the header and Zs cells print them whole, inside every page size', () => {
@@ -73,7 +94,12 @@ describe('circuit chart', () => {
       const layout = layoutOutput(req);
       const runs = textRuns(layout);
       expect(runs.map((r) => r.text).join(' ')).toContain('Ze 1450.5 Ω');
-      expect(runs.filter((r) => r.color === RED).map((r) => r.text).join(' ')).toBe('1850 over max');
+      expect(
+        runs
+          .filter((r) => r.color === RED)
+          .map((r) => r.text)
+          .join(' '),
+      ).toBe('1850 over max');
       expect(runs.some((r) => r.text === '1520')).toBe(true);
       expect(runs.filter((r) => r.text === '1667')).toHaveLength(2);
       expect(runsOutside(layout)).toEqual([]);

@@ -62,14 +62,29 @@ describe('text fitting', () => {
   });
 
   it('property: arbitrary Unicode in any cell never puts a glyph box outside the cell', () => {
-    const cellArb = fc.record({ x: fc.double({ min: 0, max: 100, noNaN: true }), y: fc.double({ min: 0, max: 100, noNaN: true }), w: fc.double({ min: 0.5, max: 80, noNaN: true }), h: fc.double({ min: 0.5, max: 30, noNaN: true }) });
-    fc.assert(fc.property(fc.string({ unit: 'grapheme', maxLength: 60 }), fc.string({ unit: 'binary', maxLength: 30 }), cellArb, fc.constantFrom(0, 90, 180, 270), fc.integer({ min: 1, max: 4 }), (a, b, cell: Box, rotation, maxLines) => {
-      const fit = fitText(`${a}${b}`, cell, { face: 'regular', maxPt: 14, minPt: 5, maxLines }, tm, rotation as 0 | 90 | 180 | 270);
-      for (const run of fit.runs) {
-        expect(boxInside(runBox(run), cell, 1e-6)).toBe(true);
-        expect(run.cell).toEqual(cell);
-      }
-      expect(fit.runs.length).toBeLessThanOrEqual(maxLines);
-    }), { numRuns: 400 });
+    const cellArb = fc.record({
+      x: fc.double({ min: 0, max: 100, noNaN: true }),
+      y: fc.double({ min: 0, max: 100, noNaN: true }),
+      w: fc.double({ min: 0.5, max: 80, noNaN: true }),
+      h: fc.double({ min: 0.5, max: 30, noNaN: true }),
+    });
+    fc.assert(
+      fc.property(
+        fc.string({ unit: 'grapheme', maxLength: 60 }),
+        fc.string({ unit: 'binary', maxLength: 30 }),
+        cellArb,
+        fc.constantFrom(0, 90, 180, 270),
+        fc.integer({ min: 1, max: 4 }),
+        (a, b, cell: Box, rotation, maxLines) => {
+          const fit = fitText(`${a}${b}`, cell, { face: 'regular', maxPt: 14, minPt: 5, maxLines }, tm, rotation as 0 | 90 | 180 | 270);
+          for (const run of fit.runs) {
+            expect(boxInside(runBox(run), cell, 1e-6)).toBe(true);
+            expect(run.cell).toEqual(cell);
+          }
+          expect(fit.runs.length).toBeLessThanOrEqual(maxLines);
+        },
+      ),
+      { numRuns: 400 },
+    );
   });
 });

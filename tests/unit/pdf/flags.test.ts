@@ -80,7 +80,11 @@ describe('cable flags', () => {
     const layout = layoutOutput(request('flags', 'a4'));
     const outlines = layout.pages.flatMap((p) => p.items.filter((i) => i.kind === 'rect' && i.dashMm));
     expect(outlines.length).toBe(specs().length);
-    for (const o of outlines) if (o.kind === 'rect') { expect(o.box.x).toBeGreaterThanOrEqual(10); expect(o.box.x + o.box.w).toBeLessThanOrEqual(200); }
+    for (const o of outlines)
+      if (o.kind === 'rect') {
+        expect(o.box.x).toBeGreaterThanOrEqual(10);
+        expect(o.box.x + o.box.w).toBeLessThanOrEqual(200);
+      }
     expect(runsOutside(layout)).toEqual([]);
   });
 

@@ -13,7 +13,9 @@ const GLYPHS = [
 
 function glyphSheet(): LayoutDoc {
   const tm = typeMetrics();
-  const items = fontFaces.flatMap((face, f) => GLYPHS.flatMap((line, l) => fitText(line, { x: 5, y: 5 + (f * 2 + l) * 9, w: 200, h: 8 }, { face, maxPt: 11, minPt: 11 }, tm).runs));
+  const items = fontFaces.flatMap((face, f) =>
+    GLYPHS.flatMap((line, l) => fitText(line, { x: 5, y: 5 + (f * 2 + l) * 9, w: 200, h: 8 }, { face, maxPt: 11, minPt: 11 }, tm).runs),
+  );
   return { title: 'Glyphs', pages: [{ widthMm: 210, heightMm: 90, items }], warnings: [] };
 }
 

@@ -12,7 +12,11 @@ import { boxInside, runBox, type Box, type LayoutDoc, type TextRun } from '../..
 
 function withTempDir<T>(fn: (dir: string) => T): T {
   const dir = mkdtempSync(join(tmpdir(), 'waymark-pdf-test-'));
-  try { return fn(dir); } finally { rmSync(dir, { recursive: true, force: true }); }
+  try {
+    return fn(dir);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
 }
 
 /** Page sizes in points as poppler's pdfinfo reports them. */

@@ -23,7 +23,9 @@ describe('junction-box cable flags', () => {
     const layout = layoutOutput(req);
     expect(layout.pages).toHaveLength(1);
     expect(runsOutside(layout)).toEqual([]);
-    const runs = textRuns(layout).map((r) => r.text).join(' ');
+    const runs = textRuns(layout)
+      .map((r) => r.text)
+      .join(' ');
     for (const part of ['JB1', 'Fuse 1', 'Way 3']) expect(runs).toContain(part);
     const text = (await pdfText((await renderOutput(req)).pdf)).replace(/\s+/g, ' ');
     for (const part of ['JB1', 'Fuse 1', 'Way 3', 'loft, above the hall']) expect(text).toContain(part);
@@ -47,7 +49,9 @@ describe('junction-box cable flags', () => {
   });
 
   it('when flags are asked for at the board (the default), then junction boxes are not printed', () => {
-    const runs = textRuns(layoutOutput(request('flags', 'tape-12'))).map((r) => r.text).join(' ');
+    const runs = textRuns(layoutOutput(request('flags', 'tape-12')))
+      .map((r) => r.text)
+      .join(' ');
     expect(runs).not.toContain('JB1');
     expect(runs).toContain('Kitchen sockets');
   });

@@ -5,7 +5,20 @@ import { tapeWidths } from '../../../shared/schemas/print.js';
 import { request } from './fixtures.js';
 import { pageSizesPt, PT_PER_MM } from './helpers.js';
 
-const sheet = { name: 'Die-cut 3 × 8', pageWidthMm: 210, pageHeightMm: 297, labelWidthMm: 63.5, labelHeightMm: 33.9, columns: 3, rows: 8, marginTopMm: 13, marginLeftMm: 7, gapXMm: 2.5, gapYMm: 0, cornerRadiusMm: 2 };
+const sheet = {
+  name: 'Die-cut 3 × 8',
+  pageWidthMm: 210,
+  pageHeightMm: 297,
+  labelWidthMm: 63.5,
+  labelHeightMm: 33.9,
+  columns: 3,
+  rows: 8,
+  marginTopMm: 13,
+  marginLeftMm: 7,
+  gapXMm: 2.5,
+  gapYMm: 0,
+  cornerRadiusMm: 2,
+};
 
 describe('media', () => {
   it('when A4 or A5 is resolved, then the sizes are ISO 216 in mm', () => {
@@ -49,7 +62,11 @@ describe('media', () => {
     expect(resolveMedium('sheet-7', [{ id: 7, ...sheet }])).toMatchObject({ kind: 'sheet' });
     expect(() => resolveMedium('sheet-8', new Map([[7, sheet]]))).toThrow(LayoutError);
     expect(() => resolveMedium('tape-13')).toThrow(/Unknown medium/);
-    try { resolveMedium('letter'); } catch (e) { expect((e as LayoutError).field).toBe('media'); }
+    try {
+      resolveMedium('letter');
+    } catch (e) {
+      expect((e as LayoutError).field).toBe('media');
+    }
   });
 
   it('when an output has no medium chosen, then a sensible default resolves', () => {

@@ -8,7 +8,8 @@ import { luminance, pageSizesPt, pdfText, PT_PER_MM, rasterise, runsOutside, tex
 
 const ALL = 'inspection,rcd-test,mixed-colours,alternative-supply,voltage,earthing';
 /** Where to isolate each source: invented for the test, long enough to need room. */
-const WHERE = '4 kWp PV array on the south roof, isolator and inverter in the loft beside the hatch; 5 kWh battery in the garage with its own isolator on the wall by the door';
+const WHERE =
+  '4 kWp PV array on the south roof, isolator and inverter in the loft beside the hatch; 5 kWh battery in the garage with its own isolator on the wall by the door';
 
 function busyBoard(): Schedule {
   const s = tenCircuitBoard();
@@ -76,7 +77,13 @@ describe('notices fit their wording', () => {
     expect(layout.warnings).toEqual([]);
     const frame = layout.pages[0].items.find((i) => i.kind === 'rect' && i.dashMm);
     expect(frame && frame.kind === 'rect' && frame.box.h).toBeGreaterThan(58); // grown past the 120 × 58 mm tile
-    expect(squash(textRuns(layout).map((r) => r.text).join(' '))).toContain(s.board.alternativeSupply.description.slice(-40));
+    expect(
+      squash(
+        textRuns(layout)
+          .map((r) => r.text)
+          .join(' '),
+      ),
+    ).toContain(s.board.alternativeSupply.description.slice(-40));
     for (const r of textRuns(layout)) expect(r.sizePt).toBeGreaterThanOrEqual(NOTICE_MIN_PT - 1e-9);
   });
 

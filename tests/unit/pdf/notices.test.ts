@@ -59,11 +59,17 @@ describe('notices', () => {
   });
 
   it('when the inspection notice prints, then it gives the last and next dates, or blanks to write in', () => {
-    const texts = textRuns(layoutOutput(request('notices', 'a4', { kinds: 'inspection' }))).map((r) => r.text).join(' ');
+    const texts = textRuns(layoutOutput(request('notices', 'a4', { kinds: 'inspection' })))
+      .map((r) => r.text)
+      .join(' ');
     expect(texts).toContain('Last inspection: 10 Feb 2025');
     expect(texts).toContain('Next inspection due: 10 Feb 2030');
     const blank = { ...request('notices', 'a4', { kinds: 'inspection' }) };
     blank.board = { ...blank.board, nextInspectionOn: null };
-    expect(textRuns(layoutOutput(blank)).map((r) => r.text).join(' ')).toContain('Next inspection due: ____');
+    expect(
+      textRuns(layoutOutput(blank))
+        .map((r) => r.text)
+        .join(' '),
+    ).toContain('Next inspection due: ____');
   });
 });

@@ -99,7 +99,10 @@ describe('way label wording and sizes', () => {
     const runs = textRuns(layoutOutput(request('way-labels', 'a4', { heightMm: 14 }, board())));
     const spare = runBox(runs.find((r) => r.text === 'Spare')!);
     const centre = (b: { x: number; w: number }) => b.x + b.w / 2;
-    const five = runs.filter((r) => r.text === '5').map(runBox).filter((b) => Math.abs(centre(b) - centre(spare)) < 17.5 / 2 && Math.abs(b.y - spare.y) < 14);
+    const five = runs
+      .filter((r) => r.text === '5')
+      .map(runBox)
+      .filter((b) => Math.abs(centre(b) - centre(spare)) < 17.5 / 2 && Math.abs(b.y - spare.y) < 14);
     expect(five).toHaveLength(1); // DIN 43880: the spare MCB's cell is one 17.5 mm module
   });
 
@@ -113,7 +116,9 @@ describe('way label wording and sizes', () => {
 
   it('when a strip is split, then the last part names the part it meets, not "the next part"', () => {
     const layout = layoutOutput(request('way-labels', 'a4', { maxLengthMm: 100 }));
-    const captions = textRuns(layout).filter((r) => r.text.startsWith('Row 1 · part')).map((r) => r.text);
+    const captions = textRuns(layout)
+      .filter((r) => r.text.startsWith('Row 1 · part'))
+      .map((r) => r.text);
     expect(captions.length).toBeGreaterThanOrEqual(3);
     const last = captions[captions.length - 1];
     expect(last).not.toContain('next part');

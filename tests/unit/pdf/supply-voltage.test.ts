@@ -44,7 +44,9 @@ describe('one reading of the supply voltage', () => {
   }
 
   it('when a three-phase board is on 240 V, then the notice says 415 V, not 420', () => {
-    const runs = textRuns(layoutOutput(request('notices', 'a4', { kinds: 'voltage' }, threePhase(240)))).map((r) => r.text).join(' ');
+    const runs = textRuns(layoutOutput(request('notices', 'a4', { kinds: 'voltage' }, threePhase(240))))
+      .map((r) => r.text)
+      .join(' ');
     expect(runs).toContain('Danger: 415 volts'); // √3 × 240 = 415.7, quoted 415 V (common practice)
     expect(runs).not.toContain('420');
   });
@@ -78,6 +80,7 @@ describe('thin tape notices', () => {
 
   it('when notices go on tape-6, then the refusal names tape-6 as too thin and tape-9 as what works, once', () => {
     expect(() => layoutOutput(request('notices', 'tape-6', { kinds: 'inspection' }))).toThrow(
-      'Periodic inspection and testing notice cannot set its wording in at least 6 pt on tape-6: use tape-9 or wider, or a sheet'); // tape-6 prints about 4 mm: common practice
+      'Periodic inspection and testing notice cannot set its wording in at least 6 pt on tape-6: use tape-9 or wider, or a sheet',
+    ); // tape-6 prints about 4 mm: common practice
   });
 });

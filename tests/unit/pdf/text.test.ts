@@ -7,7 +7,12 @@ const schedule = tenCircuitBoard();
 const squash = (s: string) => s.replace(/\s+/g, ' ');
 
 describe('text in the PDFs stays real text', () => {
-  for (const [output, media] of [['flags', 'a4'], ['way-labels', 'tape-24'], ['chart', 'a4'], ['chart', 'a5']] as const) {
+  for (const [output, media] of [
+    ['flags', 'a4'],
+    ['way-labels', 'tape-24'],
+    ['chart', 'a4'],
+    ['chart', 'a5'],
+  ] as const) {
     it(`when ${output} print on ${media}, then pdf-parse extracts every circuit's label and way number`, async () => {
       const text = squash(await pdfText((await renderOutput(request(output, media))).pdf));
       for (const c of schedule.circuits) {

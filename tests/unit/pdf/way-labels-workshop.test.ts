@@ -35,7 +35,10 @@ describe('way labels on the workshop board', () => {
   it('when a device text cannot be set even on two lines, then the print warns instead of dropping it', () => {
     const s = workshop();
     const d = s.devices.find((x) => x.id === 'w4L1')!;
-    d.label = ''; d.residualMa = 300; d.rating = 125; d.curve = 'C'; // "C125 300 mA": too wide for a 9 mm cell
+    d.label = '';
+    d.residualMa = 300;
+    d.rating = 125;
+    d.curve = 'C'; // "C125 300 mA": too wide for a 9 mm cell
     const layout = layoutOutput(request('way-labels', 'a4', { pitchMm: 9 }, s));
     expect(layout.warnings.some((w) => w.code === 'text-cut' && /C125 300 mA/.test(w.message))).toBe(true);
   });

@@ -80,7 +80,9 @@ describe('way labels', () => {
   });
 
   it('when cells are filled, then way numbers and labels appear in them', () => {
-    const texts = textRuns(layoutOutput(request('way-labels', 'tape-18'))).map((r) => r.text).join(' ');
+    const texts = textRuns(layoutOutput(request('way-labels', 'tape-18')))
+      .map((r) => r.text)
+      .join(' ');
     for (const word of ['Kitchen', 'Cooker', 'Shower', 'RCD 1', 'Main switch']) expect(texts).toContain(word);
   });
 });

@@ -11,7 +11,10 @@ import { demoSites } from '../../../server/seed/demo-data.js';
 
 const meta: PublicBoardMeta = {
   organisation: { name: 'Lanternfield Electrical', contactPhone: '', contactEmail: '' },
-  hasLogo: false, revision: 1, revisionDate: '2026-01-05', nextInspectionOn: null,
+  hasLogo: false,
+  revision: 1,
+  revisionDate: '2026-01-05',
+  nextInspectionOn: null,
 };
 const demo = (key: string) => demoSites.flatMap((s) => s.boards).find((b) => b.key === key)!.schedule;
 const page = (schedule = demo('flat-main'), extra: Partial<PublicBoardMeta> = {}) => publicBoardSchema.parse(toPublicBoard(schedule, { ...meta, ...extra }));
@@ -72,14 +75,18 @@ describe('sub-mains on the board page', () => {
   });
 
   it('when a sub-main sits behind a shared RCD, then its RCD group entry and card both say the fed board goes off', () => {
-    const schedule = board({ rcdMode: 'position' }, [
-      { id: 'a', way: 1, deviceId: 'b6', label: 'Lights' },
-      { id: 'b', way: 2, deviceId: 'b32', label: 'Garage board', feedsBoardId: 77 },
-    ], [
-      { id: 'rcd', row: 1, kind: 'rcd', rating: 63, residualMa: 30 },
-      { id: 'b6', row: 1, kind: 'mcb', rating: 6, curve: 'B' },
-      { id: 'b32', row: 1, kind: 'mcb', rating: 32, curve: 'B' },
-    ]);
+    const schedule = board(
+      { rcdMode: 'position' },
+      [
+        { id: 'a', way: 1, deviceId: 'b6', label: 'Lights' },
+        { id: 'b', way: 2, deviceId: 'b32', label: 'Garage board', feedsBoardId: 77 },
+      ],
+      [
+        { id: 'rcd', row: 1, kind: 'rcd', rating: 63, residualMa: 30 },
+        { id: 'b6', row: 1, kind: 'mcb', rating: 6, curve: 'B' },
+        { id: 'b32', row: 1, kind: 'mcb', rating: 32, curve: 'B' },
+      ],
+    );
     const p = page(schedule);
     // The link is only a flag: the other board's id stays private.
     expect(JSON.stringify(p)).not.toContain('77');

@@ -5,7 +5,10 @@ import { demoSites } from '../../../server/seed/demo-data.js';
 
 const meta = {
   organisation: { name: 'Lanternfield Electrical', contactPhone: '', contactEmail: '' },
-  hasLogo: false, revision: 1, revisionDate: '2026-01-05', nextInspectionOn: null,
+  hasLogo: false,
+  revision: 1,
+  revisionDate: '2026-01-05',
+  nextInspectionOn: null,
 };
 const demo = (key: string) => toPublicBoard(demoSites.flatMap((s) => s.boards).find((b) => b.key === key)!.schedule, meta);
 const flat = demo('flat-main');

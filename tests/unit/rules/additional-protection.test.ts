@@ -16,10 +16,14 @@ describe('411.3.3 socket-outlets up to 32 A', () => {
   });
 
   it('when the sockets sit behind a 30 mA RCD on a split-load row, then they pass; behind a 100 mA RCD they fail', () => {
-    const board = (residualMa: number) => makeSchedule({
-      devices: [{ id: 'rcd1', row: 1, kind: 'rcd', modules: 2, rating: 63, residualMa, rcdType: 'A' }, { id: 'd1', row: 1, ...mcb(32) }],
-      circuits: [{ deviceId: 'd1', kind: 'ring' }],
-    });
+    const board = (residualMa: number) =>
+      makeSchedule({
+        devices: [
+          { id: 'rcd1', row: 1, kind: 'rcd', modules: 2, rating: 63, residualMa, rcdType: 'A' },
+          { id: 'd1', row: 1, ...mcb(32) },
+        ],
+        circuits: [{ deviceId: 'd1', kind: 'ring' }],
+      });
     expect(withCode(board(30), 'sockets-need-rcd')).toEqual([]); // 411.3.3: IΔn ≤ 30 mA (found)
     expect(withCode(board(100), 'sockets-need-rcd')[0].message).toContain('trips at 100 mA, more than 30 mA');
   });
@@ -58,7 +62,10 @@ describe('411.3.4 domestic lighting', () => {
 
 describe('522.6.202/203 cables concealed in walls', () => {
   it('when an immersion cable is concealed in a wall on an MCB alone, then an error', () => {
-    expect(withCode(oneCircuit(mcb(16), { kind: 'immersion', concealedInWall: true }), 'concealed-cable-needs-rcd')[0]).toMatchObject({ severity: 'error', rule: 'BS 7671 522.6.202/203' }); // (found)
+    expect(withCode(oneCircuit(mcb(16), { kind: 'immersion', concealedInWall: true }), 'concealed-cable-needs-rcd')[0]).toMatchObject({
+      severity: 'error',
+      rule: 'BS 7671 522.6.202/203',
+    }); // (found)
   });
 
   it('when the concealed cable has a 30 mA RCBO, or is SWA with earthed armour, then it passes', () => {

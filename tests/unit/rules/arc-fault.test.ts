@@ -10,7 +10,9 @@ describe('421.1.7 arc fault detection on socket-outlet circuits', () => {
     const [f, ...rest] = withCode(oneCircuit({}, { way: 3, label: 'Landing sockets', kind: 'ring' }, { installationType: 'hmo' }), 'sockets-need-afdd');
     expect(rest).toEqual([]);
     expect(f).toMatchObject({ severity: 'warning', rule: 'BS 7671 421.1.7', ways: [3], field: 'circuits.0.deviceId' });
-    expect(f!.message).toBe('Way 3 (Landing sockets): in a house in multiple occupation, socket-outlet circuits up to 32 A need an AFDD (BS EN 62606); its device is not one');
+    expect(f!.message).toBe(
+      'Way 3 (Landing sockets): in a house in multiple occupation, socket-outlet circuits up to 32 A need an AFDD (BS EN 62606); its device is not one',
+    );
   });
 
   it('when the HMO socket circuit is on a combined AFDD, then nothing', () => {
@@ -27,8 +29,16 @@ describe('421.1.7 arc fault detection on socket-outlet circuits', () => {
 
   it('when a house has socket circuits without AFDDs, then one note for the board listing the ways', () => {
     const s = makeSchedule({
-      devices: [{ id: 'd1', row: 1, kind: 'rcbo', rating: 32, curve: 'B', residualMa: 30 }, { id: 'd2', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 }, { id: 'd3', row: 1, ...afdd }],
-      circuits: [{ deviceId: 'd1', kind: 'ring' }, { deviceId: 'd3', kind: 'ring' }, { deviceId: 'd2', kind: 'radial', socketOutlets: true }],
+      devices: [
+        { id: 'd1', row: 1, kind: 'rcbo', rating: 32, curve: 'B', residualMa: 30 },
+        { id: 'd2', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 },
+        { id: 'd3', row: 1, ...afdd },
+      ],
+      circuits: [
+        { deviceId: 'd1', kind: 'ring' },
+        { deviceId: 'd3', kind: 'ring' },
+        { deviceId: 'd2', kind: 'radial', socketOutlets: true },
+      ],
     });
     expect(withCode(s, 'sockets-need-afdd')).toEqual([]);
     const notes = withCode(s, 'afdd-recommended');
@@ -55,8 +65,14 @@ describe('ways of a three-phase board in the recommendation', () => {
   it('when socket circuits sit on phases of one way, then the note names each as printed, "4 L1 and 4 L2"', () => {
     const s = makeSchedule({
       board: { phases: 3 },
-      devices: [{ id: 'd1', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 }, { id: 'd2', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 }],
-      circuits: [{ way: 4, phase: 'L2', deviceId: 'd2', kind: 'radial', socketOutlets: true }, { way: 4, phase: 'L1', deviceId: 'd1', kind: 'radial', socketOutlets: true }],
+      devices: [
+        { id: 'd1', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 },
+        { id: 'd2', row: 1, kind: 'rcbo', rating: 20, curve: 'B', residualMa: 30 },
+      ],
+      circuits: [
+        { way: 4, phase: 'L2', deviceId: 'd2', kind: 'radial', socketOutlets: true },
+        { way: 4, phase: 'L1', deviceId: 'd1', kind: 'radial', socketOutlets: true },
+      ],
     });
     const [note] = withCode(s, 'afdd-recommended');
     expect(note!.message).toBe('Ways 4 L1 and 4 L2: AFDDs (BS EN 62606) are recommended for socket-outlet circuits up to 32 A');

@@ -5,7 +5,8 @@ import { findings, oneCircuit, withCode } from './fixtures.js';
 type Method = '100' | '101' | '102' | '103' | 'C' | 'A' | 'B';
 const te = (liveCsa: number, referenceMethod: Method) => ({ type: 'twin-earth' as const, liveCsa, cpcCsa: liveCsa >= 2.5 ? 1.5 : 1, referenceMethod });
 const mcb = (rating: number) => ({ kind: 'mcb' as const, rating, curve: 'B' as const, residualMa: null });
-const capacityFindings = (s: ReturnType<typeof oneCircuit>) => findings(s).filter((f) => ['rating-over-iz', 'ring-iz-below-20', 'capacity-not-checked'].includes(f.code));
+const capacityFindings = (s: ReturnType<typeof oneCircuit>) =>
+  findings(s).filter((f) => ['rating-over-iz', 'ring-iz-below-20', 'capacity-not-checked'].includes(f.code));
 
 describe('Table 4D5 current-carrying capacity', () => {
   it('when looked up, then the found values of Table 4D5 come back', () => {
@@ -66,7 +67,9 @@ describe('cables that cannot be checked', () => {
   });
 
   it('when twin-and-earth has no reference method, then the info points at the method field', () => {
-    expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: { type: 'twin-earth', liveCsa: 2.5 } }), 'capacity-not-checked')[0].field).toBe('circuits.0.cable.referenceMethod');
+    expect(withCode(oneCircuit(mcb(20), { kind: 'radial', cable: { type: 'twin-earth', liveCsa: 2.5 } }), 'capacity-not-checked')[0].field).toBe(
+      'circuits.0.cable.referenceMethod',
+    );
   });
 
   it('when twin-and-earth is given a method Table 4D5 does not list, then it is not checked rather than guessed', () => {

@@ -4,9 +4,18 @@ import { cableSchema } from '../../../shared/schemas/schedule.js';
 import { oneCircuit, withCode } from './fixtures.js';
 
 type Method = '100' | '101' | '102' | '103' | 'C' | 'A';
-interface Conditions { ambientC?: number; groupedWith?: number; insulatedLengthMm?: number }
-const te = (liveCsa: number, referenceMethod: Method, conditions: Conditions = {}) =>
-  ({ type: 'twin-earth' as const, liveCsa, cpcCsa: liveCsa >= 2.5 ? 1.5 : 1, referenceMethod, ...conditions });
+interface Conditions {
+  ambientC?: number;
+  groupedWith?: number;
+  insulatedLengthMm?: number;
+}
+const te = (liveCsa: number, referenceMethod: Method, conditions: Conditions = {}) => ({
+  type: 'twin-earth' as const,
+  liveCsa,
+  cpcCsa: liveCsa >= 2.5 ? 1.5 : 1,
+  referenceMethod,
+  ...conditions,
+});
 const mcb = (rating: number) => ({ kind: 'mcb' as const, rating, curve: 'B' as const, residualMa: null });
 const radial = (rating: number, cable: ReturnType<typeof te>) => oneCircuit(mcb(rating), { way: 3, label: 'Garage', kind: 'radial', cable });
 const ring = (cable: ReturnType<typeof te>) => oneCircuit(mcb(32), { way: 4, label: 'Kitchen', kind: 'ring', legs: 2, cable });
@@ -66,8 +75,10 @@ describe('In ≤ Iz × Ca × Cg × Ci (433.1.1)', () => {
   it('when 2.5 mm² clipped direct on a B20 is grouped with two others, then 27 × 0.70 = 18.9 A fails at the grouping field', () => {
     const [f] = withCode(radial(20, te(2.5, 'C', { groupedWith: 3 })), 'rating-over-iz'); // Table 4D5 2.5 mm² C 27 A (found) × Table 4C1 0.70 (from memory)
     expect(f).toMatchObject({ severity: 'error', rule: 'BS 7671 433.1.1', ways: [3], field: 'circuits.0.cable.groupedWith' });
-    expect(f.message).toBe('Way 3 (Garage): device rating 20 A (B20) exceeds the 18.9 A capacity of 2.5 mm² twin-and-earth at method C '
-      + 'with Cg 0.70 for 3 circuits grouped (Table 4C1), from 27 A in Table 4D5');
+    expect(f.message).toBe(
+      'Way 3 (Garage): device rating 20 A (B20) exceeds the 18.9 A capacity of 2.5 mm² twin-and-earth at method C ' +
+        'with Cg 0.70 for 3 circuits grouped (Table 4C1), from 27 A in Table 4D5',
+    );
   });
 
   it('when the same cable is grouped with one other, then 27 × 0.80 = 21.6 A carries the B20', () => {
@@ -93,8 +104,10 @@ describe('In ≤ Iz × Ca × Cg × Ci (433.1.1)', () => {
   it('when every condition is recorded, then the factors multiply and the message names each', () => {
     const [f] = withCode(radial(20, te(2.5, 'C', { ambientC: 35, groupedWith: 2, insulatedLengthMm: 100 })), 'rating-over-iz');
     // 27 A (Table 4D5, found) × 0.94 (Table 4B1) × 0.80 (Table 4C1) × 0.78 (Table 52.2), all from memory = 15.84 A
-    expect(f.message).toContain('exceeds the 15.8 A capacity of 2.5 mm² twin-and-earth at method C with Ca 0.94 for 35 °C ambient (Table 4B1), '
-      + 'Cg 0.80 for 2 circuits grouped (Table 4C1) and Ci 0.78 for 100 mm in thermal insulation (Table 52.2), from 27 A in Table 4D5');
+    expect(f.message).toContain(
+      'exceeds the 15.8 A capacity of 2.5 mm² twin-and-earth at method C with Ca 0.94 for 35 °C ambient (Table 4B1), ' +
+        'Cg 0.80 for 2 circuits grouped (Table 4C1) and Ci 0.78 for 100 mm in thermal insulation (Table 52.2), from 27 A in Table 4D5',
+    );
     expect(f.field).toBe('circuits.0.cable.insulatedLengthMm'); // the factor that lowers Iz most: Ci 0.78 against Cg 0.80 and Ca 0.94
   });
 
@@ -146,8 +159,10 @@ describe('ring finals under their conditions (433.1.204)', () => {
   it('when it is grouped with two others, then 18.9 A is below 20 A and the finding points at the grouping', () => {
     const [f] = withCode(ring(te(2.5, 'C', { groupedWith: 3 })), 'ring-iz-below-20'); // 27 A × 0.70 (Table 4C1, from memory) < 20 A (433.1.204, partly)
     expect(f).toMatchObject({ severity: 'error', rule: 'BS 7671 433.1.204', field: 'circuits.0.cable.groupedWith' });
-    expect(f.message).toBe('Way 4 (Kitchen): a 2.5 mm² ring final on a B32 needs Iz of at least 20 A under its installation conditions, '
-      + 'but it has 18.9 A at method C with Cg 0.70 for 3 circuits grouped (Table 4C1), from 27 A in Table 4D5');
+    expect(f.message).toBe(
+      'Way 4 (Kitchen): a 2.5 mm² ring final on a B32 needs Iz of at least 20 A under its installation conditions, ' +
+        'but it has 18.9 A at method C with Cg 0.70 for 3 circuits grouped (Table 4C1), from 27 A in Table 4D5',
+    );
   });
 
   it('when a ring at method A (exactly 20 A) runs in a 35 °C loft, then 18.8 A fails at the ambient field', () => {

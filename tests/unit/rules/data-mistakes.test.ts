@@ -1,11 +1,25 @@
 import { describe, expect, it } from 'vitest';
 import { makeSchedule, oneCircuit, withCode } from './fixtures.js';
 
-const rcbo = (id: string, extra: Record<string, unknown> = {}) => ({ id, row: 1, kind: 'rcbo' as const, rating: 20, curve: 'B' as const, residualMa: 30, ...extra });
+const rcbo = (id: string, extra: Record<string, unknown> = {}) => ({
+  id,
+  row: 1,
+  kind: 'rcbo' as const,
+  rating: 20,
+  curve: 'B' as const,
+  residualMa: 30,
+  ...extra,
+});
 
 describe('ways', () => {
   it('when two circuits use way 3 on a single-phase board, then an error on the second one', () => {
-    const s = makeSchedule({ devices: [rcbo('a'), rcbo('b')], circuits: [{ way: 3, deviceId: 'a', label: 'Hall' }, { way: 3, deviceId: 'b', label: 'Loft' }] });
+    const s = makeSchedule({
+      devices: [rcbo('a'), rcbo('b')],
+      circuits: [
+        { way: 3, deviceId: 'a', label: 'Hall' },
+        { way: 3, deviceId: 'b', label: 'Loft' },
+      ],
+    });
     const [f] = withCode(s, 'way-used-twice');
     expect(f).toMatchObject({ severity: 'error', ways: [3], field: 'circuits.1.way' });
     expect(f.message).toBe('Way 3 (Loft): way 3 is already used by Hall');
@@ -13,27 +27,60 @@ describe('ways', () => {
 
   it('when a three-phase board has way 4 on L1 and L2, then no clash; the same phase twice clashes', () => {
     const board = { phases: 3 as const };
-    const ok = makeSchedule({ board, devices: [rcbo('a'), rcbo('b')], circuits: [{ way: 4, phase: 'L1', deviceId: 'a' }, { way: 4, phase: 'L2', deviceId: 'b' }] });
+    const ok = makeSchedule({
+      board,
+      devices: [rcbo('a'), rcbo('b')],
+      circuits: [
+        { way: 4, phase: 'L1', deviceId: 'a' },
+        { way: 4, phase: 'L2', deviceId: 'b' },
+      ],
+    });
     expect(withCode(ok, 'way-used-twice')).toEqual([]);
-    const bad = makeSchedule({ board, devices: [rcbo('a'), rcbo('b')], circuits: [{ way: 4, phase: 'L1', deviceId: 'a' }, { way: 4, phase: 'L1', deviceId: 'b' }] });
+    const bad = makeSchedule({
+      board,
+      devices: [rcbo('a'), rcbo('b')],
+      circuits: [
+        { way: 4, phase: 'L1', deviceId: 'a' },
+        { way: 4, phase: 'L1', deviceId: 'b' },
+      ],
+    });
     expect(withCode(bad, 'way-used-twice')).toHaveLength(1);
   });
 
   it('when a three-phase circuit (no phase) takes way 1, then a single-phase circuit on way 1 L2 clashes with it', () => {
-    const s = makeSchedule({ board: { phases: 3 }, devices: [rcbo('a', { poles: 3 }), rcbo('b')], circuits: [{ way: 1, deviceId: 'a' }, { way: 1, phase: 'L2', deviceId: 'b' }] });
+    const s = makeSchedule({
+      board: { phases: 3 },
+      devices: [rcbo('a', { poles: 3 }), rcbo('b')],
+      circuits: [
+        { way: 1, deviceId: 'a' },
+        { way: 1, phase: 'L2', deviceId: 'b' },
+      ],
+    });
     expect(withCode(s, 'way-used-twice')).toHaveLength(1);
   });
 
   it('when two circuits share an id, then an error so the diff and the editor can tell them apart', () => {
-    const s = makeSchedule({ devices: [rcbo('a'), rcbo('b')], circuits: [{ id: 'x', deviceId: 'a' }, { id: 'x', deviceId: 'b' }] });
+    const s = makeSchedule({
+      devices: [rcbo('a'), rcbo('b')],
+      circuits: [
+        { id: 'x', deviceId: 'a' },
+        { id: 'x', deviceId: 'b' },
+      ],
+    });
     expect(withCode(s, 'circuit-id-twice')).toHaveLength(1);
   });
 });
 
 describe('devices named by circuits', () => {
   it('when a circuit names no device, then a warning; when it names an unknown one, then an error', () => {
-    expect(withCode(makeSchedule({ circuits: [{ deviceId: null }] }), 'circuit-without-device')[0]).toMatchObject({ severity: 'warning', field: 'circuits.0.deviceId' });
-    expect(withCode(makeSchedule({ circuits: [{ deviceId: 'ghost' }] }), 'unknown-device')[0]).toMatchObject({ severity: 'error', field: 'circuits.0.deviceId' });
+    expect(withCode(makeSchedule({ circuits: [{ deviceId: null }] }), 'circuit-without-device')[0]).toMatchObject({
+      severity: 'warning',
+      field: 'circuits.0.deviceId',
+    });
+    expect(withCode(makeSchedule({ circuits: [{ deviceId: 'ghost' }] }), 'unknown-device')[0]).toMatchObject({
+      severity: 'error',
+      field: 'circuits.0.deviceId',
+    });
   });
 });
 
@@ -46,7 +93,10 @@ describe('rows', () => {
   });
 
   it('when a device is on row 2 of a one-row board, then an error', () => {
-    expect(withCode(makeSchedule({ board: { rows: 1 }, devices: [rcbo('a', { row: 2 })] }), 'device-beyond-rows')[0]).toMatchObject({ severity: 'error', field: 'devices.0.row' });
+    expect(withCode(makeSchedule({ board: { rows: 1 }, devices: [rcbo('a', { row: 2 })] }), 'device-beyond-rows')[0]).toMatchObject({
+      severity: 'error',
+      field: 'devices.0.row',
+    });
   });
 
   it('when two devices share an id, then an error', () => {
@@ -56,7 +106,10 @@ describe('rows', () => {
 
 describe('cable and device values', () => {
   it('when the cpc is larger than the live conductors, then a warning that they may be swapped', () => {
-    expect(withCode(oneCircuit({}, { cable: { liveCsa: 1.5, cpcCsa: 2.5 } }), 'cpc-larger-than-live')[0]).toMatchObject({ severity: 'warning', field: 'circuits.0.cable.cpcCsa' });
+    expect(withCode(oneCircuit({}, { cable: { liveCsa: 1.5, cpcCsa: 2.5 } }), 'cpc-larger-than-live')[0]).toMatchObject({
+      severity: 'warning',
+      field: 'circuits.0.cable.cpcCsa',
+    });
     expect(withCode(oneCircuit({}, { cable: { liveCsa: 2.5, cpcCsa: 1.5 } }), 'cpc-larger-than-live')).toEqual([]);
   });
 
@@ -76,7 +129,11 @@ describe('cable and device values', () => {
   });
 
   it('when a breaker is 33 A, then no breaker is made in it; 32 A and 13 A are made', () => {
-    expect(withCode(oneCircuit({ kind: 'mcb', rating: 33, residualMa: null }, {}), 'rating-not-made')[0]).toMatchObject({ severity: 'warning', field: 'devices.0.rating', ways: [1] });
+    expect(withCode(oneCircuit({ kind: 'mcb', rating: 33, residualMa: null }, {}), 'rating-not-made')[0]).toMatchObject({
+      severity: 'warning',
+      field: 'devices.0.rating',
+      ways: [1],
+    });
     expect(withCode(oneCircuit({ kind: 'mcb', rating: 32, residualMa: null }, {}), 'rating-not-made')).toEqual([]); // BS EN 60898-1 preferred values (from memory)
     expect(withCode(oneCircuit({ kind: 'mcb', rating: 13, residualMa: null }, {}), 'rating-not-made')).toEqual([]); // BS EN 60898-1 preferred values (from memory)
   });
@@ -95,7 +152,7 @@ describe('cable and device values', () => {
     expect(withCode(oneCircuit({}, { kind: 'sub-main', feedsBoardId: 7 }), 'feeds-board-on-final-circuit')).toEqual([]);
   });
 
-  it("when a manual RCD link names a device that is not an RCD, then a warning on protectedBy", () => {
+  it('when a manual RCD link names a device that is not an RCD, then a warning on protectedBy', () => {
     const s = makeSchedule({ board: { rcdMode: 'manual' }, devices: [{ id: 'm', row: 1, kind: 'mcb', rating: 20, curve: 'B', protectedBy: 'nope' }] });
     expect(withCode(s, 'protected-by-not-rcd')[0].field).toBe('devices.0.protectedBy');
   });

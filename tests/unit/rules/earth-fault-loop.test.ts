@@ -6,9 +6,39 @@ import { findings, oneCircuit, withCode } from './fixtures.js';
 
 // BS 7671:2018+A2 Table 41.3, maximum Zs (Ω) for BS EN 60898 breakers and RCBOs at 230 V, 0.4 s and 5 s (found)
 const PUBLISHED: Record<'B' | 'C' | 'D', Array<[number, number]>> = {
-  B: [[6, 7.28], [10, 4.37], [16, 2.73], [20, 2.19], [25, 1.75], [32, 1.37], [40, 1.09], [50, 0.87], [63, 0.69]],
-  C: [[6, 3.64], [10, 2.19], [16, 1.37], [20, 1.09], [25, 0.87], [32, 0.68], [40, 0.55], [50, 0.44], [63, 0.35]],
-  D: [[6, 1.82], [10, 1.09], [16, 0.68], [20, 0.55], [25, 0.44], [32, 0.34], [40, 0.27], [50, 0.22], [63, 0.17]],
+  B: [
+    [6, 7.28],
+    [10, 4.37],
+    [16, 2.73],
+    [20, 2.19],
+    [25, 1.75],
+    [32, 1.37],
+    [40, 1.09],
+    [50, 0.87],
+    [63, 0.69],
+  ],
+  C: [
+    [6, 3.64],
+    [10, 2.19],
+    [16, 1.37],
+    [20, 1.09],
+    [25, 0.87],
+    [32, 0.68],
+    [40, 0.55],
+    [50, 0.44],
+    [63, 0.35],
+  ],
+  D: [
+    [6, 1.82],
+    [10, 1.09],
+    [16, 0.68],
+    [20, 0.55],
+    [25, 0.44],
+    [32, 0.34],
+    [40, 0.27],
+    [50, 0.22],
+    [63, 0.17],
+  ],
 };
 
 function limitOf(curve: 'B' | 'C' | 'D', rating: number, circuit: Parameters<typeof oneCircuit>[1] = {}) {
@@ -18,10 +48,12 @@ function limitOf(curve: 'B' | 'C' | 'D', rating: number, circuit: Parameters<typ
 
 describe('Table 41.3 maximum Zs', () => {
   it.each(Object.entries(PUBLISHED).flatMap(([curve, rows]) => rows.map(([rating, value]) => [curve as 'B' | 'C' | 'D', rating, value] as const)))(
-    'when the device is %s%i, then the maximum is the published %f Ω', (curve, rating, value) => {
+    'when the device is %s%i, then the maximum is the published %f Ω',
+    (curve, rating, value) => {
       expect(limitOf(curve, rating)?.ohms).toBe(value);
       expect(limitOf(curve, rating)?.derived).toBe(false);
-    });
+    },
+  );
 
   it('when a rating is not printed in the table (B13), then the value comes from the table formula 0.95 × 230 / (5 × 13)', () => {
     const limit = limitOf('B', 13);
@@ -73,7 +105,12 @@ describe('measured Zs against the maximum', () => {
   });
 
   it('when the board is TT and the circuit has an RCD, then Table 41.5 (50 V / IΔn) applies instead', () => {
-    const tt = (measuredZs: number) => oneCircuit({ kind: 'rcbo', curve: 'B', rating: 32, residualMa: 1000 }, { kind: 'radial', measuredZs, zsAtAmbient: false }, { supply: { earthing: 'TT' } });
+    const tt = (measuredZs: number) =>
+      oneCircuit(
+        { kind: 'rcbo', curve: 'B', rating: 32, residualMa: 1000 },
+        { kind: 'radial', measuredZs, zsAtAmbient: false },
+        { supply: { earthing: 'TT' } },
+      );
     expect(maxZsFor(tt(1), tt(1).circuits[0])).toBe(50); // BS 7671 Table 41.5: 50 V / 1 A (from memory)
     expect(withCode(tt(49), 'zs-over-max')).toEqual([]);
     expect(withCode(tt(51), 'zs-over-max')[0]).toMatchObject({ rule: 'BS 7671 Table 41.5' });
@@ -82,7 +119,11 @@ describe('measured Zs against the maximum', () => {
   });
 
   it('when a TT circuit has no RCD, then the breaker value of Table 41.3 still applies', () => {
-    const s = oneCircuit({ kind: 'mcb', curve: 'B', rating: 32, residualMa: null }, { kind: 'fixed-appliance', measuredZs: 21 }, { supply: { earthing: 'TT' } });
+    const s = oneCircuit(
+      { kind: 'mcb', curve: 'B', rating: 32, residualMa: null },
+      { kind: 'fixed-appliance', measuredZs: 21 },
+      { supply: { earthing: 'TT' } },
+    );
     expect(withCode(s, 'zs-over-max')[0]).toMatchObject({ rule: 'BS 7671 Table 41.3' }); // B32 1.37 Ω
   });
 
@@ -91,7 +132,9 @@ describe('measured Zs against the maximum', () => {
     const s = oneCircuit({}, { way: 3, label: 'Sockets', kind: 'radial', measuredZs: 0.2 }, { supply: { ze: 0.35 } });
     const [f] = withCode(s, 'zs-below-ze');
     expect(f).toMatchObject({ severity: 'warning', rule: 'Common practice', field: 'circuits.0.measuredZs' });
-    expect(f.message).toBe('Way 3 (Sockets): measured Zs 0.20 Ω is below Ze 0.35 Ω: check both readings; a parallel earth path through bonded pipework can cause this');
+    expect(f.message).toBe(
+      'Way 3 (Sockets): measured Zs 0.20 Ω is below Ze 0.35 Ω: check both readings; a parallel earth path through bonded pipework can cause this',
+    );
     expect(f.message).not.toContain('wrong');
     expect(withCode(oneCircuit({}, { kind: 'radial', measuredZs: 0.5 }, { supply: { ze: 0.35 } }), 'zs-below-ze')).toEqual([]);
   });
@@ -123,7 +166,7 @@ describe('TT readings above 200 Ω', () => {
     expect(zs.error?.issues[0]).toMatchObject({ path: ['measuredZs'], message: 'Zs is at most 2000 Ω: check the decimal point' });
   });
 
-  it('when a TT board\'s Ze (the electrode) is over 200 Ω, then a warning on the Ze field; at 200 Ω, or on TN, nothing', () => {
+  it("when a TT board's Ze (the electrode) is over 200 Ω, then a warning on the Ze field; at 200 Ω, or on TN, nothing", () => {
     // An electrode above 200 Ω may be unstable as the soil dries or freezes: IET Guidance Note 3 / On-Site Guide (from memory)
     const [f] = withCode(tt(210), 'tt-electrode-may-be-unstable');
     expect(f).toMatchObject({ severity: 'warning', rule: 'IET Guidance Note 3', field: 'board.supply.ze', ways: [] });

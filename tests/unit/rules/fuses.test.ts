@@ -3,17 +3,32 @@ import { fuseMaxZs } from '../../../shared/rules/bs7671/index.js';
 import { oneCircuit, withCode } from './fixtures.js';
 
 const TE = (liveCsa: number, cpcCsa: number) => ({ type: 'twin-earth' as const, liveCsa, cpcCsa, referenceMethod: 'C' as const, lengthM: 10 });
-const fuse = (fuseStandard: 'BS 3036' | 'BS 88-2' | 'BS 88-3' | 'BS 1362', rating: number) =>
-  ({ kind: 'fuse' as const, fuseStandard, rating, curve: null, residualMa: null, rcdType: null });
+const fuse = (fuseStandard: 'BS 3036' | 'BS 88-2' | 'BS 88-3' | 'BS 1362', rating: number) => ({
+  kind: 'fuse' as const,
+  fuseStandard,
+  rating,
+  curve: null,
+  residualMa: null,
+  rcdType: null,
+});
 
 describe('fuses: maximum Zs', () => {
   // BS 7671:2018 Table 41.2, 0.4 s, BS 3036 semi-enclosed fuses (from memory; see docs/sources.md)
-  it.each([[5, 9.1], [15, 2.43], [20, 1.68], [30, 1.04]])('when a %i A BS 3036 fuse must disconnect in 0.4 s, then the maximum is %f Ω (Table 41.2)', (rating, ohms) => {
+  it.each([
+    [5, 9.1],
+    [15, 2.43],
+    [20, 1.68],
+    [30, 1.04],
+  ])('when a %i A BS 3036 fuse must disconnect in 0.4 s, then the maximum is %f Ω (Table 41.2)', (rating, ohms) => {
     expect(fuseMaxZs('BS 3036', rating, 0.4)).toMatchObject({ ohms, table: 'Table 41.2', seconds: 0.4 });
   });
 
   // BS 7671:2018 Table 41.4, 5 s, BS 3036 (from memory; see docs/sources.md)
-  it.each([[30, 2.64], [45, 1.59], [60, 1.11]])('when a %i A BS 3036 fuse may take 5 s, then the maximum is %f Ω (Table 41.4)', (rating, ohms) => {
+  it.each([
+    [30, 2.64],
+    [45, 1.59],
+    [60, 1.11],
+  ])('when a %i A BS 3036 fuse may take 5 s, then the maximum is %f Ω (Table 41.4)', (rating, ohms) => {
     expect(fuseMaxZs('BS 3036', rating, 5)).toMatchObject({ ohms, table: 'Table 41.4', seconds: 5 });
   });
 

@@ -38,7 +38,11 @@ describe('next periodic inspection date', () => {
   });
 
   it('when a board saved before the new types says special-location, then it still parses and keeps its 1-year interval', () => {
-    const old = scheduleSchema.parse({ board: { name: 'Pool plant room', installationType: 'special-location', lastInspectionOn: '2025-01-10', supply: { earthing: 'TN-S' } }, devices: [], circuits: [] });
+    const old = scheduleSchema.parse({
+      board: { name: 'Pool plant room', installationType: 'special-location', lastInspectionOn: '2025-01-10', supply: { earthing: 'TN-S' } },
+      devices: [],
+      circuits: [],
+    });
     expect(old.board.installationType).toBe('special-location');
     expect(nextInspectionDate(old.board)).toBe('2026-01-10'); // 1 year, as before
   });

@@ -11,7 +11,11 @@ describe('Type AC RCDs (531.3.3)', () => {
   it('when a Type AC RCD protects socket-outlets, then a warning on the RCD listing every way it covers', () => {
     const s = makeSchedule({
       devices: [rcd, mcb('a'), mcb('b'), mcb('c')], // position mode: the RCD covers the MCBs after it on the row
-      circuits: [{ way: 1, deviceId: 'a', kind: 'lighting' }, { way: 2, deviceId: 'b', kind: 'ring' }, { way: 3, deviceId: 'c', kind: 'radial', socketOutlets: true }],
+      circuits: [
+        { way: 1, deviceId: 'a', kind: 'lighting' },
+        { way: 2, deviceId: 'b', kind: 'ring' },
+        { way: 3, deviceId: 'c', kind: 'radial', socketOutlets: true },
+      ],
     });
     const found = withCode(s, 'rcd-type-ac');
     expect(found).toHaveLength(1);

@@ -9,7 +9,11 @@ const codes = (r: CircuitReadings, c: Partial<ReadingContext> = {}) => judgeRead
 
 describe('insulation resistance (Table 64)', () => {
   // BS 7671:2018+A2 Table 64: 0.5 MΩ at 250 V, 1 MΩ at 500 V and at 1000 V (from memory; see docs/sources.md)
-  it.each([[250, 0.49, 0.5], [500, 0.99, 1], [1000, 0.99, 1]] as const)('when tested at %i V, then %f MΩ fails and %f MΩ passes', (testVoltage, fails, passes) => {
+  it.each([
+    [250, 0.49, 0.5],
+    [500, 0.99, 1],
+    [1000, 0.99, 1],
+  ] as const)('when tested at %i V, then %f MΩ fails and %f MΩ passes', (testVoltage, fails, passes) => {
     expect(codes(readings({ insulation: { testVoltage, lineLine: null, lineEarth: fails, neutralEarth: null } }))).toContain('insulation-below-table-64');
     expect(codes(readings({ insulation: { testVoltage, lineLine: null, lineEarth: passes, neutralEarth: null } }))).not.toContain('insulation-below-table-64');
   });
@@ -55,7 +59,15 @@ describe('Zs against Ze + (R1+R2), polarity', () => {
   });
 
   it('when a new circuit has readings, then its findings point into circuits.N.readings and Zs at measuredZs', () => {
-    const s = oneCircuit({}, { kind: 'radial', measuredZs: 1.0, readings: readings({ r1PlusR2: 0.2, insulation: { testVoltage: 500, lineLine: 0.8, lineEarth: 300, neutralEarth: 300 } }) }, { supply: { ze: 0.35 } });
+    const s = oneCircuit(
+      {},
+      {
+        kind: 'radial',
+        measuredZs: 1.0,
+        readings: readings({ r1PlusR2: 0.2, insulation: { testVoltage: 500, lineLine: 0.8, lineEarth: 300, neutralEarth: 300 } }),
+      },
+      { supply: { ze: 0.35 } },
+    );
     expect(withCode(s, 'insulation-below-table-64')[0].field).toBe('circuits.0.readings.insulation.lineLine');
     expect(withCode(s, 'zs-cross-check')[0].field).toBe('circuits.0.measuredZs');
   });

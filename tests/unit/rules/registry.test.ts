@@ -2,14 +2,18 @@ import { describe, expect, it } from 'vitest';
 import { CHECKS_CAUTION, checkSchedule, DEFAULT_RULE_SET_ID, getRuleSet, maxZsByCircuit, maxZsFor, ruleSets } from '../../../shared/rules/index.js';
 import { makeSchedule, TODAY } from './fixtures.js';
 
-const messy = () => makeSchedule({
-  board: { lastInspectionOn: null, installedOn: null },
-  devices: [{ id: 'a', row: 1, kind: 'mcb', rating: 32, curve: 'B' }, { id: 'b', row: 1, kind: 'mcb', rating: 6, curve: 'C' }],
-  circuits: [
-    { way: 2, deviceId: 'a', kind: 'radial', socketOutlets: true, measuredZs: 1.2, cable: { liveCsa: 2.5, cpcCsa: 1.5, referenceMethod: 'C' } },
-    { way: 1, deviceId: 'b', kind: 'lighting' },
-  ],
-});
+const messy = () =>
+  makeSchedule({
+    board: { lastInspectionOn: null, installedOn: null },
+    devices: [
+      { id: 'a', row: 1, kind: 'mcb', rating: 32, curve: 'B' },
+      { id: 'b', row: 1, kind: 'mcb', rating: 6, curve: 'C' },
+    ],
+    circuits: [
+      { way: 2, deviceId: 'a', kind: 'radial', socketOutlets: true, measuredZs: 1.2, cable: { liveCsa: 2.5, cpcCsa: 1.5, referenceMethod: 'C' } },
+      { way: 1, deviceId: 'b', kind: 'lighting' },
+    ],
+  });
 
 describe('rule set registry', () => {
   it('when no id is given, then the BS 7671:2018+A2 rule set runs', () => {

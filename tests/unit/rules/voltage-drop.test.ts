@@ -16,7 +16,9 @@ describe('voltage drop estimate (BS 7671 525, Appendix 4 Table 4Ab)', () => {
     expect(withCode(oneCircuit(mcb(6), { kind: 'lighting', cable: te(1.5, 39) }), 'voltage-drop-over-limit')).toEqual([]);
     const [f] = withCode(oneCircuit(mcb(6), { way: 5, label: 'Loft lights', kind: 'lighting', cable: te(1.5, 40) }), 'voltage-drop-over-limit');
     expect(f).toMatchObject({ severity: 'warning', rule: 'BS 7671 525, Appendix 4 Table 4Ab', field: 'circuits.0.cable.lengthM' });
-    expect(f.message).toBe('Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) over 40 m of 1.5 mm² at 6 A exceeds the 3 % limit for lighting from a public supply (6.9 V; BS 7671 525, Appendix 4 Table 4Ab)');
+    expect(f.message).toBe(
+      'Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) over 40 m of 1.5 mm² at 6 A exceeds the 3 % limit for lighting from a public supply (6.9 V; BS 7671 525, Appendix 4 Table 4Ab)',
+    );
   });
 
   it('when a B20 radial in 2.5 mm² is 31 m, then within 5 % (11.5 V); at 32 m it is over', () => {
@@ -38,7 +40,10 @@ describe('voltage drop estimate (BS 7671 525, Appendix 4 Table 4Ab)', () => {
   it('when a three-phase board records 400 V between phases, then each circuit is judged against 230 V to earth, as at 230 V', () => {
     // 18 mV/A/m (Table 4D5, from memory) × 20 A × 32 m = 11.52 V > 5 % of U0 230 V = 11.5 V; 230/400 V (BS EN 60038, from memory)
     for (const nominalVoltage of [230, 400]) {
-      const [f] = withCode(oneCircuit(mcb(20), { kind: 'radial', phase: 'L1', cable: te(2.5, 32) }, { phases: 3, supply: { nominalVoltage } }), 'voltage-drop-over-limit');
+      const [f] = withCode(
+        oneCircuit(mcb(20), { kind: 'radial', phase: 'L1', cable: te(2.5, 32) }, { phases: 3, supply: { nominalVoltage } }),
+        'voltage-drop-over-limit',
+      );
       expect(f?.message).toContain('exceeds the 5 % limit for this use from a public supply (11.5 V; BS 7671 525, Appendix 4 Table 4Ab)');
     }
   });

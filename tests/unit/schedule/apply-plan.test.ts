@@ -45,7 +45,14 @@ describe('applying the changeover plan to the new board', () => {
     everyLegLands(before, schedule);
     const front = schedule.circuits.find((c) => c.id === 'sockets-front')!;
     expect(front).toMatchObject({ kind: 'ring', legs: 2, socketOutlets: true, previousReference: 'Fuse 1 (red dot)', cable: { liveCsa: 2.5, cpcCsa: 1.5 } });
-    expect(schedule.devices.find((d) => d.id === front.deviceId)).toMatchObject({ kind: 'rcbo', rating: 32, curve: 'B', residualMa: 30, rcdType: 'A', modules: 1 });
+    expect(schedule.devices.find((d) => d.id === front.deviceId)).toMatchObject({
+      kind: 'rcbo',
+      rating: 32,
+      curve: 'B',
+      residualMa: 30,
+      rcdType: 'A',
+      modules: 1,
+    });
     // Two old lighting fuses joined onto one way: two cables land on it, one flag each.
     const lights = schedule.circuits.find((c) => c.id === 'lights')!;
     expect(lights).toMatchObject({ legs: 2, previousReference: 'Fuse 5 + Fuse 6' });
@@ -64,7 +71,7 @@ describe('applying the changeover plan to the new board', () => {
     expect(twice.updated.length).toBe(5);
   });
 
-  it('when a circuit made by the plan has since been edited, then re-applying keeps its cable and description but takes the plan\'s rating', () => {
+  it("when a circuit made by the plan has since been edited, then re-applying keeps its cable and description but takes the plan's rating", () => {
     const once = applied(bungalow()).schedule;
     const cooker = once.circuits.find((c) => c.id === 'cooker')!;
     cooker.description = 'Cooker and hob, kitchen';
@@ -117,11 +124,20 @@ describe('applying the changeover plan to the new board', () => {
     const rcdsBefore = rcdFor(board);
     const way = Math.max(...board.circuits.map((c) => c.way)) + 1;
     board.survey = {
-      oldBoard: '', surveyedOn: null, ze: null, junctionBoxes: [], notes: '',
-      ways: [surveyWaySchema.parse({
-        id: 'o1', reference: 'Fuse 1', legs: 1, action: 'keep',
-        targets: [{ circuitId: 'garage', way, label: 'Garage', kind: 'radial', device: { kind: 'mcb', rating: 16, curve: 'B', rcdGroup: 'RCD 3' } }],
-      })],
+      oldBoard: '',
+      surveyedOn: null,
+      ze: null,
+      junctionBoxes: [],
+      notes: '',
+      ways: [
+        surveyWaySchema.parse({
+          id: 'o1',
+          reference: 'Fuse 1',
+          legs: 1,
+          action: 'keep',
+          targets: [{ circuitId: 'garage', way, label: 'Garage', kind: 'radial', device: { kind: 'mcb', rating: 16, curve: 'B', rcdGroup: 'RCD 3' } }],
+        }),
+      ],
     };
     const { schedule } = applied(board);
     expect(schedule.board.rcdMode).toBe('manual');
@@ -139,20 +155,34 @@ describe('applying the changeover plan to the new board', () => {
       targets: fc.array(fc.record({ n: fc.integer({ min: 1, max: 6 }), legs: fc.subarray([1, 2]) }), { maxLength: 2 }),
     });
     let applied = 0;
-    fc.assert(fc.property(fc.array(wayArb, { minLength: 1, maxLength: 6 }), (gen) => {
-      const s = bungalow();
-      s.survey!.ways = gen.map((g, i): SurveyWay => surveyWaySchema.parse({
-        id: `w${i}`, reference: `Fuse ${i + 1}`, legs: g.legs, action: g.action,
-        targets: g.targets.map((t) => ({ circuitId: `c${t.n}`, way: t.n + 1, label: `Circuit ${t.n}`, device: { rating: 16 }, legs: t.legs.map((leg) => ({ leg })) })),
-      }));
-      const out = applyPlan(s);
-      if (!out.ok) {
-        expect(Object.keys(out.fields).length).toBeGreaterThan(0);
-        return;
-      }
-      applied++;
-      everyLegLands(s, out.schedule);
-    }), { numRuns: 1000 }); // about one random plan in twelve is whole, so enough runs that many apply
+    fc.assert(
+      fc.property(fc.array(wayArb, { minLength: 1, maxLength: 6 }), (gen) => {
+        const s = bungalow();
+        s.survey!.ways = gen.map((g, i): SurveyWay =>
+          surveyWaySchema.parse({
+            id: `w${i}`,
+            reference: `Fuse ${i + 1}`,
+            legs: g.legs,
+            action: g.action,
+            targets: g.targets.map((t) => ({
+              circuitId: `c${t.n}`,
+              way: t.n + 1,
+              label: `Circuit ${t.n}`,
+              device: { rating: 16 },
+              legs: t.legs.map((leg) => ({ leg })),
+            })),
+          }),
+        );
+        const out = applyPlan(s);
+        if (!out.ok) {
+          expect(Object.keys(out.fields).length).toBeGreaterThan(0);
+          return;
+        }
+        applied++;
+        everyLegLands(s, out.schedule);
+      }),
+      { numRuns: 1000 },
+    ); // about one random plan in twelve is whole, so enough runs that many apply
     expect(applied).toBeGreaterThan(10); // the property was tested on plans that applied, not only on refusals
   });
 });

@@ -14,8 +14,12 @@ describe('demo data', () => {
     for (const s of demoSites) expect(siteInputSchema.parse(s.site)).toEqual(s.site);
   });
 
-  it('when the boards are checked, then the only errors are the deliberate old radial on flat way 5 and the bungalow\'s two before-you-swap failures', () => {
-    const errors = boards.flatMap((b) => checkSchedule(b.schedule, { today: TODAY }).filter((f) => f.severity === 'error').map((f) => `${b.key} ${f.code} ${f.field ?? f.ways}`));
+  it("when the boards are checked, then the only errors are the deliberate old radial on flat way 5 and the bungalow's two before-you-swap failures", () => {
+    const errors = boards.flatMap((b) =>
+      checkSchedule(b.schedule, { today: TODAY })
+        .filter((f) => f.severity === 'error')
+        .map((f) => `${b.key} ${f.code} ${f.field ?? f.ways}`),
+    );
     expect(errors).toEqual([
       'flat-main rating-over-iz circuits.4.cable.liveCsa', // 32 A on 2.5 mm² at method 103, Iz 13.5 A (BS 7671 Table 4D5, from memory)
       // The back ring's 1.52 Ω is over the 1.37 Ω of the B32 it is planned onto (BS 7671:2018+A2 Table 41.3, found)
@@ -56,7 +60,8 @@ describe('demo data', () => {
     expect(ev?.cable).toMatchObject({ type: 'swa', liveCsa: 6 });
     const workshop = byKey.get('workshop')!.schedule;
     expect(workshop.board.phases).toBe(3);
-    for (const label of ['Dust extractor', 'Table saw', 'Compressor', 'Office sockets', 'Workshop lights']) expect(workshop.circuits.some((c) => c.label === label)).toBe(true);
+    for (const label of ['Dust extractor', 'Table saw', 'Compressor', 'Office sockets', 'Workshop lights'])
+      expect(workshop.circuits.some((c) => c.label === label)).toBe(true);
   });
 
   it('when privacy tests need private data, then every private field is filled on every site and board', () => {

@@ -23,7 +23,11 @@ describe('schedule diff', () => {
     a.board.supply.ze = 0.35;
     const diff = diffSchedules(a, b);
     expect(diff.summary).toBe('supply Ze 0.35 → 0.28 Ω; RCD 3 added; way 7 renamed Garage sockets');
-    expect(diff.changes.map((c) => [c.kind, c.path])).toEqual([['changed', 'board.supply.ze'], ['added', 'devices.13'], ['changed', 'circuits.6.label']]);
+    expect(diff.changes.map((c) => [c.kind, c.path])).toEqual([
+      ['changed', 'board.supply.ze'],
+      ['added', 'devices.13'],
+      ['changed', 'circuits.6.label'],
+    ]);
     expect(diff.changes[0]).toMatchObject({ before: 0.35, after: 0.28 });
   });
 
@@ -52,7 +56,10 @@ describe('schedule diff', () => {
   });
 
   it('when private notes change, then the summary says so without printing them', () => {
-    const [a, b] = edited((s) => { s.board.privateNotes = 'Alarm code 4471'; wayOf(s, 1).notes = 'Behind the fridge'; });
+    const [a, b] = edited((s) => {
+      s.board.privateNotes = 'Alarm code 4471';
+      wayOf(s, 1).notes = 'Behind the fridge';
+    });
     const diff = diffSchedules(a, b);
     expect(diff.summary).toBe('private notes changed; way 1 notes changed');
     expect(diff.summary).not.toContain('4471');
@@ -67,7 +74,12 @@ describe('schedule diff', () => {
   });
 
   it('when many things change, then the summary names the first eight and counts the rest', () => {
-    const [a, b] = edited((s) => { s.circuits.forEach((c, i) => { c.measuredZs = 0.5 + i / 100; }); s.board.name = 'Renamed'; });
+    const [a, b] = edited((s) => {
+      s.circuits.forEach((c, i) => {
+        c.measuredZs = 0.5 + i / 100;
+      });
+      s.board.name = 'Renamed';
+    });
     const summary = diffSchedules(a, b).summary;
     expect(summary.split('; ')).toHaveLength(9);
     expect(summary.endsWith('and 2 more changes')).toBe(true); // 1 board + 9 circuits = 10 changes
@@ -94,7 +106,9 @@ describe('ways changed for reprinting labels', () => {
   });
 
   it('when a circuit is renumbered, then its new way is listed', () => {
-    const [a, b] = edited((s) => { wayOf(s, 9).way = 10; });
+    const [a, b] = edited((s) => {
+      wayOf(s, 9).way = 10;
+    });
     expect(waysChangedBetween(a, b)).toEqual([10]);
   });
 });

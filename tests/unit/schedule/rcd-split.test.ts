@@ -8,7 +8,13 @@ import { applyPlan } from '../../../shared/schedule/apply-plan.js';
 import { rcdGroups } from '../../../shared/schedule/derive.js';
 import { bungalowBoard } from '../../../server/seed/demo-bungalow.js';
 
-interface Way { label: string; kind: CircuitKind; feeds?: string; device?: 'mcb' | 'rcbo'; ne?: number }
+interface Way {
+  label: string;
+  kind: CircuitKind;
+  feeds?: string;
+  device?: 'mcb' | 'rcbo';
+  ne?: number;
+}
 
 /** A board whose survey plans one new way per old way, MCBs unless told otherwise (invented test data). */
 function planned(ways: Way[]): Schedule {
@@ -17,11 +23,20 @@ function planned(ways: Way[]): Schedule {
     devices: [{ id: 'main', row: 1, kind: 'main-switch', modules: 2, poles: 2 }],
     circuits: [],
     survey: {
-      ways: ways.map((w, i) => surveyWaySchema.parse({
-        id: `o${i}`, reference: `Fuse ${i + 1}`, feeds: w.feeds ?? '', kind: w.kind, legs: 1, action: 'keep',
-        readings: w.ne ? { insulation: { testVoltage: 500, neutralEarth: w.ne } } : undefined,
-        targets: [{ circuitId: `c${i}`, way: i + 1, label: w.label, kind: w.kind, device: { kind: w.device ?? 'mcb', rating: w.kind === 'lighting' ? 6 : 32 } }],
-      })),
+      ways: ways.map((w, i) =>
+        surveyWaySchema.parse({
+          id: `o${i}`,
+          reference: `Fuse ${i + 1}`,
+          feeds: w.feeds ?? '',
+          kind: w.kind,
+          legs: 1,
+          action: 'keep',
+          readings: w.ne ? { insulation: { testVoltage: 500, neutralEarth: w.ne } } : undefined,
+          targets: [
+            { circuitId: `c${i}`, way: i + 1, label: w.label, kind: w.kind, device: { kind: w.device ?? 'mcb', rating: w.kind === 'lighting' ? 6 : 32 } },
+          ],
+        }),
+      ),
     },
   });
 }
@@ -29,10 +44,14 @@ const rcdOf = (s: ReturnType<typeof suggestRcdSplit>, label: string) => s!.place
 
 describe('suggesting how the planned MCB ways share the new RCDs', () => {
   it('when each area has lights and sockets, then they go on different RCDs, the lighting is spread, and each reason says why', () => {
-    const s = suggestRcdSplit(planned([
-      { label: 'Lights front', kind: 'lighting' }, { label: 'Lights back', kind: 'lighting' },
-      { label: 'Sockets front', kind: 'ring' }, { label: 'Sockets back', kind: 'ring' },
-    ]))!;
+    const s = suggestRcdSplit(
+      planned([
+        { label: 'Lights front', kind: 'lighting' },
+        { label: 'Lights back', kind: 'lighting' },
+        { label: 'Sockets front', kind: 'ring' },
+        { label: 'Sockets back', kind: 'ring' },
+      ]),
+    )!;
     expect(s.rcds).toHaveLength(2);
     expect(rcdOf(s, 'Lights front')).not.toBe(rcdOf(s, 'Sockets front'));
     expect(rcdOf(s, 'Lights back')).not.toBe(rcdOf(s, 'Sockets back'));
@@ -56,18 +75,30 @@ describe('suggesting how the planned MCB ways share the new RCDs', () => {
   });
 
   it('when one lighting circuit serves every area, then the reason owns up to the socket circuit it shares an RCD with', () => {
-    const s = suggestRcdSplit(planned([
-      { label: 'Sockets front', kind: 'ring' }, { label: 'Sockets back', kind: 'ring' }, { label: 'Lights', kind: 'lighting', feeds: 'front and back rooms' },
-    ]))!;
+    const s = suggestRcdSplit(
+      planned([
+        { label: 'Sockets front', kind: 'ring' },
+        { label: 'Sockets back', kind: 'ring' },
+        { label: 'Lights', kind: 'lighting', feeds: 'front and back rooms' },
+      ]),
+    )!;
     const lights = s.places.find((p) => p.label === 'Lights')!;
     expect(lights.why).toMatch(/it shares RCD \d with Sockets (front|back) of the same area/);
   });
 
   it('when a sub-main or an RCBO is planned, then the sub-main is kept off the 30 mA RCDs and the RCBO needs no place', () => {
-    const s = suggestRcdSplit(planned([
-      { label: 'Garage board', kind: 'sub-main' }, { label: 'Cooker', kind: 'cooker', device: 'rcbo' }, { label: 'Smoke alarms', kind: 'lighting' },
-    ]))!;
-    expect(s.places.map((p) => [p.label, p.placed, p.rcd])).toEqual([['Garage board', 'none', null], ['Cooker', 'own', null], ['Smoke alarms', 'rcd', 'RCD 1']]);
+    const s = suggestRcdSplit(
+      planned([
+        { label: 'Garage board', kind: 'sub-main' },
+        { label: 'Cooker', kind: 'cooker', device: 'rcbo' },
+        { label: 'Smoke alarms', kind: 'lighting' },
+      ]),
+    )!;
+    expect(s.places.map((p) => [p.label, p.placed, p.rcd])).toEqual([
+      ['Garage board', 'none', null],
+      ['Cooker', 'own', null],
+      ['Smoke alarms', 'rcd', 'RCD 1'],
+    ]);
     expect(s.places[0]!.why).toMatch(/time-delayed RCD/);
     expect(s.notes.join(' ')).toMatch(/own RCBO/);
   });
@@ -78,17 +109,22 @@ describe('suggesting how the planned MCB ways share the new RCDs', () => {
     expect(new Set(s.places.map((p) => p.placed))).toEqual(new Set(['own']));
   });
 
-  it('when a suggestion is accepted and the plan applied, then the new board\'s RCD groups are the suggestion\'s', () => {
+  it("when a suggestion is accepted and the plan applied, then the new board's RCD groups are the suggestion's", () => {
     const board = planned([
-      { label: 'Lights front', kind: 'lighting' }, { label: 'Lights back', kind: 'lighting' },
-      { label: 'Sockets front', kind: 'ring' }, { label: 'Sockets back', kind: 'ring' }, { label: 'Annex', kind: 'sub-main' },
+      { label: 'Lights front', kind: 'lighting' },
+      { label: 'Lights back', kind: 'lighting' },
+      { label: 'Sockets front', kind: 'ring' },
+      { label: 'Sockets back', kind: 'ring' },
+      { label: 'Annex', kind: 'sub-main' },
     ]);
     const s = suggestRcdSplit(board)!;
     const out = applyPlan(acceptRcdSplit(board, s));
     expect(out.ok).toBe(true);
     if (!out.ok) return;
     const byName = (a: { name: string }, b: { name: string }) => a.name.localeCompare(b.name);
-    const groups = rcdGroups(out.schedule).map((g) => ({ name: g.name, ways: g.circuits.map((c) => c.way) })).sort(byName);
+    const groups = rcdGroups(out.schedule)
+      .map((g) => ({ name: g.name, ways: g.circuits.map((c) => c.way) }))
+      .sort(byName);
     expect(groups).toEqual(s.rcds.map((r) => ({ name: r.name, ways: r.ways })).sort(byName));
     const annex = out.schedule.circuits.find((c) => c.label === 'Annex')!;
     expect(out.schedule.devices.find((d) => d.id === annex.deviceId)!.protectedBy).toBeNull();
@@ -96,12 +132,18 @@ describe('suggesting how the planned MCB ways share the new RCDs', () => {
 
   it('for any plan of MCB ways whose circuits each fit under the limit, every RCD stays under 30 % of IΔn and every way is placed', () => {
     const kinds: CircuitKind[] = ['ring', 'radial', 'lighting', 'cooker', 'shower', 'immersion', 'fixed-appliance', 'other'];
-    fc.assert(fc.property(fc.array(fc.record({ kind: fc.constantFrom(...kinds), area: fc.constantFrom('front', 'back', 'upstairs', 'garage') }), { minLength: 1, maxLength: 16 }), (gen) => {
-      const s = suggestRcdSplit(planned(gen.map((g, i) => ({ label: `${g.area} ${i}`, kind: g.kind }))))!;
-      expect(s.places).toHaveLength(gen.length);
-      for (const p of s.places) expect(p.rcd).not.toBeNull();
-      for (const r of s.rcds) expect(r.expectedMa).toBeLessThanOrEqual(9 + 1e-9);
-      expect(s.rcds.reduce((n, r) => n + r.ways.length, 0)).toBe(gen.length);
-    }), { numRuns: 200 });
+    fc.assert(
+      fc.property(
+        fc.array(fc.record({ kind: fc.constantFrom(...kinds), area: fc.constantFrom('front', 'back', 'upstairs', 'garage') }), { minLength: 1, maxLength: 16 }),
+        (gen) => {
+          const s = suggestRcdSplit(planned(gen.map((g, i) => ({ label: `${g.area} ${i}`, kind: g.kind }))))!;
+          expect(s.places).toHaveLength(gen.length);
+          for (const p of s.places) expect(p.rcd).not.toBeNull();
+          for (const r of s.rcds) expect(r.expectedMa).toBeLessThanOrEqual(9 + 1e-9);
+          expect(s.rcds.reduce((n, r) => n + r.ways.length, 0)).toBe(gen.length);
+        },
+      ),
+      { numRuns: 200 },
+    );
   });
 });

@@ -12,10 +12,18 @@ import { BLACK, GREY, RED } from '../../model.js';
 import { ohms, type Paragraph } from '../chart/columns.js';
 
 /** One old way with everything its row needs, worked out once. */
-export interface WayFacts { way: SurveyWay; index: number; survey: Survey; findings: Finding[]; worst: Severity | null }
+export interface WayFacts {
+  way: SurveyWay;
+  index: number;
+  survey: Survey;
+  findings: Finding[];
+  worst: Severity | null;
+}
 
 export interface ChangeoverColumn {
-  header: string; weight: number; maxLines: number;
+  header: string;
+  weight: number;
+  maxLines: number;
   /** The column's longest word set in bold, which it must hold unbroken on any page. */
   minWord: string;
   readings?: boolean;
@@ -29,8 +37,11 @@ const plain = (text: string, color?: Paragraph['color']): Paragraph => ({ text, 
 const capital = (s: string) => s.charAt(0).toUpperCase() + s.slice(1);
 
 const PROVED: Record<IdentificationMethod, string> = {
-  'fuse-withdrawn': 'proved: fuse withdrawn', 'breaker-off': 'proved: breaker off', traced: 'proved: traced',
-  'as-labelled': 'as labelled, not proved', 'not-found': 'not found',
+  'fuse-withdrawn': 'proved: fuse withdrawn',
+  'breaker-off': 'proved: breaker off',
+  traced: 'proved: traced',
+  'as-labelled': 'as labelled, not proved',
+  'not-found': 'not found',
 };
 const ACTIONS: Record<PlanAction, string> = { keep: 'Keep', split: 'Split', join: 'Join', retire: 'Retired', spare: 'Spare' };
 const CABLES: Record<Cable['type'], string> = { 'twin-earth': 'T&E', swa: 'SWA', 'singles-conduit': 'singles in conduit', flex: 'flex', other: '' };
@@ -76,7 +87,9 @@ export function cableText(c: Cable): string {
 
 function deviceCell(f: WayFacts): Paragraph[] {
   const { device, cable, legs } = f.way;
-  const detail = [cable.lengthM ? `${n(cable.lengthM)} m` : '', cable.referenceMethod ? `method ${cable.referenceMethod}` : '', legs > 1 ? `${legs} legs` : ''].filter(Boolean).join(' · ');
+  const detail = [cable.lengthM ? `${n(cable.lengthM)} m` : '', cable.referenceMethod ? `method ${cable.referenceMethod}` : '', legs > 1 ? `${legs} legs` : '']
+    .filter(Boolean)
+    .join(' · ');
   return [bold(oldDeviceText(device)), plain(cableText(cable)), ...(detail ? [plain(detail, GREY)] : [])];
 }
 
@@ -90,7 +103,11 @@ function readingColour(f: WayFacts, prefix: string): Paragraph['color'] {
 export function readingLines(f: WayFacts): Paragraph[] {
   const r = f.way.readings;
   const ins = r.insulation;
-  const ir = [ins.lineLine != null ? `L–L ${n(ins.lineLine)}` : '', ins.lineEarth != null ? `L–E ${n(ins.lineEarth)}` : '', ins.neutralEarth != null ? `N–E ${n(ins.neutralEarth)}` : ''].filter(Boolean);
+  const ir = [
+    ins.lineLine != null ? `L–L ${n(ins.lineLine)}` : '',
+    ins.lineEarth != null ? `L–E ${n(ins.lineEarth)}` : '',
+    ins.neutralEarth != null ? `N–E ${n(ins.neutralEarth)}` : '',
+  ].filter(Boolean);
   const ring = [r.ring.r1, r.ring.rn, r.ring.r2];
   const trip = f.way.device.rcdTrip;
   const out: Paragraph[] = [];
@@ -101,7 +118,8 @@ export function readingLines(f: WayFacts): Paragraph[] {
   if (r.r2 != null) add(`R2 ${ohms(r.r2)} Ω`, 'readings.r2');
   if (r.zs != null) add(`Zs ${ohms(r.zs)} Ω`, 'readings.zs');
   if (r.polarity) add(`Polarity ${r.polarity}`, 'readings.polarity');
-  if (trip.atRated != null || trip.atFiveTimes != null) add(`RCD trip ${[trip.atRated, trip.atFiveTimes].map((v) => (v == null ? '–' : n(v))).join(' / ')} ms (IΔn / 5 IΔn)`, 'device.rcdTrip');
+  if (trip.atRated != null || trip.atFiveTimes != null)
+    add(`RCD trip ${[trip.atRated, trip.atFiveTimes].map((v) => (v == null ? '–' : n(v))).join(' / ')} ms (IΔn / 5 IΔn)`, 'device.rcdTrip');
   return out.length ? out : [plain('Not taken', GREY)];
 }
 
@@ -111,10 +129,14 @@ export function newWayLines(f: WayFacts): Paragraph[] {
   if (way.action === 'retire') return [bold('Retired'), plain('not connected to the new board', GREY)];
   if (!way.targets.length) return way.action === 'spare' ? [plain('Spare: no new way', GREY)] : [bold('No new way planned', RED)];
   return way.targets.flatMap((t): Paragraph[] => {
-    const boxes = t.legs.filter((l) => l.junctionBoxId != null).map((l) => {
-      const jb = survey.junctionBoxes.find((b) => b.id === l.junctionBoxId);
-      return plain(jb ? `leg ${l.leg} via ${jb.name}${jb.location ? ` ${jb.location}` : ''}` : `leg ${l.leg} via an unlisted junction box (${l.junctionBoxId})`);
-    });
+    const boxes = t.legs
+      .filter((l) => l.junctionBoxId != null)
+      .map((l) => {
+        const jb = survey.junctionBoxes.find((b) => b.id === l.junctionBoxId);
+        return plain(
+          jb ? `leg ${l.leg} via ${jb.name}${jb.location ? ` ${jb.location}` : ''}` : `leg ${l.leg} via an unlisted junction box (${l.junctionBoxId})`,
+        );
+      });
     const joined = survey.ways.filter((o) => o !== way && o.targets.some((x) => x.circuitId === t.circuitId)).map((o) => o.reference);
     return [
       bold(`Way ${t.way}${t.phase ? ` ${t.phase}` : ''} ${t.label} · ${plannedDeviceText(t.device)}`),
@@ -132,7 +154,13 @@ function verdictCell(f: WayFacts): Paragraph[] {
 
 /** Column order and relative widths. */
 export const changeoverColumns: ChangeoverColumn[] = [
-  { header: 'Old way', weight: 11, maxLines: 4, minWord: 'withdrawn', cell: (f) => [bold(f.way.reference), ...(f.way.identifiedBy ? [plain(PROVED[f.way.identifiedBy], GREY)] : [])] },
+  {
+    header: 'Old way',
+    weight: 11,
+    maxLines: 4,
+    minWord: 'withdrawn',
+    cell: (f) => [bold(f.way.reference), ...(f.way.identifiedBy ? [plain(PROVED[f.way.identifiedBy], GREY)] : [])],
+  },
   { header: 'Feeds', weight: 16, maxLines: 6, minWord: 'kitchen-diner', cell: (f) => (f.way.feeds ? [plain(f.way.feeds)] : [plain('Not recorded', GREY)]) },
   { header: 'Old device · cable', weight: 13, maxLines: 5, minWord: '2.5/1.5 mm²', cell: deviceCell },
   { header: 'Readings as found', weight: 17, maxLines: 9, minWord: '0.74/0.75/1.24 Ω', readings: true, cell: readingLines },
@@ -147,7 +175,11 @@ export function detailLines(f: WayFacts): Paragraph[] {
   const findings = f.findings.map((x): Paragraph => {
     const message = x.message.startsWith(opening) ? x.message.slice(opening.length) : x.message;
     const lead = x.severity === 'error' ? 'Fix' : x.severity === 'warning' ? 'Check' : 'Note';
-    return { text: `${lead}: ${capital(message)}`, face: x.severity === 'error' ? 'bold' : 'regular', color: x.severity === 'error' ? RED : x.severity === 'info' ? GREY : BLACK };
+    return {
+      text: `${lead}: ${capital(message)}`,
+      face: x.severity === 'error' ? 'bold' : 'regular',
+      color: x.severity === 'error' ? RED : x.severity === 'info' ? GREY : BLACK,
+    };
   });
   return [...findings, ...(f.way.notes ? [plain(`Notes: ${f.way.notes}`, GREY)] : [])];
 }

@@ -22,13 +22,25 @@ type Ctx = LayoutContext<'changeover'>;
 const SHEETS = ['a4', 'a5', 'a4-landscape', 'a5-landscape'];
 export const NO_SURVEY = 'This board has no survey of an old board: record the old board’s ways in the survey, then print the changeover schedule';
 
-interface Frame { w: number; h: number; k: number; content: Box; style: TableStyle; columns: ChangeoverColumn[]; widths: number[]; detailWidths: number[]; bottom: number; headerRow: MeasuredRow }
+interface Frame {
+  w: number;
+  h: number;
+  k: number;
+  content: Box;
+  style: TableStyle;
+  columns: ChangeoverColumn[];
+  widths: number[];
+  detailWidths: number[];
+  bottom: number;
+  headerRow: MeasuredRow;
+}
 
 function surveyOf(ctx: Ctx): Survey {
   const survey = ctx.req.schedule.survey;
   if (!survey || survey.ways.length === 0) throw new LayoutError(NO_SURVEY, 'survey');
   const m = ctx.req.medium;
-  if (m.kind !== 'page' || !SHEETS.includes(m.id)) throw new LayoutError('The changeover schedule goes on a sheet: use a4 or a5 (portrait or landscape)', 'media');
+  if (m.kind !== 'page' || !SHEETS.includes(m.id))
+    throw new LayoutError('The changeover schedule goes on a sheet: use a4 or a5 (portrait or landscape)', 'media');
   return survey;
 }
 
@@ -43,10 +55,33 @@ function frameFor(ctx: Ctx, survey: Survey): Frame {
   const content: Box = { x: margin, y: margin, w: w - 2 * margin, h: h - 2 * margin };
   const style: TableStyle = { sizePt: 7.5 * k, padMm: 1.1 * k, wayWidthMm: 0, tm: ctx.tm };
   const columns = changeoverColumns.filter((c) => ctx.options.showReadings || !c.readings);
-  const widths = withMinimums(columnWidths(content.w, columns.map((c) => c.weight), 0), columns.map((c) => ctx.tm.measure(c.minWord, 'condensed-bold', style.sizePt) + 2 * style.padMm + 0.3));
+  const widths = withMinimums(
+    columnWidths(
+      content.w,
+      columns.map((c) => c.weight),
+      0,
+    ),
+    columns.map((c) => ctx.tm.measure(c.minWord, 'condensed-bold', style.sizePt) + 2 * style.padMm + 0.3),
+  );
   const footerH = stack(footerLines(ctx, survey, k, 99, 99), 0, 0, content.w, ctx).bottom;
-  const headerRow = measureRow(columns.map((c) => [{ text: c.header, face: 'condensed-bold' }]), widths, columns.map(() => 3), style);
-  return { w, h, k, content, style, columns, widths, detailWidths: [widths[0], content.w - widths[0]], bottom: content.y + content.h - footerH - 1.5, headerRow };
+  const headerRow = measureRow(
+    columns.map((c) => [{ text: c.header, face: 'condensed-bold' }]),
+    widths,
+    columns.map(() => 3),
+    style,
+  );
+  return {
+    w,
+    h,
+    k,
+    content,
+    style,
+    columns,
+    widths,
+    detailWidths: [widths[0], content.w - widths[0]],
+    bottom: content.y + content.h - footerH - 1.5,
+    headerRow,
+  };
 }
 
 /** Widths raised to their minimums (a verdict never breaks inside "changeover"), the difference taken from the wider columns. */
@@ -64,9 +99,16 @@ class Pager {
   y = 0;
   private rowsOnPage = 0;
 
-  constructor(private readonly ctx: Ctx, private readonly survey: Survey, private readonly facts: WayFacts[], private readonly f: Frame) {}
+  constructor(
+    private readonly ctx: Ctx,
+    private readonly survey: Survey,
+    private readonly facts: WayFacts[],
+    private readonly f: Frame,
+  ) {}
 
-  private get items(): Item[] { return this.pages[this.pages.length - 1]; }
+  private get items(): Item[] {
+    return this.pages[this.pages.length - 1];
+  }
 
   newPage(withTable: boolean): void {
     const { f } = this;
@@ -79,7 +121,10 @@ class Pager {
 
   private tableHeader(): void {
     const { f } = this;
-    this.items.push(...rowItems(f.headerRow, f.content.x, this.y, f.widths, f.style, false, true), ...columnRules(f.content.x, this.y, this.y + f.headerRow.heightMm, f.widths));
+    this.items.push(
+      ...rowItems(f.headerRow, f.content.x, this.y, f.widths, f.style, false, true),
+      ...columnRules(f.content.x, this.y, this.y + f.headerRow.heightMm, f.widths),
+    );
     this.y += f.headerRow.heightMm;
   }
 
@@ -102,7 +147,10 @@ class Pager {
   /** A block laid out by `place(y)`, moved to a new page if it overruns. */
   block(place: (y: number) => { items: Item[]; bottom: number }): void {
     let placed = place(this.y);
-    if (placed.bottom > this.f.bottom) { this.newPage(false); placed = place(this.y); }
+    if (placed.bottom > this.f.bottom) {
+      this.newPage(false);
+      placed = place(this.y);
+    }
     this.items.push(...placed.items);
     this.y = placed.bottom;
   }
@@ -118,15 +166,27 @@ function wayFacts(ctx: Ctx, survey: Survey): WayFacts[] {
 /** Survey findings that concern no one old way (the survey as a whole, its junction boxes). */
 function otherFindings(ctx: Ctx, count: number): Paragraph[] {
   const own = new Set(Array.from({ length: count }, (_, i) => findingsOfWay(ctx.req.findings, i)).flat());
-  return ctx.req.findings.filter((f) => isSurveyFinding(f) && !own.has(f)).map((f) => ({ text: f.message, face: f.severity === 'error' ? 'bold' : 'regular', color: f.severity === 'error' ? RED : f.severity === 'info' ? GREY : BLACK }));
+  return ctx.req.findings
+    .filter((f) => isSurveyFinding(f) && !own.has(f))
+    .map((f) => ({
+      text: f.message,
+      face: f.severity === 'error' ? 'bold' : 'regular',
+      color: f.severity === 'error' ? RED : f.severity === 'info' ? GREY : BLACK,
+    }));
 }
 
 /** Names the columns whose text was cut, so the warning points at what to shorten. */
 function cutWarning(ctx: Ctx, f: Frame, fact: WayFacts, detailCut: boolean): void {
-  const cut = f.columns.filter((c, i) => measureRow([c.cell(fact).map(condensed)], [f.widths[i]], [c.maxLines], f.style).cut).map((c) => c.header.toLowerCase());
+  const cut = f.columns
+    .filter((c, i) => measureRow([c.cell(fact).map(condensed)], [f.widths[i]], [c.maxLines], f.style).cut)
+    .map((c) => c.header.toLowerCase());
   if (detailCut) cut.push('findings and notes');
   const label = `Old way ${fact.way.reference} on the ${LABEL.toLowerCase()}`;
-  ctx.warnings.add({ code: 'text-cut', label, message: `${label}: the ${cut.join(', ')} did not fit and ${cut.length === 1 ? 'was' : 'were'} cut short; a larger or landscape page holds more` });
+  ctx.warnings.add({
+    code: 'text-cut',
+    label,
+    message: `${label}: the ${cut.join(', ')} did not fit and ${cut.length === 1 ? 'was' : 'were'} cut short; a larger or landscape page holds more`,
+  });
 }
 
 export function layoutChangeover(ctx: Ctx): LayoutDoc {
@@ -136,7 +196,12 @@ export function layoutChangeover(ctx: Ctx): LayoutDoc {
   const pager = new Pager(ctx, survey, facts, f);
   pager.newPage(true);
   facts.forEach((fact, i) => {
-    const row = measureRow(f.columns.map((c) => c.cell(fact).map(condensed)), f.widths, f.columns.map((c) => c.maxLines), f.style);
+    const row = measureRow(
+      f.columns.map((c) => c.cell(fact).map(condensed)),
+      f.widths,
+      f.columns.map((c) => c.maxLines),
+      f.style,
+    );
     const lines = detailLines(fact).map(condensed);
     const detail = lines.length ? measureRow([[], lines], f.detailWidths, [0, 40], f.style) : null;
     if (row.cut || detail?.cut) cutWarning(ctx, f, fact, detail?.cut ?? false);
@@ -145,14 +210,22 @@ export function layoutChangeover(ctx: Ctx): LayoutDoc {
   const { content, k } = f;
   pager.y += 2 * k;
   const others = otherFindings(ctx, facts.length);
-  if (others.length) pager.block((y) => stack([{ text: 'Findings on the survey as a whole', face: 'bold', sizePt: 8.5 * k, maxLines: 1 }], content.x, y, content.w, ctx, 'left', LABEL));
-  for (const p of others) pager.block((y) => stack([{ text: p.text, face: p.face, sizePt: 7 * k, color: p.color, maxLines: 6 }], content.x, y, content.w, ctx, 'left', LABEL));
+  if (others.length)
+    pager.block((y) =>
+      stack([{ text: 'Findings on the survey as a whole', face: 'bold', sizePt: 8.5 * k, maxLines: 1 }], content.x, y, content.w, ctx, 'left', LABEL),
+    );
+  for (const p of others)
+    pager.block((y) => stack([{ text: p.text, face: p.face, sizePt: 7 * k, color: p.color, maxLines: 6 }], content.x, y, content.w, ctx, 'left', LABEL));
   pager.y += 1.5 * k;
   pager.block((y) => cautionBlock(ctx, survey, content.x, y, content.w, k));
   const pages: LayoutPage[] = pager.pages.map((items, i) => ({
-    widthMm: f.w, heightMm: f.h,
-    items: [...items, { kind: 'line', from: { x: content.x, y: f.bottom + 0.8 }, to: { x: content.x + content.w, y: f.bottom + 0.8 }, lineMm: 0.2, color: GREY },
-      ...stack(footerLines(ctx, survey, k, i + 1, pager.pages.length), content.x, f.bottom + 1.5, content.w, ctx, 'left', LABEL).items],
+    widthMm: f.w,
+    heightMm: f.h,
+    items: [
+      ...items,
+      { kind: 'line', from: { x: content.x, y: f.bottom + 0.8 }, to: { x: content.x + content.w, y: f.bottom + 0.8 }, lineMm: 0.2, color: GREY },
+      ...stack(footerLines(ctx, survey, k, i + 1, pager.pages.length), content.x, f.bottom + 1.5, content.w, ctx, 'left', LABEL).items,
+    ],
   }));
   return { title: `${ctx.req.board.code} changeover schedule`, pages, warnings: ctx.warnings.list };
 }

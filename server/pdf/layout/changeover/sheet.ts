@@ -35,7 +35,9 @@ function surveyLines(ctx: Ctx, survey: Survey, facts: WayFacts[], k: number): Li
     ...(boxes ? [line(`Junction boxes: ${boxes}`)] : []),
     ...(survey.notes ? [line(`Survey notes: ${survey.notes}`, { maxLines: 4 })] : []),
     line(summary(facts), { face: 'bold', maxLines: 2 }),
-    ...(ctx.req.schedule.board.alternativeSupply.present ? [line('This board has more than one source of supply: isolate every source before work.', { face: 'bold' })] : []),
+    ...(ctx.req.schedule.board.alternativeSupply.present
+      ? [line('This board has more than one source of supply: isolate every source before work.', { face: 'bold' })]
+      : []),
   ];
 }
 
@@ -43,12 +45,26 @@ function surveyLines(ctx: Ctx, survey: Survey, facts: WayFacts[], k: number): Li
 export function firstPageHeader(ctx: Ctx, survey: Survey, facts: WayFacts[], box: Box, k: number): Placed {
   const { board, schedule } = ctx.req;
   const contractorW = Math.min(62 * k, box.w * 0.36);
-  const left = stack([
-    { text: LABEL, face: 'bold', sizePt: 15 * k, maxLines: 1 },
-    { text: schedule.board.name, face: 'bold', sizePt: 11 * k, maxLines: 2 },
-    { text: schedule.board.location, face: 'regular', sizePt: 8 * k, maxLines: 2 },
-    { text: `Board ${board.code} · revision ${board.revision} of ${printedDate(board.revisionDate)}`, face: 'regular', sizePt: 7.5 * k, color: GREY, maxLines: 1 },
-  ].filter((l) => l.text) as Line[], box.x, box.y, box.w - contractorW - 3, ctx, 'left', LABEL);
+  const left = stack(
+    [
+      { text: LABEL, face: 'bold', sizePt: 15 * k, maxLines: 1 },
+      { text: schedule.board.name, face: 'bold', sizePt: 11 * k, maxLines: 2 },
+      { text: schedule.board.location, face: 'regular', sizePt: 8 * k, maxLines: 2 },
+      {
+        text: `Board ${board.code} · revision ${board.revision} of ${printedDate(board.revisionDate)}`,
+        face: 'regular',
+        sizePt: 7.5 * k,
+        color: GREY,
+        maxLines: 1,
+      },
+    ].filter((l) => l.text) as Line[],
+    box.x,
+    box.y,
+    box.w - contractorW - 3,
+    ctx,
+    'left',
+    LABEL,
+  );
   const contractor = contractorBlock(ctx, { x: box.x + box.w - contractorW, y: box.y, w: contractorW, h: 30 }, k, LABEL);
   const top = Math.max(left.bottom, contractor.bottom) + 2 * k;
   const info = stack(surveyLines(ctx, survey, facts, k), box.x, top, box.w, ctx, 'left', LABEL);
@@ -68,7 +84,12 @@ export function footerLines(ctx: Ctx, survey: Survey, k: number, page: number, p
   const b = ctx.req.board;
   const meta = `${LABEL} · ${ctx.req.schedule.board.name} · board ${b.code} · revision ${b.revision} of ${printedDate(b.revisionDate)} · ${ctx.req.contractor.name} · page ${page} of ${pages}`;
   return [
-    { text: `Isolate and prove dead before work. Readings are as found on the old board on ${surveyDate(survey)}: take them again after the changeover.`, face: 'bold', sizePt: 6.5 * k, maxLines: 2 },
+    {
+      text: `Isolate and prove dead before work. Readings are as found on the old board on ${surveyDate(survey)}: take them again after the changeover.`,
+      face: 'bold',
+      sizePt: 6.5 * k,
+      maxLines: 2,
+    },
     { text: meta, face: 'regular', sizePt: 6 * k, color: GREY, maxLines: 2 },
   ];
 }
@@ -78,12 +99,26 @@ export function cautionBlock(ctx: Ctx, survey: Survey, x: number, y: number, w: 
   const pad = 2 * k;
   const size = 7.5 * k;
   const body = (text: string): Line => ({ text, face: 'regular', sizePt: size, maxLines: 4 });
-  const text = stack([
-    { text: 'Caution: before, during and after the changeover', face: 'bold', sizePt: 9 * k, maxLines: 2 },
-    body('Isolate the supply and prove dead with a tester proved on a known source before any work, on the old board and the new. Lock off the means of isolation and keep the key, so no one can switch it back on.'),
-    body(`The readings in this schedule were taken on the old board as found on ${surveyDate(survey)}. They describe the old installation only: test every circuit again on the new board after the changeover, before it is put into service.`),
-    body('Follow BS 7671 and the local codes that apply; the work is for competent persons, licensed where the law asks it. The findings help and do not replace the judgement of the designer and the inspector.'),
-  ], x + pad, y + pad, w - 2 * pad, ctx, 'left', LABEL);
+  const text = stack(
+    [
+      { text: 'Caution: before, during and after the changeover', face: 'bold', sizePt: 9 * k, maxLines: 2 },
+      body(
+        'Isolate the supply and prove dead with a tester proved on a known source before any work, on the old board and the new. Lock off the means of isolation and keep the key, so no one can switch it back on.',
+      ),
+      body(
+        `The readings in this schedule were taken on the old board as found on ${surveyDate(survey)}. They describe the old installation only: test every circuit again on the new board after the changeover, before it is put into service.`,
+      ),
+      body(
+        'Follow BS 7671 and the local codes that apply; the work is for competent persons, licensed where the law asks it. The findings help and do not replace the judgement of the designer and the inspector.',
+      ),
+    ],
+    x + pad,
+    y + pad,
+    w - 2 * pad,
+    ctx,
+    'left',
+    LABEL,
+  );
   const box: Item = { kind: 'rect', box: { x, y, w, h: text.bottom - y + pad * 0.5 }, stroke: BLACK, lineMm: 0.4 };
   return { items: [box, ...text.items], bottom: text.bottom + pad * 0.5 };
 }

@@ -7,7 +7,11 @@ import { deviceKindName, hasOwnRcd, rcdFor, rcdNames, wayText } from '../../../.
 import type { Circuit, Device, Schedule } from '../../../../shared/schemas/schedule.js';
 import { GREY, RED, type Color, type FontFace } from '../../model.js';
 
-export interface Paragraph { text: string; face: FontFace; color?: Color }
+export interface Paragraph {
+  text: string;
+  face: FontFace;
+  color?: Color;
+}
 
 /** Facts every row needs, computed once per chart (not per row). */
 export interface ChartFacts {
@@ -17,14 +21,23 @@ export interface ChartFacts {
   maxZs: Record<string, number | null> | undefined;
 }
 
-export interface Column { header: string; weight: number; maxLines: number; cell: (c: Circuit, f: ChartFacts) => Paragraph[] }
+export interface Column {
+  header: string;
+  weight: number;
+  maxLines: number;
+  cell: (c: Circuit, f: ChartFacts) => Paragraph[];
+}
 
 export function chartFacts(schedule: Schedule, maxZs: Record<string, number | null> | undefined): ChartFacts {
   return { devices: new Map(schedule.devices.map((d) => [d.id, d])), rcds: rcdFor(schedule), rcdNames: rcdNames(schedule), maxZs };
 }
 
 const CABLE_NAMES: Record<Circuit['cable']['type'], string> = {
-  'twin-earth': 'Twin & earth', swa: 'SWA', 'singles-conduit': 'Singles in conduit', flex: 'Flex', other: 'Other',
+  'twin-earth': 'Twin & earth',
+  swa: 'SWA',
+  'singles-conduit': 'Singles in conduit',
+  flex: 'Flex',
+  other: 'Other',
 };
 const dash = (): Paragraph[] => [{ text: '—', face: 'regular', color: GREY }];
 /**
@@ -37,14 +50,19 @@ function deviceCell(c: Circuit, f: ChartFacts): Paragraph[] {
   const d = c.deviceId ? f.devices.get(c.deviceId) : undefined;
   if (!d) return dash();
   const main = `${d.curve ?? ''}${d.rating ?? ''}` || deviceKindName(d);
-  const detail = [deviceKindName(d), d.poles > 1 ? `${d.poles}-pole` : '', d.breakingCapacityKa ? `${d.breakingCapacityKa} kA` : ''].filter(Boolean).join(' · ');
-  return [{ text: main, face: 'bold' }, { text: detail, face: 'regular' }];
+  const detail = [deviceKindName(d), d.poles > 1 ? `${d.poles}-pole` : '', d.breakingCapacityKa ? `${d.breakingCapacityKa} kA` : '']
+    .filter(Boolean)
+    .join(' · ');
+  return [
+    { text: main, face: 'bold' },
+    { text: detail, face: 'regular' },
+  ];
 }
 
 function rcdCell(c: Circuit, f: ChartFacts): Paragraph[] {
   const rcd = c.deviceId ? f.rcds.get(c.deviceId) : null;
   if (!rcd) return [{ text: 'None', face: 'regular', color: GREY }];
-  const name = hasOwnRcd(rcd) ? (rcd.kind === 'afdd' ? 'AFDD/RCBO' : 'RCBO') : f.rcdNames.get(rcd.id) ?? 'RCD';
+  const name = hasOwnRcd(rcd) ? (rcd.kind === 'afdd' ? 'AFDD/RCBO' : 'RCBO') : (f.rcdNames.get(rcd.id) ?? 'RCD');
   const details = [rcd.residualMa != null ? `${rcd.residualMa} mA` : '', rcd.rcdType ? `Type ${rcd.rcdType}` : ''].filter(Boolean);
   return [{ text: name, face: 'bold' }, ...details.map((text) => ({ text, face: 'regular' as const }))];
 }
@@ -52,8 +70,13 @@ function rcdCell(c: Circuit, f: ChartFacts): Paragraph[] {
 function cableCell(c: Circuit): Paragraph[] {
   const k = c.cable;
   const size = k.liveCsa != null ? `${k.liveCsa}${k.cpcCsa != null ? `/${k.cpcCsa}` : ''} mm²` : 'Size not recorded';
-  const detail = [CABLE_NAMES[k.type], k.referenceMethod ? `method ${k.referenceMethod}` : '', k.lengthM != null ? `${k.lengthM} m` : ''].filter(Boolean).join(' · ');
-  return [{ text: size, face: k.liveCsa != null ? 'bold' : 'regular' }, { text: detail, face: 'regular' }];
+  const detail = [CABLE_NAMES[k.type], k.referenceMethod ? `method ${k.referenceMethod}` : '', k.lengthM != null ? `${k.lengthM} m` : '']
+    .filter(Boolean)
+    .join(' · ');
+  return [
+    { text: size, face: k.liveCsa != null ? 'bold' : 'regular' },
+    { text: detail, face: 'regular' },
+  ];
 }
 
 function zsCell(c: Circuit, f: ChartFacts): Paragraph[] {
@@ -61,7 +84,12 @@ function zsCell(c: Circuit, f: ChartFacts): Paragraph[] {
   if (measured == null) return dash();
   const max = f.maxZs?.[c.id];
   const over = max != null && c.measuredZs! > max;
-  return over ? [{ text: measured, face: 'bold', color: RED }, { text: 'over max', face: 'regular', color: RED }] : [{ text: measured, face: 'regular' }];
+  return over
+    ? [
+        { text: measured, face: 'bold', color: RED },
+        { text: 'over max', face: 'regular', color: RED },
+      ]
+    : [{ text: measured, face: 'regular' }];
 }
 
 /** Whether the schedule alone says this way feeds another board (a sub-main, or a link to the board it feeds). */
@@ -82,10 +110,26 @@ function circuitCell(c: Circuit): Paragraph[] {
 export const chartColumns: Column[] = [
   { header: 'Way', weight: 0, maxLines: 2, cell: (c) => [{ text: wayText(c), face: 'bold' }] },
   { header: 'Circuit', weight: 34, maxLines: 12, cell: circuitCell },
-  { header: 'Locations', weight: 17, maxLines: 6, cell: (c) => [...(c.locations.length ? [{ text: c.locations.join(', '), face: 'regular' as const }] : []), ...(c.points != null ? [{ text: `${c.points} point${c.points === 1 ? '' : 's'}`, face: 'regular' as const, color: GREY }] : [])] },
+  {
+    header: 'Locations',
+    weight: 17,
+    maxLines: 6,
+    cell: (c) => [
+      ...(c.locations.length ? [{ text: c.locations.join(', '), face: 'regular' as const }] : []),
+      ...(c.points != null ? [{ text: `${c.points} point${c.points === 1 ? '' : 's'}`, face: 'regular' as const, color: GREY }] : []),
+    ],
+  },
   { header: 'Device', weight: 13, maxLines: 4, cell: deviceCell },
   { header: 'RCD', weight: 12, maxLines: 3, cell: rcdCell },
   { header: 'Cable', weight: 17, maxLines: 4, cell: cableCell },
-  { header: 'Max Zs (Ω)', weight: 9, maxLines: 2, cell: (c, f) => { const v = ohms(f.maxZs?.[c.id]); return v ? [{ text: v, face: 'regular' }] : dash(); } },
+  {
+    header: 'Max Zs (Ω)',
+    weight: 9,
+    maxLines: 2,
+    cell: (c, f) => {
+      const v = ohms(f.maxZs?.[c.id]);
+      return v ? [{ text: v, face: 'regular' }] : dash();
+    },
+  },
   { header: 'Zs (Ω)', weight: 8.5, maxLines: 3, cell: zsCell },
 ];

@@ -26,9 +26,14 @@ export class ChartPager {
   y = 0;
   private tableTop: number | null = null;
 
-  constructor(private readonly ctx: LayoutContext<'chart'>, private readonly frame: ChartFrame) {}
+  constructor(
+    private readonly ctx: LayoutContext<'chart'>,
+    private readonly frame: ChartFrame,
+  ) {}
 
-  private get items(): Item[] { return this.pages[this.pages.length - 1]; }
+  private get items(): Item[] {
+    return this.pages[this.pages.length - 1];
+  }
 
   /** Begin a page: the full header on the first, one line after; then the table header row if asked. */
   newPage(withTable: boolean): void {
@@ -55,7 +60,10 @@ export class ChartPager {
   /** A block laid out by `place(y)` (returning its items and bottom), moved to a new page if it overruns. */
   block(place: (y: number) => { items: Item[]; bottom: number }): void {
     let placed = place(this.y);
-    if (placed.bottom > this.frame.bottom) { this.newPage(false); placed = place(this.y); }
+    if (placed.bottom > this.frame.bottom) {
+      this.newPage(false);
+      placed = place(this.y);
+    }
     this.items.push(...placed.items);
     this.y = placed.bottom;
   }

@@ -6,10 +6,23 @@ import { BLACK, GREY, LIGHT_GREY, MM_PER_PT, type Box, type Color, type FontFace
 import { blockHeight, wrapText, type FitStyle } from '../fit.js';
 import type { Paragraph } from './columns.js';
 
-export interface TableStyle { sizePt: number; padMm: number; wayWidthMm: number; tm: TypeMetrics }
+export interface TableStyle {
+  sizePt: number;
+  padMm: number;
+  wayWidthMm: number;
+  tm: TypeMetrics;
+}
 
-export interface CellLines { face: FontFace; color?: Color; lines: string[] }
-export interface MeasuredRow { cells: CellLines[][]; heightMm: number; cut: boolean }
+export interface CellLines {
+  face: FontFace;
+  color?: Color;
+  lines: string[];
+}
+export interface MeasuredRow {
+  cells: CellLines[][];
+  heightMm: number;
+  cut: boolean;
+}
 
 const LINE_SPACING = 1.2;
 const ROW_SHADE: Color = [0.955, 0.955, 0.955];
@@ -34,7 +47,10 @@ export function measureRow(cells: Paragraph[][], widths: number[], maxLines: num
     let left = maxLines[i];
     const out: CellLines[] = [];
     for (const p of paragraphs) {
-      if (left <= 0) { cut = true; break; }
+      if (left <= 0) {
+        cut = true;
+        break;
+      }
       const wrapped = wrapText(p.text, widths[i] - 2 * s.padMm, p.face, s.sizePt, s.tm, left);
       cut ||= wrapped.cut;
       left -= wrapped.lines.length;
@@ -55,8 +71,18 @@ function cellRuns(cell: CellLines[], box: Box, s: TableStyle): TextRun[] {
   for (const p of cell) {
     for (const text of p.lines) {
       runs.push({
-        kind: 'text', text, face: p.face, sizePt: s.sizePt, x: box.x + s.padMm, y: box.y + s.padMm + s.tm.ascent * em + n * LINE_SPACING * em,
-        rotation: 0, color: p.color ?? BLACK, cell: box, widthMm: s.tm.measure(text, p.face, s.sizePt), ascentMm: s.tm.ascent * em, descentMm: s.tm.descent * em,
+        kind: 'text',
+        text,
+        face: p.face,
+        sizePt: s.sizePt,
+        x: box.x + s.padMm,
+        y: box.y + s.padMm + s.tm.ascent * em + n * LINE_SPACING * em,
+        rotation: 0,
+        color: p.color ?? BLACK,
+        cell: box,
+        widthMm: s.tm.measure(text, p.face, s.sizePt),
+        ascentMm: s.tm.ascent * em,
+        descentMm: s.tm.descent * em,
       });
       n++;
     }
@@ -74,7 +100,13 @@ export function rowItems(row: MeasuredRow, x: number, y: number, widths: number[
     items.push(...cellRuns(cell, { x: cx, y, w: widths[i], h: row.heightMm }, s));
     cx += widths[i];
   });
-  items.push({ kind: 'line', from: { x, y: y + row.heightMm }, to: { x: x + total, y: y + row.heightMm }, lineMm: header ? 0.3 : 0.1, color: header ? BLACK : LIGHT_GREY });
+  items.push({
+    kind: 'line',
+    from: { x, y: y + row.heightMm },
+    to: { x: x + total, y: y + row.heightMm },
+    lineMm: header ? 0.3 : 0.1,
+    color: header ? BLACK : LIGHT_GREY,
+  });
   return items;
 }
 

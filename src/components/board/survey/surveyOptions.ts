@@ -3,8 +3,16 @@
  * trade's terms. New survey items start from here with what is usual on an old domestic board.
  */
 import {
-  fuseStandards, identificationMethods, oldDeviceKinds, planActions, surveyWaySchema,
-  type IdentificationMethod, type OldDeviceKind, type PlanAction, type PlannedWay, type SurveyWay,
+  fuseStandards,
+  identificationMethods,
+  oldDeviceKinds,
+  planActions,
+  surveyWaySchema,
+  type IdentificationMethod,
+  type OldDeviceKind,
+  type PlanAction,
+  type PlannedWay,
+  type SurveyWay,
 } from '../../../../shared/schemas/survey.js';
 import { newItemId } from '../../../stores/board.js';
 
@@ -17,7 +25,11 @@ export const identificationNames: Record<IdentificationMethod, string> = {
 };
 export const oldDeviceNames: Record<OldDeviceKind, string> = { fuse: 'Fuse', mcb: 'MCB', rcbo: 'RCBO', none: 'None' };
 export const actionNames: Record<PlanAction, string> = {
-  keep: 'Keep: one new way', split: 'Split: several new ways', join: 'Join: shares a new way', retire: 'Retire', spare: 'Leave spare',
+  keep: 'Keep: one new way',
+  split: 'Split: several new ways',
+  join: 'Join: shares a new way',
+  retire: 'Retire',
+  spare: 'Leave spare',
 };
 
 export const identificationOptions = identificationMethods.map((value) => ({ value, label: identificationNames[value] }));
@@ -34,7 +46,11 @@ export function newSurveyWay(count: number): SurveyWay {
 export function newTarget(way: SurveyWay, nextWay: number): PlannedWay {
   const label = (way.feeds.split(/[,:;]/)[0] ?? '').trim().slice(0, 24) || `Way ${nextWay}`;
   return {
-    circuitId: newItemId('c'), way: nextWay, phase: null, label, kind: way.kind,
+    circuitId: newItemId('c'),
+    way: nextWay,
+    phase: null,
+    label,
+    kind: way.kind,
     device: { kind: 'rcbo', rating: null, curve: 'B', residualMa: 30, rcdType: 'A', rcdGroup: null },
     legs: Array.from({ length: way.legs }, (_, i) => ({ leg: i + 1, junctionBoxId: null })),
   };
