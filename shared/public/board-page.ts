@@ -6,7 +6,8 @@
  */
 import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
 import type { PublicBoard, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
-import { circuitsInWayOrder, deviceKindName, deviceShortText, hasOwnRcd, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
+import { deviceKindName, deviceShortText, feedsAnotherBoard, hasOwnRcd, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
+import { boardWays, type SpareWay } from '../schedule/ways.js';
 import { boardCautions } from './cautions.js';
 import { supplyVoltages, supplyVoltageText } from '../schedule/voltage.js';
 
@@ -53,15 +54,25 @@ function publicWay(c: Circuit, devices: Map<string, Device>, rcds: Map<string, D
     rcd: c.deviceId ? wayRcd(rcds.get(c.deviceId), names) : null,
     notes: c.notesPublic ? c.notes : '',
     feedsAnotherBoard: feedsAnotherBoard(c),
+    spare: false,
   };
 }
 
-/**
- * A sub-main takes a whole board with it. Only the schedule's own facts are used (the kind, or the
- * link to the board it feeds); the other board is not read, so the page costs no extra query.
- */
-function feedsAnotherBoard(c: Circuit): boolean {
-  return c.kind === 'sub-main' || c.feedsBoardId != null;
+/** A spare way as a visitor sees it: numbered, called Spare, with its device and RCD. */
+function publicSpare(s: SpareWay, rcds: Map<string, Device | null>, names: Map<string, string>): PublicWay {
+  return {
+    way: s.way,
+    phase: s.phase,
+    wayText: s.wayText,
+    label: 'Spare',
+    description: '',
+    locations: [],
+    device: publicDeviceText(s.device),
+    rcd: wayRcd(rcds.get(s.device.id), names),
+    notes: '',
+    feedsAnotherBoard: false,
+    spare: true,
+  };
 }
 
 function publicRcdGroups(schedule: Schedule): PublicRcdGroup[] {
@@ -101,7 +112,7 @@ export function toPublicBoard(schedule: Schedule, meta: PublicBoardMeta): Public
         description: board.alternativeSupply.description,
       },
     },
-    ways: circuitsInWayOrder(schedule).map((c) => publicWay(c, devices, rcds, names)),
+    ways: boardWays(schedule).map((w) => (w.kind === 'circuit' ? publicWay(w.circuit, devices, rcds, names) : publicSpare(w.spare, rcds, names))),
     rcdGroups: publicRcdGroups(schedule),
     inspection: { lastOn: board.lastInspectionOn, nextOn: meta.nextInspectionOn },
     revision: { number: meta.revision, date: meta.revisionDate },

@@ -128,6 +128,14 @@ export function circuitRcd(schedule: Schedule, circuit: Circuit, rcds = rcdFor(s
   return rcds.get(circuit.deviceId) ?? null;
 }
 
+/**
+ * Whether the schedule alone says this way feeds another board (a sub-main, or a link to the board
+ * it feeds): switching it off takes a whole board with it. The other board is not read.
+ */
+export function feedsAnotherBoard(c: Pick<Circuit, 'kind' | 'feedsBoardId'>): boolean {
+  return c.kind === 'sub-main' || c.feedsBoardId != null;
+}
+
 /** Way as printed: "7", or "3 L2" on a three-phase board. */
 export function wayText(c: Pick<Circuit, 'way' | 'phase'>): string {
   return c.phase ? `${c.way} ${c.phase}` : String(c.way);

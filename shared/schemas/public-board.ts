@@ -15,7 +15,8 @@ export const publicWayRcdSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const publicWaySchema = z.object({
-  way: z.number().int(),
+  /** Null only for a spare way the schedule gives no number. */
+  way: z.number().int().nullable(),
   phase: z.enum(phases).nullable(),
   /** As printed on the labels: "7", or "3 L2" on a three-phase board. */
   wayText: z.string(),
@@ -29,6 +30,8 @@ export const publicWaySchema = z.object({
   notes: z.string(),
   /** A sub-main: switching it off or a trip takes everything on the board it feeds with it. */
   feedsAnotherBoard: z.boolean(),
+  /** A spare way: a device on the rail that feeds no circuit yet (its label is "Spare"). */
+  spare: z.boolean(),
 });
 
 /** "If RCD 1 trips, these go off." */

@@ -13,7 +13,8 @@ const isString = (v: unknown): v is string => typeof v === 'string';
 function looksLikeWay(v: unknown): boolean {
   return (
     isObject(v) &&
-    typeof v.way === 'number' &&
+    (typeof v.way === 'number' || v.way === null) &&
+    typeof v.spare === 'boolean' &&
     isString(v.wayText) &&
     isString(v.label) &&
     isString(v.description) &&

@@ -9,6 +9,7 @@ import { BLACK, type Box, type Item, type LayoutDoc } from '../model.js';
 import { TAPE_MAX_LENGTH_MM } from '../media.js';
 import type { LayoutContext } from './context.js';
 import { placePieces, slotFor, slotMaxLength, type Piece } from './place.js';
+import { spareWays } from '../../../shared/schedule/ways.js';
 import { cellItems, cellSizes, type CellCaps, type CellText, type RowCaps } from './way-cell.js';
 
 /** Strip height when tiled on a plain sheet (mm), unless the option says otherwise. // common practice */
@@ -71,38 +72,6 @@ function textFor(d: Device, circuits: Circuit[], rcds: Map<string, string>, spar
     device: deviceShortText(d),
     main: labels.length ? labels.join(' / ') : 'Spare',
   };
-}
-
-const PHASE_ORDER = ['L1', 'L2', 'L3'] as const;
-
-/**
- * Way numbers for protective devices with no circuit (spare ways), from the way before them on the
- * rail: the next phase of the same way on a three-phase board, else the next way. Left blank when
- * that number is already some circuit's, or there is no way before to count from.
- */
-export function spareWays(schedule: Schedule, byDevice: Map<string, Circuit[]>): Map<string, string> {
-  const used = new Set(schedule.circuits.map((c) => wayText(c)));
-  const out = new Map<string, string>();
-  let last: Pick<Circuit, 'way' | 'phase'> | null = null;
-  for (const d of [...schedule.devices].sort((a, b) => a.row - b.row)) {
-    if (d.kind !== 'mcb' && d.kind !== 'rcbo' && d.kind !== 'afdd') continue;
-    const circuits = byDevice.get(d.id) ?? [];
-    if (circuits.length) {
-      last = circuitsSorted(circuits)[circuits.length - 1];
-      continue;
-    }
-    if (!last) continue;
-    const i = last.phase ? PHASE_ORDER.indexOf(last.phase as (typeof PHASE_ORDER)[number]) : -1;
-    const next: Pick<Circuit, 'way' | 'phase'> =
-      i >= 0 && i < 2 ? { way: last.way, phase: PHASE_ORDER[i + 1] } : { way: last.way + 1, phase: i === 2 ? 'L1' : null };
-    last = next;
-    if (!used.has(wayText(next))) out.set(d.id, wayText(next));
-  }
-  return out;
-}
-
-function circuitsSorted(cs: Circuit[]): Circuit[] {
-  return [...cs].sort((a, b) => a.way - b.way || (a.phase ?? '').localeCompare(b.phase ?? ''));
 }
 
 /**
@@ -209,7 +178,7 @@ export function wayLabelPlan(ctx: LayoutContext<'way-labels'>): StripPlan {
   const byDevice = circuitsByDevice(schedule);
   const rcds = rcdNames(schedule);
   const devices = new Map(schedule.devices.map((d) => [d.id, d]));
-  const spares = spareWays(schedule, byDevice);
+  const spares = new Map(spareWays(schedule, byDevice).map((s) => [s.device.id, s.wayText]));
   const texts = new Map(schedule.devices.map((d) => [d.id, textFor(d, byDevice.get(d.id) ?? [], rcds, spares.get(d.id) ?? '')]));
   const only = ctx.req.onlyWays ? new Set(ctx.req.onlyWays) : null;
   const rows = [...new Set(schedule.devices.map((d) => d.row))].sort((a, b) => a - b);

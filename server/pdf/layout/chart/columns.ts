@@ -3,7 +3,8 @@
  * after). BS 7671 514.9.1 wants, per circuit, its type, points served, conductors and wiring type,
  * and how each protective device is identified: the columns follow that.
  */
-import { deviceKindName, hasOwnRcd, rcdFor, rcdNames, wayText } from '../../../../shared/schedule/derive.js';
+import { deviceKindName, feedsAnotherBoard, hasOwnRcd, rcdFor, rcdNames, wayText } from '../../../../shared/schedule/derive.js';
+import type { SpareWay } from '../../../../shared/schedule/ways.js';
 import type { Circuit, Device, Schedule } from '../../../../shared/schemas/schedule.js';
 import { GREY, RED, type Color, type FontFace } from '../../model.js';
 
@@ -46,7 +47,7 @@ const dash = (): Paragraph[] => [{ text: '—', face: 'regular', color: GREY }];
  */
 export const ohms = (v: number | null | undefined) => (v == null ? null : v >= 100 ? Math.round(v).toFixed(0) : v >= 10 ? v.toFixed(1) : v.toFixed(2));
 
-function deviceCell(c: Circuit, f: ChartFacts): Paragraph[] {
+function deviceCell(c: Pick<Circuit, 'deviceId'>, f: ChartFacts): Paragraph[] {
   const d = c.deviceId ? f.devices.get(c.deviceId) : undefined;
   if (!d) return dash();
   const main = `${d.curve ?? ''}${d.rating ?? ''}` || deviceKindName(d);
@@ -59,7 +60,7 @@ function deviceCell(c: Circuit, f: ChartFacts): Paragraph[] {
   ];
 }
 
-function rcdCell(c: Circuit, f: ChartFacts): Paragraph[] {
+function rcdCell(c: Pick<Circuit, 'deviceId'>, f: ChartFacts): Paragraph[] {
   const rcd = c.deviceId ? f.rcds.get(c.deviceId) : null;
   if (!rcd) return [{ text: 'None', face: 'regular', color: GREY }];
   const name = hasOwnRcd(rcd) ? (rcd.kind === 'afdd' ? 'AFDD/RCBO' : 'RCBO') : (f.rcdNames.get(rcd.id) ?? 'RCD');
@@ -90,11 +91,6 @@ function zsCell(c: Circuit, f: ChartFacts): Paragraph[] {
         { text: 'over max', face: 'regular', color: RED },
       ]
     : [{ text: measured, face: 'regular' }];
-}
-
-/** Whether the schedule alone says this way feeds another board (a sub-main, or a link to the board it feeds). */
-export function feedsAnotherBoard(c: Circuit): boolean {
-  return c.kind === 'sub-main' || c.feedsBoardId != null;
 }
 
 function circuitCell(c: Circuit): Paragraph[] {
@@ -133,3 +129,18 @@ export const chartColumns: Column[] = [
   },
   { header: 'Zs (Ω)', weight: 8.5, maxLines: 3, cell: zsCell },
 ];
+
+/**
+ * A spare way's row: its number, "Spare", and the device waiting on the rail (with its RCD, since
+ * whoever puts a circuit on it needs to know); nothing else is known of a way with no circuit.
+ */
+export function spareRow(s: SpareWay, f: ChartFacts): Paragraph[][] {
+  const at = { deviceId: s.device.id };
+  const cells: Record<string, Paragraph[]> = {
+    Way: s.wayText ? [{ text: s.wayText, face: 'bold' }] : dash(),
+    Circuit: [{ text: 'Spare', face: 'bold' }],
+    Device: deviceCell(at, f),
+    RCD: rcdCell(at, f),
+  };
+  return chartColumns.map((col) => cells[col.header] ?? []);
+}

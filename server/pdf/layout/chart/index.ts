@@ -4,13 +4,14 @@
  * findings, and on every page the caution, the revision and the page number.
  */
 import { isSurveyFinding } from '../../../../shared/rules/types.js';
-import { circuitsInWayOrder, wayText } from '../../../../shared/schedule/derive.js';
+import { wayText } from '../../../../shared/schedule/derive.js';
+import { boardWays } from '../../../../shared/schedule/ways.js';
 import { waysText } from '../../../../shared/rules/index.js';
 import { BLACK, GREY, RED, type Box, type LayoutDoc, type LayoutPage } from '../../model.js';
 import { LayoutError } from '../../types.js';
 import type { LayoutContext } from '../context.js';
 import { overdueInspection, printedDate } from '../dates.js';
-import { chartColumns, chartFacts, type Paragraph } from './columns.js';
+import { chartColumns, chartFacts, spareRow, type Paragraph } from './columns.js';
 import { stack, type Line } from './header.js';
 import { ChartPager, type ChartFrame } from './pages.js';
 import { columnWidths, measureRow, type TableStyle } from './table.js';
@@ -96,14 +97,15 @@ export function layoutChart(ctx: LayoutContext<'chart'>): LayoutDoc {
   const maxLines = chartColumns.map((c) => c.maxLines);
   const pager = new ChartPager(ctx, frame);
   pager.newPage(true);
-  circuitsInWayOrder(ctx.req.schedule).forEach((c, i) => {
+  boardWays(ctx.req.schedule).forEach((w, i) => {
+    const cells = w.kind === 'circuit' ? chartColumns.map((col) => col.cell(w.circuit, facts)) : spareRow(w.spare, facts);
     const row = measureRow(
-      chartColumns.map((col) => col.cell(c, facts).map(condensed)),
+      cells.map((cell) => cell.map(condensed)),
       frame.widths,
       maxLines,
       frame.style,
     );
-    if (row.cut) ctx.warnings.cut(`Way ${wayText(c)} on the chart`, c.description || c.label);
+    if (row.cut && w.kind === 'circuit') ctx.warnings.cut(`Way ${wayText(w.circuit)} on the chart`, w.circuit.description || w.circuit.label);
     pager.row(row, i % 2 === 1);
   });
   pager.endTable();
