@@ -135,6 +135,8 @@ export interface NewBoard {
   siteId: number | null;
   code: string;
   publicToken: string;
+  /** Whether the board page answers its QR code from the start. */
+  publicEnabled: boolean;
   schedule: Schedule;
   searchText: string;
 }
@@ -147,6 +149,7 @@ export async function insertBoard(db: Db, b: NewBoard): Promise<number> {
       siteId: b.siteId,
       code: b.code,
       publicToken: b.publicToken,
+      publicEnabled: b.publicEnabled,
       name: b.schedule.board.name,
       location: b.schedule.board.location,
       schedule: b.schedule,

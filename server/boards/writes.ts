@@ -49,8 +49,19 @@ export async function checkFeedsBoardIds(
   if (Object.keys(fields).length) throw invalid('A sub-main names a board that is not one of yours', fields);
 }
 
-/** Inserts a board and its revision 1, in one transaction; retries on the rare clash of a random code. */
-export async function createBoardRecord(db: Db, actor: Actor, schedule: Schedule, siteId: number | null, summary: string): Promise<number> {
+/**
+ * Inserts a board and its revision 1, in one transaction; retries on the rare clash of a random code.
+ * A new board's page is off until the electrician switches it on (the schedule is not public by
+ * accident); only the demo seed starts with it on, so its printed tags open something.
+ */
+export async function createBoardRecord(
+  db: Db,
+  actor: Actor,
+  schedule: Schedule,
+  siteId: number | null,
+  summary: string,
+  { publicEnabled = false }: { publicEnabled?: boolean } = {},
+): Promise<number> {
   for (let attempt = 1; ; attempt++) {
     const code = newBoardCode();
     try {
@@ -60,6 +71,7 @@ export async function createBoardRecord(db: Db, actor: Actor, schedule: Schedule
           siteId,
           code,
           publicToken: newPublicToken(),
+          publicEnabled,
           schedule,
           searchText: searchTextOf(schedule, code),
         });

@@ -52,7 +52,7 @@ export const seedDemoBoards: DemoBoardsSeeder = async (db: Db, organisationId: n
       const siteId = await insertSite(tx, organisationId, site);
       const ids = new Map<string, number>();
       for (const board of insertOrder(boards)) {
-        ids.set(board.key, await createBoardRecord(tx, actor, linkSubMains(board, boards, ids), siteId, 'Created'));
+        ids.set(board.key, await createBoardRecord(tx, actor, linkSubMains(board, boards, ids), siteId, 'Created', { publicEnabled: true }));
       }
     }
   });

@@ -31,7 +31,7 @@ describe('creating boards', () => {
     // ≥ 128 random bits: base64url carries 6 bits a character, so at least 22 characters
     expect(summary.publicToken).toMatch(/^[A-Za-z0-9_-]{22,}$/);
     expect(summary.revision).toBe(1);
-    expect(summary.publicEnabled).toBe(true);
+    expect(summary.publicEnabled).toBe(false); // a new board's page starts off
     const schedule = (await electrician.get(`/api/boards/${res.body.id}/schedule`).expect(200)).body;
     expect(schedule.circuits).toEqual([]);
     expect(schedule.revision).toBe(1);

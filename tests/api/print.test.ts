@@ -16,9 +16,11 @@ afterAll(async () => {
   await t.close();
 });
 
+/** A board whose page is switched on (a new board's starts off), so its tag and chart carry the QR code. */
 async function ownerWithBoard(schedule: Schedule = makeSchedule(6)) {
   const owner = await signupOwner(t.app);
   const board = await createBoardWith(owner, schedule);
+  await owner.patch(`/api/boards/${board.id}/public`, { enabled: true }).expect(200);
   const summary = await owner.get(`/api/boards/${board.id}`).expect(200);
   return { owner, id: board.id, code: summary.body.code as string, schedule };
 }
@@ -77,6 +79,18 @@ describe('printing each output of a stored board', () => {
     const res = await getPdf(owner, `/api/boards/${id}/pdf/way-labels?media=a4`).expect(200);
     const text = (await pdfPages(res.body)).join(' ');
     for (const c of schedule.circuits) expect(text.replace(/ /g, '')).toContain(c.label.replace(/ /g, ''));
+  });
+
+  it('when a new board tag is printed before its page is switched on, then the warning says the QR code was left off and how to get it', async () => {
+    const owner = await signupOwner(t.app);
+    const { id } = await createBoardWith(owner, makeSchedule(3));
+    const off = await owner.get(`/api/boards/${id}/pdf/tag/warnings?media=tape-24`).expect(200);
+    expect(off.body.warnings).toContainEqual(
+      expect.objectContaining({ code: 'qr-left-off', message: expect.stringContaining('switch the page on under Sharing') }),
+    );
+    await owner.patch(`/api/boards/${id}/public`, { enabled: true }).expect(200);
+    const on = await owner.get(`/api/boards/${id}/pdf/tag/warnings?media=tape-24`).expect(200);
+    expect(on.body.warnings.map((w: { code: string }) => w.code)).not.toContain('qr-left-off');
   });
 
   it('when a label cannot fit, then the warnings name it, in the header and in the warnings call alike', async () => {

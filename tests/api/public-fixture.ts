@@ -97,13 +97,17 @@ export interface StoredBoard {
   revision: number;
 }
 
-/** Creates a board (on a new marked site) through the API and saves the schedule into it. */
+/**
+ * Creates a board (on a new marked site) through the API, saves the schedule into it and switches
+ * its page on (a new board's page starts off).
+ */
 export async function createBoard(owner: Client, schedule: ScheduleInput = markedSchedule(), withSite = true): Promise<StoredBoard> {
   const siteId = withSite ? ((await owner.post('/api/sites', markedSite).expect(201)).body.id as number) : null;
   const created = await owner.post('/api/boards', { name: schedule.board.name, siteId }).expect(201);
   const id = created.body.id as number;
   const current = await owner.get(`/api/boards/${id}/schedule`).expect(200);
   const saved = await owner.put(`/api/boards/${id}/schedule`, { ...schedule, baseRevision: current.body.revision }).expect(200);
+  await owner.patch(`/api/boards/${id}/public`, { enabled: true }).expect(200);
   const summary = await owner.get(`/api/boards/${id}`).expect(200);
   return { id, token: summary.body.publicToken, code: summary.body.code, revision: saved.body.revision };
 }

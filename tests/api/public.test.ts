@@ -104,7 +104,8 @@ describe('the public board page data', () => {
     expect(page.supply).toMatchObject({ nominalVoltage: 230, betweenPhasesVoltage: 400, voltageText: '400/230 V (three-phase, 230 V to earth)' });
     // IET Guidance Note 3 (found in secondary sources; see docs/sources.md): industrial, 3 years from 8 November 2022. "Overdue" is the browser's call.
     expect(page.inspection).toEqual({ lastOn: '2022-11-08', nextOn: '2025-11-08' });
-    expect(page.ways.map((w) => w.wayText)).toEqual(['1', '2', '3', '4 L1', '4 L2', '4 L3', '5 L1', '5 L2']);
+    // 5 L3 is the workshop's spare way: a spare way is listed like any other.
+    expect(page.ways.map((w) => w.wayText)).toEqual(['1', '2', '3', '4 L1', '4 L2', '4 L3', '5 L1', '5 L2', '5 L3']);
   });
 
   it('when the board is switched from one phase to three, then the next read shows the 400 V caution (the projection is rebuilt)', async () => {
@@ -165,6 +166,20 @@ describe('the public board page data', () => {
     expect(off.body).toEqual({ error: { code: 'not_found', message: 'Not found' } });
     await owner.patch(`/api/boards/${board.id}/public`, { enabled: true }).expect(200);
     await request(t.app).get(`/api/public/boards/${board.token}`).expect(200);
+  });
+
+  it('when a board is created, imported or duplicated, then its page is off (404) until someone switches it on', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const created = (await owner.post('/api/boards', { name: 'Garage board', template: 'split-load-10' }).expect(201)).body.id as number;
+    const copy = (await owner.post(`/api/boards/${created}/duplicate`).expect(201)).body.id as number;
+    for (const id of [created, copy]) {
+      const summary = (await owner.get(`/api/boards/${id}`).expect(200)).body;
+      expect(summary.publicEnabled).toBe(false);
+      await request(t.app).get(`/api/public/boards/${summary.publicToken}`).expect(404);
+    }
+    await owner.patch(`/api/boards/${created}/public`, { enabled: true }).expect(200);
+    const token = (await owner.get(`/api/boards/${created}`).expect(200)).body.publicToken as string;
+    await request(t.app).get(`/api/public/boards/${token}`).expect(200);
   });
 
   it('when the board is deleted, then its page answers 404', async () => {

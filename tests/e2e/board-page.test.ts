@@ -43,6 +43,8 @@ async function storeDemoBoard(page: Page, contactEmail = uniqueEmail('office'), 
   const current = (await (await page.request.get(`/api/boards/${id}/schedule`)).json()) as { revision: number };
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: current.revision } });
   expect(saved.status()).toBe(200);
+  // A new board's page starts off: switch it on, as the electrician does on the sharing screen.
+  expect((await page.request.patch(`/api/boards/${id}/public`, { headers, data: { enabled: true } })).status()).toBe(200);
   const organisation = (await (await page.request.get('/api/organisation')).json()) as { revision: number };
   const contact = await page.request.put('/api/organisation', {
     headers,

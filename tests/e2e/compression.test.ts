@@ -134,6 +134,7 @@ describe('compressed responses', { timeout: 180_000 }, () => {
     const { id } = (await (await owner.request.post('/api/boards', { headers, data: { name: flatMain.board.name } })).json()) as { id: number };
     const current = (await (await owner.request.get(`/api/boards/${id}/schedule`)).json()) as { revision: number };
     expect((await owner.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...flatMain, baseRevision: current.revision } })).status()).toBe(200);
+    expect((await owner.request.patch(`/api/boards/${id}/public`, { headers, data: { enabled: true } })).status()).toBe(200); // a new board's page starts off
     const token = ((await (await owner.request.get(`/api/boards/${id}`)).json()) as { publicToken: string }).publicToken;
 
     const visitor = await app.newPage({ viewport: { width: 390, height: 844 } });

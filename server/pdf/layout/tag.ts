@@ -100,7 +100,11 @@ export function tagPiece(slot: Slot, ctx: LayoutContext<'tag'>): Piece {
 
 export function layoutTag(ctx: LayoutContext<'tag'>): LayoutDoc {
   if (!ctx.req.board.publicEnabled)
-    ctx.warnings.add({ code: 'qr-left-off', label: 'Board tag', message: 'The board page is switched off, so the tag has no QR code' });
+    ctx.warnings.add({
+      code: 'qr-left-off',
+      label: 'Board tag',
+      message: 'The board page is switched off, so the tag has no QR code: switch the page on under Sharing first if the tag should open it',
+    });
   const slot = slotFor(ctx.req.medium, PAGE_TAG_HEIGHT_MM);
   const piece = tagPiece(slot, ctx);
   const pieces = Array.from({ length: ctx.options.copies }, () => piece);
