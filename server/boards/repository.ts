@@ -9,8 +9,10 @@ import { boards, sites } from '../db/schema.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import type { BoardListItem, BoardListQuery, BoardSummary } from '../../shared/schemas/boards.js';
 import { likeContains, readStoredSchedule } from './stored.js';
+import { openReportsColumn } from '../reports/repository.js';
 
 const circuitCount = sql<number>`JSON_LENGTH(${boards.schedule}, '$.circuits')`;
+const openReports = openReportsColumn;
 const iso = (d: Date) => d.toISOString();
 
 export interface BoardScheduleRow {
@@ -67,6 +69,7 @@ export async function findBoardSummary(db: Db, organisationId: number, id: numbe
       createdAt: boards.createdAt,
       updatedAt: boards.updatedAt,
       circuitCount,
+      openReports,
       siteId: boards.siteId,
       siteReference: sites.reference,
       siteClientName: sites.clientName,
@@ -81,9 +84,39 @@ export async function findBoardSummary(db: Db, organisationId: number, id: numbe
     ...rest,
     publicEnabled: Boolean(rest.publicEnabled),
     circuitCount: Number(rest.circuitCount),
+    openReports: Number(rest.openReports),
     createdAt: iso(rest.createdAt),
     updatedAt: iso(rest.updatedAt),
     site: rest.siteId != null ? { id: rest.siteId, reference: siteReference ?? '', clientName: siteClientName ?? '' } : null,
+  };
+}
+
+const listColumns = {
+  id: boards.id,
+  name: boards.name,
+  location: boards.location,
+  code: boards.code,
+  siteId: boards.siteId,
+  siteReference: sites.reference,
+  revision: boards.revision,
+  updatedAt: boards.updatedAt,
+  circuitCount,
+  openReports,
+  deletedAt: boards.deletedAt,
+};
+
+function toListItem(
+  r: { circuitCount: number; openReports: number; updatedAt: Date; deletedAt: Date | null } & Omit<
+    BoardListItem,
+    'circuitCount' | 'openReports' | 'updatedAt' | 'deletedAt'
+  >,
+): BoardListItem {
+  return {
+    ...r,
+    circuitCount: Number(r.circuitCount),
+    openReports: Number(r.openReports),
+    updatedAt: iso(r.updatedAt),
+    deletedAt: r.deletedAt ? iso(r.deletedAt) : null,
   };
 }
 
@@ -103,31 +136,25 @@ export async function listBoards(db: Db, organisationId: number, query: BoardLis
   const where = listConditions(organisationId, query);
   const [{ total }] = await db.select({ total: count() }).from(boards).leftJoin(sites, eq(sites.id, boards.siteId)).where(where);
   const rows = await db
-    .select({
-      id: boards.id,
-      name: boards.name,
-      location: boards.location,
-      code: boards.code,
-      siteId: boards.siteId,
-      siteReference: sites.reference,
-      revision: boards.revision,
-      updatedAt: boards.updatedAt,
-      circuitCount,
-      deletedAt: boards.deletedAt,
-    })
+    .select(listColumns)
     .from(boards)
     .leftJoin(sites, eq(sites.id, boards.siteId))
     .where(where)
     .orderBy(desc(boards.updatedAt), desc(boards.id))
     .limit(query.pageSize)
     .offset((query.page - 1) * query.pageSize);
-  const items = rows.map((r) => ({
-    ...r,
-    circuitCount: Number(r.circuitCount),
-    updatedAt: iso(r.updatedAt),
-    deletedAt: r.deletedAt ? iso(r.deletedAt) : null,
-  }));
-  return { items, total: Number(total) };
+  return { items: rows.map(toListItem), total: Number(total) };
+}
+
+/** A site's boards that are not deleted, most recently changed first (the site page lists them all). */
+export async function listSiteBoards(db: Db, organisationId: number, siteId: number): Promise<BoardListItem[]> {
+  const rows = await db
+    .select(listColumns)
+    .from(boards)
+    .leftJoin(sites, eq(sites.id, boards.siteId))
+    .where(and(eq(boards.siteId, siteId), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
+    .orderBy(desc(boards.updatedAt), desc(boards.id));
+  return rows.map(toListItem);
 }
 
 export interface NewBoard {

@@ -2,7 +2,7 @@
  * Discrepancy reports sent from the board page. Reads for members go through a board the
  * caller has already checked belongs to their organisation.
  */
-import { and, asc, count, desc, eq } from 'drizzle-orm';
+import { and, asc, count, desc, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { reports, users } from '../db/schema.js';
 import type { ReportStatus } from '../../shared/schemas/reports.js';
@@ -62,6 +62,14 @@ export async function resolveReport(db: Db, boardId: number, reportId: number, s
     .where(and(eq(reports.boardId, boardId), eq(reports.id, reportId)));
   return result.affectedRows > 0;
 }
+
+/**
+ * Open reports of the board in the row being selected from `boards`, as a column for the boards
+ * list and a board's summary (a correlated count, so the reports table stays this module's).
+ * Written out in SQL: Drizzle may leave column names unqualified, which inside a subquery would
+ * bind to the wrong table.
+ */
+export const openReportsColumn = sql<number>`(SELECT COUNT(*) FROM \`reports\` AS r WHERE r.board_id = \`boards\`.\`id\` AND r.status = 'open')`;
 
 export async function countOpenReports(db: Db, boardId: number): Promise<number> {
   const [row] = await db

@@ -8,7 +8,8 @@ import { invalid, notFound } from '../errors.js';
 import { readStoredSchedule } from '../boards/stored.js';
 import { wayText } from '../../shared/schedule/derive.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
-import type { Report, ReportResolve, ReportSubmit } from '../../shared/schemas/reports.js';
+import { wayNamedIn, type Report, type ReportResolve, type ReportSubmit } from '../../shared/schemas/reports.js';
+import { boardWays } from '../../shared/schedule/ways.js';
 import { requireMemberBoard } from '../boards/member-board.js';
 import { reportMail } from './messages.js';
 import * as repo from './repository.js';
@@ -27,10 +28,12 @@ function storedMessage(input: ReportSubmit): string {
 /** A 400 naming the field when the reported way (or that phase of it) is not on the board. */
 function checkReportedWay(schedule: Schedule, input: ReportSubmit): void {
   if (input.way == null) return;
-  if (!schedule.circuits.some((c) => c.way === input.way)) {
+  // Spare ways count: the board page lists them, and a visitor may find one is not spare at all.
+  const ways = boardWays(schedule).map((w) => (w.kind === 'circuit' ? w.circuit : w.spare));
+  if (!ways.some((w) => w.way === input.way)) {
     throw invalid('There is no such way on this board', { way: `No way ${input.way} on this board` });
   }
-  if (input.phase != null && !schedule.circuits.some((c) => c.way === input.way && c.phase === input.phase)) {
+  if (input.phase != null && !ways.some((w) => w.way === input.way && w.phase === input.phase)) {
     throw invalid('There is no such way on this board', { phase: `No way ${reportedWay(input)} on this board` });
   }
 }
@@ -88,6 +91,7 @@ export async function submitReport(ctx: AppContext, board: ReportedBoard, input:
 
 const toReport = (row: repo.ReportRow): Report => ({
   ...row,
+  way: wayNamedIn(row.message),
   resolvedAt: row.resolvedAt ? row.resolvedAt.toISOString() : null,
   createdAt: row.createdAt.toISOString(),
 });

@@ -2,11 +2,10 @@
  * Data access for sites. Every query filters by organisation, so another organisation's site id
  * finds nothing (and the use-case answers 404).
  */
-import { and, asc, desc, eq, isNotNull, isNull, like, or, sql, type SQL } from 'drizzle-orm';
+import { and, asc, eq, isNotNull, like, or, sql, type SQL } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { boards, sites } from '../db/schema.js';
 import type { Site, SiteInput } from '../../shared/schemas/site.js';
-import type { BoardListItem } from '../../shared/schemas/boards.js';
 import { likeContains } from '../boards/stored.js';
 
 // Written out in SQL: in a one-table select Drizzle leaves column names unqualified, which inside a subquery would bind to the wrong table.
@@ -48,27 +47,6 @@ export async function findSite(db: Db, organisationId: number, id: number): Prom
     .where(and(eq(sites.id, id), eq(sites.organisationId, organisationId)))
     .limit(1);
   return row ? toSite(row) : null;
-}
-
-/** The site's boards that are not deleted, most recently changed first. */
-export async function siteBoards(db: Db, organisationId: number, siteId: number): Promise<BoardListItem[]> {
-  const rows = await db
-    .select({
-      id: boards.id,
-      name: boards.name,
-      location: boards.location,
-      code: boards.code,
-      siteId: boards.siteId,
-      siteReference: sites.reference,
-      revision: boards.revision,
-      updatedAt: boards.updatedAt,
-      circuitCount: sql<number>`JSON_LENGTH(${boards.schedule}, '$.circuits')`,
-    })
-    .from(boards)
-    .innerJoin(sites, eq(sites.id, boards.siteId))
-    .where(and(eq(boards.siteId, siteId), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
-    .orderBy(desc(boards.updatedAt), desc(boards.id));
-  return rows.map((r) => ({ ...r, updatedAt: r.updatedAt.toISOString(), circuitCount: Number(r.circuitCount), deletedAt: null }));
 }
 
 export async function insertSite(db: Db, organisationId: number, input: SiteInput): Promise<number> {

@@ -4,7 +4,8 @@ import type { Db } from '../db/client.js';
 import type { Site, SiteDetail, SiteInput, SiteUpdate } from '../../shared/schemas/site.js';
 import { conflict, notFound, stale } from '../errors.js';
 import { inTransaction } from '../db/client.js';
-import { deleteSiteRow, detachDeletedBoards, findSite, insertSite, listSites, siteBoards, updateSiteIfAt } from './repository.js';
+import { deleteSiteRow, detachDeletedBoards, findSite, insertSite, listSites, updateSiteIfAt } from './repository.js';
+import { listSiteBoards } from '../boards/repository.js';
 
 export async function listOrganisationSites(db: Db, organisationId: number, q?: string): Promise<{ items: Site[] }> {
   return { items: await listSites(db, organisationId, q) };
@@ -13,7 +14,7 @@ export async function listOrganisationSites(db: Db, organisationId: number, q?: 
 export async function getSite(db: Db, organisationId: number, id: number): Promise<SiteDetail> {
   const site = await findSite(db, organisationId, id);
   if (!site) throw notFound('No such site');
-  return { ...site, boards: await siteBoards(db, organisationId, id) };
+  return { ...site, boards: await listSiteBoards(db, organisationId, id) };
 }
 
 export function createSite(db: Db, organisationId: number, input: SiteInput): Promise<number> {

@@ -33,6 +33,8 @@ export const boardListItemSchema = z.object({
   revision: z.number(),
   updatedAt: z.string(),
   circuitCount: z.number(),
+  /** Reports from the board page that no one has accepted or dismissed yet. */
+  openReports: z.number(),
   deletedAt: z.string().nullable(),
 });
 export type BoardListItem = z.infer<typeof boardListItemSchema>;
@@ -76,6 +78,8 @@ export const boardSummarySchema = z.object({
   createdAt: z.string(),
   updatedAt: z.string(),
   circuitCount: z.number(),
+  /** Reports from the board page that no one has accepted or dismissed yet. */
+  openReports: z.number(),
   siteId: z.number().nullable(),
   site: z.object({ id: z.number(), reference: z.string(), clientName: z.string() }).nullable(),
 });

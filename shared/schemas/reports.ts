@@ -37,6 +37,8 @@ export type ReportResolve = z.infer<typeof reportResolveSchema>;
 export const reportSchema = z.object({
   id: z.number(),
   message: z.string(),
+  /** The way the report names, as the board writes it ("4", "4 L2"), read from the message; null when none. */
+  way: z.string().nullable(),
   reporterName: z.string(),
   reporterContact: z.string(),
   status: z.enum(reportStatuses),
@@ -46,3 +48,13 @@ export const reportSchema = z.object({
 });
 export const reportListSchema = z.object({ items: z.array(reportSchema) });
 export type Report = z.infer<typeof reportSchema>;
+
+/**
+ * The way a stored report names: the server leads the message with "Way 4 L2: " when the visitor
+ * picks a way, and keeps a message that already begins "way 4…". Anything else names no way.
+ */
+export function wayNamedIn(message: string): string | null {
+  const m = /^\s*way\s*(\d{1,3})(?:\s*(L[123]))?\b/i.exec(message);
+  if (!m) return null;
+  return m[2] ? `${Number(m[1])} ${m[2].toUpperCase()}` : String(Number(m[1]));
+}

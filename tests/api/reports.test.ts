@@ -122,8 +122,8 @@ describe('discrepancy reports from the board page', () => {
       'Way 4 L3 label is faded',
       'Way 4: Not sure which phase',
     ]);
-    // Way 5 has no circuit on L3 (its device there is a spare), so "5 L3" is no way of this board.
-    expect((await visitor.post(path, { message: 'ok', way: 5, phase: 'L3' }).expect(400)).body.error.fields.phase).toMatch(/No way 5 L3/);
+    // Way 3 is a three-phase circuit (no single phase of it is a way), so "3 L2" is no way of this board.
+    expect((await visitor.post(path, { message: 'ok', way: 3, phase: 'L2' }).expect(400)).body.error.fields.phase).toMatch(/No way 3 L2/);
     expect((await visitor.post(path, { message: 'ok', way: 4, phase: 'L4' }).expect(400)).body.error.fields.phase).toBeTruthy();
     expect((await visitor.post(path, { message: 'ok', phase: 'L1' }).expect(400)).body.error.fields.phase).toMatch(/way number/);
     expect(await storedReports(board.id)).toHaveLength(3);
@@ -156,6 +156,39 @@ describe('discrepancy reports from the board page', () => {
     const after = (await owner.get(`/api/boards/${board.id}/reports`).expect(200)).body.items.map((r: { status: string }) => r.status).sort();
     expect(after).toEqual(['accepted', 'dismissed']);
     expect((await electrician.patch(`/api/boards/${board.id}/reports/${first.id}`, { status: 'open' }).expect(400)).body.error.fields.status).toBeTruthy();
+  });
+
+  it('when reports are open, then the boards list, the site and the board say how many; each names its way for the editor; accepting one counts it off', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const board = await createBoard(owner); // on a site
+    const quiet = await createBoard(owner, undefined, false);
+    const visitor = await client(t.app);
+    await visitor.post(`/api/public/boards/${board.token}/reports`, { message: 'Labelled kitchen, feeds the utility', way: 2 }).expect(202);
+    await visitor.post(`/api/public/boards/${board.token}/reports`, { message: 'The porch light is on no way I can find' }).expect(202);
+    const listed = (await owner.get('/api/boards').expect(200)).body.items as Array<{ id: number; openReports: number; siteId: number }>;
+    expect(listed.find((b) => b.id === board.id)?.openReports).toBe(2);
+    expect(listed.find((b) => b.id === quiet.id)?.openReports).toBe(0);
+    expect((await owner.get(`/api/boards/${board.id}`).expect(200)).body.openReports).toBe(2);
+    const siteId = listed.find((b) => b.id === board.id)!.siteId;
+    const site = (await owner.get(`/api/sites/${siteId}`).expect(200)).body as { boards: Array<{ id: number; openReports: number }> };
+    expect(site.boards.find((b) => b.id === board.id)?.openReports).toBe(2);
+
+    const items = reportListSchema.parse((await owner.get(`/api/boards/${board.id}/reports`).expect(200)).body).items;
+    expect(items.map((r) => r.way).sort()).toEqual(['2', null].sort());
+    await owner.patch(`/api/boards/${board.id}/reports/${items.find((r) => r.way === '2')!.id}`, { status: 'accepted' }).expect(200);
+    expect((await owner.get(`/api/boards/${board.id}`).expect(200)).body.openReports).toBe(1);
+  });
+
+  it('when a visitor names a spare way (the board page lists spares), then the report is taken and names that way', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const board = await createBoard(owner, demoBoard('workshop'), false); // 5 L3 is the workshop's spare way (our demo data)
+    await (
+      await client(t.app)
+    )
+      .post(`/api/public/boards/${board.token}/reports`, { message: 'This one is not spare: it feeds the compressor', way: 5, phase: 'L3' })
+      .expect(202);
+    const items = reportListSchema.parse((await owner.get(`/api/boards/${board.id}/reports`).expect(200)).body).items;
+    expect(items[0]).toMatchObject({ way: '5 L3', message: 'Way 5 L3: This one is not spare: it feeds the compressor' });
   });
 
   it('when another organisation asks for the reports or resolves one, then 404; signed out 401', async () => {
