@@ -73,13 +73,14 @@ export async function findBoardSummary(db: Db, organisationId: number, id: numbe
       siteId: boards.siteId,
       siteReference: sites.reference,
       siteClientName: sites.clientName,
+      siteClientEmail: sites.clientEmail,
     })
     .from(boards)
     .leftJoin(sites, eq(sites.id, boards.siteId))
     .where(and(eq(boards.id, id), eq(boards.organisationId, organisationId), isNull(boards.deletedAt)))
     .limit(1);
   if (!row) return null;
-  const { siteReference, siteClientName, ...rest } = row;
+  const { siteReference, siteClientName, siteClientEmail, ...rest } = row;
   return {
     ...rest,
     publicEnabled: Boolean(rest.publicEnabled),
@@ -87,7 +88,8 @@ export async function findBoardSummary(db: Db, organisationId: number, id: numbe
     openReports: Number(rest.openReports),
     createdAt: iso(rest.createdAt),
     updatedAt: iso(rest.updatedAt),
-    site: rest.siteId != null ? { id: rest.siteId, reference: siteReference ?? '', clientName: siteClientName ?? '' } : null,
+    site:
+      rest.siteId != null ? { id: rest.siteId, reference: siteReference ?? '', clientName: siteClientName ?? '', clientEmail: siteClientEmail ?? '' } : null,
   };
 }
 

@@ -81,7 +81,8 @@ export const boardSummarySchema = z.object({
   /** Reports from the board page that no one has accepted or dismissed yet. */
   openReports: z.number(),
   siteId: z.number().nullable(),
-  site: z.object({ id: z.number(), reference: z.string(), clientName: z.string() }).nullable(),
+  /** The board's site; its client's e-mail is where the handover goes unless the electrician types another. */
+  site: z.object({ id: z.number(), reference: z.string(), clientName: z.string(), clientEmail: z.string() }).nullable(),
 });
 export type BoardSummary = z.infer<typeof boardSummarySchema>;
 
