@@ -286,6 +286,10 @@ describe('building a board in the editor', () => {
     await page.getByRole('button', { name: 'More' }).click();
     await page.getByRole('menuitem', { name: 'Import circuits (CSV)…' }).click();
     const csv = (text: string) => ({ name: 'circuits.csv', mimeType: 'text/csv', buffer: Buffer.from(text) });
+    // The help speaks to the user (start from the export) and points at no developer document.
+    const help = await page.locator('.ant-modal-content', { hasText: 'Import circuits from CSV' }).innerText();
+    expect(help).toContain('More → Export circuits (CSV)');
+    expect(help).not.toMatch(/developer/i);
     await page.getByTestId('csv-file').setInputFiles(csv('way,label,live_csa\n1,Kitchen sockets,thick\n2,,2.5\n'));
     await page.getByRole('button', { name: 'Import circuits' }).click();
     await page.locator('.board-faults [data-path="rows.2.live_csa"]').waitFor();
