@@ -27,6 +27,8 @@ export const CIRCUIT_CSV_COLUMNS: Column[] = [
   col('label', 'label', 'text'),
   col('description', 'description', 'text'),
   col('kind', 'kind', 'choice'),
+  // Design current Ib (A), for Ib ≤ In ≤ Iz and the voltage drop; blank = not recorded (the device rating stands in).
+  col('design_current', 'designCurrent', 'number'),
   col('socket_outlets', 'socketOutlets', 'boolean'),
   col('concealed_in_wall', 'concealedInWall', 'boolean'),
   col('cable_type', 'cable.type', 'choice'),
@@ -158,6 +160,11 @@ function readRow(columns: Column[], cells: string[], m: Matching): { circuit: Ci
   for (const c of columns) if (!(c.name === 'id' && input.id === undefined && match)) setPath(merged, c.path, getPath(input, c.path));
   // A circuit with no reading in the file or before keeps no readings record, as the editor leaves it.
   if (READING_COLUMNS.every((c) => getPath(merged, c.path) == null) && match?.readings == null) delete merged.readings;
+  // Ib is optional: a blank cell clears it, and a circuit that never had one stays as it was (absent or null), so a re-import changes nothing.
+  if (merged.designCurrent == null) {
+    if (match?.designCurrent === null) merged.designCurrent = null;
+    else delete merged.designCurrent;
+  }
   // A second row on a matched way (without an id of its own) is a new circuit, not the same one twice.
   if (merged.id === undefined || (!input.id && m.taken.has(String(merged.id)))) {
     merged.id = newCircuitId(merged.way as number, merged.phase as Circuit['phase'], (id) => m.taken.has(id) || m.byId.has(id));

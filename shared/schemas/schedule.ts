@@ -33,6 +33,9 @@ export const MAX_ROWS = 60;
  */
 export const LOOP_IMPEDANCE_MAX_OHMS = 2000;
 
+/** Largest design current Ib a circuit may record (A): as large as the largest device rating the schedule takes. */
+export const DESIGN_CURRENT_MAX_A = 4000;
+
 /** Longest short label: what fits a way label over one 17.5 mm module at the minimum text size. */
 export const SHORT_LABEL_MAX = 24;
 
@@ -113,6 +116,12 @@ export const circuitSchema = z.strictObject({
   label: singleLine(SHORT_LABEL_MAX).min(1, 'Required'),
   description: text(500).default(''),
   kind: z.enum(circuitKinds).default('other'),
+  /**
+   * Design current Ib (A): the current the circuit is expected to carry in normal use, for the Ib ≤ In ≤ Iz check
+   * (433.1.1) and the voltage drop estimate. Absent or null until recorded, when the device rating In stands in;
+   * optional, so documents and board files written before it parse unchanged (no board file format bump).
+   */
+  designCurrent: positive('Design current', DESIGN_CURRENT_MAX_A).nullish(),
   /** Supplies socket-outlets (so 411.3.3 asks for 30 mA RCD protection up to 32 A). */
   socketOutlets: z.boolean().default(false),
   /** Cable concealed in a wall less than 50 mm deep without mechanical protection (522.6.202/203). */

@@ -1,6 +1,7 @@
 /**
- * Overload protection: the device rating In must not exceed the cable's current-carrying
- * capacity Iz (433.1.1), with Iz from Appendix 4 for the cable and its reference method,
+ * Overload protection (433.1.1): Ib ≤ In ≤ Iz. The design current Ib, where the circuit records it,
+ * must not exceed the device rating In; In must not exceed the cable's current-carrying
+ * capacity Iz, with Iz from Appendix 4 for the cable and its reference method,
  * corrected for the installation conditions recorded on the cable: Iz × Ca × Cg × Ci
  * (see correction-factors.ts). With none recorded, the tabulated Iz (30 °C, not grouped, no
  * insulation beyond the method) is used as it stands. Only flat twin-and-earth (Table 4D5) is
@@ -104,7 +105,33 @@ function checkSemiEnclosed(f: CircuitFacts, cap: Capacity, tabulated: number): F
   ];
 }
 
-function checkCircuit(f: CircuitFacts): Finding[] {
+/** Ib ≤ In: a circuit designed to carry more than its device's rating would trip in normal use, or be overloaded behind a fuse. */
+function checkDesignCurrent(f: CircuitFacts): Finding[] {
+  const { circuit, device } = f;
+  const ib = circuit.designCurrent;
+  if (ib == null || !device || !isOvercurrentDevice(device) || device.rating == null || ib <= device.rating) return [];
+  return [
+    circuitFinding(
+      f,
+      'error',
+      'design-current-over-rating',
+      'BS 7671 433.1.1',
+      'designCurrent',
+      `${circuitName(circuit)}: design current Ib ${num(ib)} A recorded exceeds the device rating ${num(device.rating)} A (${deviceName(device)}); Ib ≤ In ≤ Iz needs a device of at least ${num(ib)} A on a cable to match, or a smaller load`,
+    ),
+  ];
+}
+
+/** With Ib recorded, what In ≤ Iz leaves room for: a lower rating when Ib fits the cable, a larger cable when it does not. */
+function designCurrentHint(ib: number | null | undefined, iz: number): string {
+  if (ib == null) return '';
+  return ib <= iz
+    ? `; with Ib ${num(ib)} A recorded, a device rated from ${num(ib)} A up to ${amps(iz)} A would meet Ib ≤ In ≤ Iz`
+    : `; Ib ${num(ib)} A recorded is itself above ${amps(iz)} A, so a larger cable is needed`;
+}
+
+/** In ≤ Iz under the recorded conditions, or why it could not be checked. */
+function checkCable(f: CircuitFacts): Finding[] {
   const { circuit, device } = f;
   if (!device || !isOvercurrentDevice(device) || device.rating == null) return [];
   const cable = circuit.cable;
@@ -136,12 +163,12 @@ function checkCircuit(f: CircuitFacts): Finding[] {
       'rating-over-iz',
       'BS 7671 433.1.1',
       blamedField(cap, device.rating <= tabulated, 'cable.liveCsa'),
-      `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${amps(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}`,
+      `${circuitName(circuit)}: device rating ${num(device.rating)} A (${deviceName(device)}) exceeds the ${amps(cap.iz)} A capacity of ${num(cable.liveCsa)} mm² twin-and-earth ${cap.basis}${designCurrentHint(circuit.designCurrent, cap.iz)}`,
     ),
   ];
 }
 
-/** In ≤ Iz × Ca × Cg × Ci for every circuit with a rated device, or why it could not be checked. */
+/** Ib ≤ In where Ib is recorded, and In ≤ Iz × Ca × Cg × Ci for every circuit with a rated device, or why it could not be checked. */
 export function checkCapacity(view: ScheduleView): Finding[] {
-  return view.circuits.flatMap(checkCircuit);
+  return view.circuits.flatMap((f) => [...checkDesignCurrent(f), ...checkCable(f)]);
 }

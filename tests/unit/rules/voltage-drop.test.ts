@@ -17,7 +17,7 @@ describe('voltage drop estimate (BS 7671 525, Appendix 4 Table 4Ab)', () => {
     const [f] = withCode(oneCircuit(mcb(6), { way: 5, label: 'Loft lights', kind: 'lighting', cable: te(1.5, 40) }), 'voltage-drop-over-limit');
     expect(f).toMatchObject({ severity: 'warning', rule: 'BS 7671 525, Appendix 4 Table 4Ab', field: 'circuits.0.cable.lengthM' });
     expect(f.message).toBe(
-      'Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) over 40 m of 1.5 mm² at 6 A exceeds the 3 % limit for lighting from a public supply (6.9 V; BS 7671 525, Appendix 4 Table 4Ab)',
+      'Way 5 (Loft lights): estimated voltage drop 6.96 V (3.03 %) exceeds the 3 % limit for lighting from a public supply (6.9 V; BS 7671 525, Appendix 4 Table 4Ab); 40 m of 1.5 mm² at the device rating 6 A, no design current recorded: 29 mV/A/m × 6 A × 40 m (Table 4D5)',
     );
   });
 
@@ -31,6 +31,14 @@ describe('voltage drop estimate (BS 7671 525, Appendix 4 Table 4Ab)', () => {
     // ring: a quarter of a radial's drop (common practice): 18 × 32 × 79 / 4000 = 11.38 V, × 80 m = 11.52 V
     expect(withCode(oneCircuit(mcb(32), { kind: 'ring', cable: te(2.5, 79) }), 'voltage-drop-over-limit')).toEqual([]);
     expect(withCode(oneCircuit(mcb(32), { kind: 'ring', cable: te(2.5, 80) }), 'voltage-drop-over-limit')).toHaveLength(1);
+  });
+
+  it('when the ring is over, then the message states the quarter length it was worked on, so a hand check agrees', () => {
+    // 18 mV/A/m (Table 4D5, from memory) × 32 A × 80 m / 4 (ring load at its midpoint, common practice) = 11.52 V > 11.5 V (5 % of 230 V)
+    const [f] = withCode(oneCircuit(mcb(32), { way: 2, label: 'Sockets', kind: 'ring', cable: te(2.5, 80) }), 'voltage-drop-over-limit');
+    expect(f.message).toBe(
+      'Way 2 (Sockets): estimated voltage drop 11.52 V (5.01 %) exceeds the 5 % limit for this use from a public supply (11.5 V; BS 7671 525, Appendix 4 Table 4Ab); 80 m round the ring of 2.5 mm² at the device rating 32 A, no design current recorded, worked on 20 m, a quarter of that (load taken at the midpoint, half the current in each leg): 18 mV/A/m × 32 A × 20 m (Table 4D5)',
+    );
   });
 
   it('when the nominal voltage is 240 V, then the limit follows it (5 % = 12 V)', () => {
@@ -53,5 +61,41 @@ describe('voltage drop estimate (BS 7671 525, Appendix 4 Table 4Ab)', () => {
     expect(estimatedVoltageDrop({ circuit: noLength.circuits[0], device: noLength.devices[0] })).toBeNull();
     const swa = oneCircuit(mcb(32), { kind: 'sub-main', cable: { type: 'swa', liveCsa: 6, lengthM: 300 } });
     expect(withCode(swa, 'voltage-drop-over-limit')).toEqual([]);
+  });
+});
+
+describe('voltage drop at the design current Ib when recorded', () => {
+  it('when a B6 lighting circuit records Ib 2 A, then the drop is worked at 2 A, not at the 6 A rating', () => {
+    // 29 mV/A/m (Table 4D5 1.5 mm², found) × 2 A × 20 m = 1.16 V; at the rating it would be × 6 A = 3.48 V
+    const s = oneCircuit(mcb(6), { kind: 'lighting', designCurrent: 2, cable: te(1.5, 20) });
+    expect(estimatedVoltageDrop({ circuit: s.circuits[0], device: s.devices[0] })).toBeCloseTo(1.16, 6);
+  });
+
+  it('when the 40 m lighting run records Ib 2 A, then the warning at the rating goes away; at 120 m it says the Ib used', () => {
+    // 29 mV/A/m (Table 4D5, found) × 2 A × 40 m = 2.32 V, within 6.9 V (3 % of 230 V, Appendix 4 6.4, found)
+    expect(withCode(oneCircuit(mcb(6), { kind: 'lighting', designCurrent: 2, cable: te(1.5, 40) }), 'voltage-drop-over-limit')).toEqual([]);
+    // 29 × 2 × 120 / 1000 = 6.96 V (3.03 %) > 6.9 V
+    const [f] = withCode(
+      oneCircuit(mcb(6), { way: 5, label: 'Yard lights', kind: 'lighting', designCurrent: 2, cable: te(1.5, 120) }),
+      'voltage-drop-over-limit',
+    );
+    expect(f.message).toBe(
+      'Way 5 (Yard lights): estimated voltage drop 6.96 V (3.03 %) exceeds the 3 % limit for lighting from a public supply (6.9 V; BS 7671 525, Appendix 4 Table 4Ab); 120 m of 1.5 mm² at Ib 2 A recorded: 29 mV/A/m × 2 A × 120 m (Table 4D5)',
+    );
+  });
+
+  it('when a ring records Ib 26 A, then the drop is on a quarter of the length at 26 A and the message says so', () => {
+    // 18 mV/A/m (Table 4D5 2.5 mm², from memory) × 26 A × 100 m / 4 (common practice) = 11.7 V > 11.5 V
+    const [f] = withCode(oneCircuit(mcb(32), { way: 3, label: 'Ring', kind: 'ring', designCurrent: 26, cable: te(2.5, 100) }), 'voltage-drop-over-limit');
+    expect(f.message).toContain('100 m round the ring of 2.5 mm² at Ib 26 A recorded, worked on 25 m, a quarter of that');
+    expect(f.message).toContain('18 mV/A/m × 26 A × 25 m (Table 4D5)');
+    // 18 × 26 × 98 / 4000 = 11.47 V, within 11.5 V
+    expect(withCode(oneCircuit(mcb(32), { kind: 'ring', designCurrent: 26, cable: te(2.5, 98) }), 'voltage-drop-over-limit')).toEqual([]);
+  });
+
+  it('when Ib is recorded but no device is named, then the drop is still worked at Ib', () => {
+    // 18 mV/A/m (Table 4D5, from memory) × 10 A × 20 m = 3.6 V
+    const s = oneCircuit(mcb(20), { kind: 'radial', designCurrent: 10, deviceId: null, cable: te(2.5, 20) });
+    expect(estimatedVoltageDrop({ circuit: s.circuits[0], device: null })).toBeCloseTo(3.6, 6);
   });
 });
