@@ -114,7 +114,9 @@ describe('what is typed in the editor is kept as meant', () => {
     const dialogs = nativeDialogs(page);
     const boardId = await boardWithCircuits(page, 2);
     await page.goto(`/boards/${boardId}`);
-    const label = page.locator('td[data-cell="label-c1"] input');
+    // On a phone the circuits are a list: way 1's fields are in its form, with the Save bar (and Discard) docked over it.
+    await page.getByRole('button', { name: 'Details of way 1' }).click();
+    const label = page.locator('.ant-drawer-open [data-field="circuits.0.label"] input');
     await label.fill('Hall sockets');
 
     await page.getByRole('button', { name: 'Discard changes' }).click();
@@ -126,7 +128,8 @@ describe('what is typed in the editor is kept as meant', () => {
 
     await page.getByRole('button', { name: 'Discard changes' }).click();
     await popconfirm(page, 'Throw away your unsaved changes?').getByRole('button', { name: 'Discard' }).click();
-    await expect.poll(() => page.locator('td[data-cell="label-c1"] input').inputValue()).toBe(makeSchedule(2).circuits[0].label);
+    await expect.poll(() => label.inputValue()).toBe(makeSchedule(2).circuits[0].label);
+    await page.getByRole('button', { name: 'Done' }).click();
 
     await page.getByRole('button', { name: 'More' }).click();
     await page.getByRole('menuitem', { name: 'Delete board' }).click();
