@@ -5,10 +5,11 @@
  * Pure: the organisation's contact, the revision date and the next inspection come in as `meta`.
  */
 import type { Circuit, Device, Schedule } from '../schemas/schedule.js';
-import type { PublicBoard, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
+import type { PublicBoard, PublicDinPlace, PublicRcdGroup, PublicWay, PublicWayRcd } from '../schemas/public-board.js';
 import { deviceKindName, deviceShortText, feedsAnotherBoard, hasOwnRcd, rcdFor, rcdGroups, rcdNames, wayText } from '../schedule/derive.js';
 import { boardWays, type SpareWay } from '../schedule/ways.js';
 import { boardCautions } from './cautions.js';
+import { dinPlaces, publicDinRows } from './din-rows.js';
 import { supplyVoltages, supplyVoltageText } from '../schedule/voltage.js';
 
 /** The board page's address, as the QR code and the sharing screen give it. */
@@ -41,7 +42,14 @@ function wayRcd(rcd: Device | null | undefined, names: Map<string, string>): Pub
   return { kind: 'rcd', name: names.get(rcd.id) ?? 'RCD', residualMa: rcd.residualMa };
 }
 
-function publicWay(c: Circuit, devices: Map<string, Device>, rcds: Map<string, Device | null>, names: Map<string, string>): PublicWay {
+/** Lookups every way needs, built once per board. */
+interface WayLookups {
+  rcds: Map<string, Device | null>;
+  names: Map<string, string>;
+  places: Map<string, PublicDinPlace>;
+}
+
+function publicWay(c: Circuit, devices: Map<string, Device>, { rcds, names, places }: WayLookups): PublicWay {
   const device = c.deviceId ? devices.get(c.deviceId) : undefined;
   return {
     way: c.way,
@@ -55,11 +63,12 @@ function publicWay(c: Circuit, devices: Map<string, Device>, rcds: Map<string, D
     notes: c.notesPublic ? c.notes : '',
     feedsAnotherBoard: feedsAnotherBoard(c),
     spare: false,
+    place: c.deviceId ? (places.get(c.deviceId) ?? null) : null,
   };
 }
 
 /** A spare way as a visitor sees it: numbered, called Spare, with its device and RCD. */
-function publicSpare(s: SpareWay, rcds: Map<string, Device | null>, names: Map<string, string>): PublicWay {
+function publicSpare(s: SpareWay, { rcds, names, places }: WayLookups): PublicWay {
   return {
     way: s.way,
     phase: s.phase,
@@ -72,6 +81,7 @@ function publicSpare(s: SpareWay, rcds: Map<string, Device | null>, names: Map<s
     notes: '',
     feedsAnotherBoard: false,
     spare: true,
+    place: places.get(s.device.id) ?? null,
   };
 }
 
@@ -88,8 +98,7 @@ function publicRcdGroups(schedule: Schedule): PublicRcdGroup[] {
 export function toPublicBoard(schedule: Schedule, meta: PublicBoardMeta): PublicBoard {
   const { board } = schedule;
   const devices = new Map(schedule.devices.map((d) => [d.id, d]));
-  const rcds = rcdFor(schedule);
-  const names = rcdNames(schedule);
+  const lookups: WayLookups = { rcds: rcdFor(schedule), names: rcdNames(schedule), places: dinPlaces(schedule) };
   return {
     board: { name: board.name, location: board.location, phases: board.phases },
     contractor: {
@@ -112,7 +121,8 @@ export function toPublicBoard(schedule: Schedule, meta: PublicBoardMeta): Public
         description: board.alternativeSupply.description,
       },
     },
-    ways: boardWays(schedule).map((w) => (w.kind === 'circuit' ? publicWay(w.circuit, devices, rcds, names) : publicSpare(w.spare, rcds, names))),
+    ways: boardWays(schedule).map((w) => (w.kind === 'circuit' ? publicWay(w.circuit, devices, lookups) : publicSpare(w.spare, lookups))),
+    dinRows: publicDinRows(schedule),
     rcdGroups: publicRcdGroups(schedule),
     inspection: { lastOn: board.lastInspectionOn, nextOn: meta.nextInspectionOn },
     revision: { number: meta.revision, date: meta.revisionDate },

@@ -12,12 +12,27 @@ const ALTERNATIVE_SUPPLY_NAMES: Record<BoardDetails['alternativeSupply']['kinds'
   other: 'another source',
 };
 
+/** Who may open the board: said in the general cautions and again beside the picture that finds a switch. */
+export const COVER_CAUTION = 'Only a competent person may remove the cover of this board or work inside it.';
+/** The page may be out of date: said in the general cautions and again where the page points at one device. */
+export const AS_RECORDED_CAUTION = 'This page shows the board as last recorded. Check it against the board itself before relying on it.';
+
 /** Cautions that apply to every board, in the order a visitor should read them. */
 export const GENERAL_CAUTIONS: readonly string[] = [
   'Before any work, switch off and isolate the supply, lock it off, then prove the circuit dead with a suitable tester.',
-  'Only a competent person may remove the cover of this board or work inside it.',
+  COVER_CAUTION,
   'Follow BS 7671 and the wiring rules where you are. If in doubt, ask a qualified, licensed electrician.',
-  'This page shows the board as last recorded. Check it against the board itself before relying on it.',
+  AS_RECORDED_CAUTION,
+];
+
+/**
+ * Beside the picture that shows a visitor which switch is their way's: switching that device off
+ * or on at its front is as far as a householder goes; the cover and everything behind it are not theirs.
+ */
+export const SWITCH_ONLY_CAUTIONS: readonly string[] = [
+  'Switching this device off or on, at its front, is as far as you should go. Do not touch anything inside the board.',
+  `${COVER_CAUTION} For anything more than switching, call an electrician.`,
+  AS_RECORDED_CAUTION,
 ];
 
 /**

@@ -4,7 +4,7 @@
  * so a field added to the schedule never reaches the public by accident.
  */
 import { z } from 'zod';
-import { alternativeSupplyKinds, earthingArrangements, phases, rcdTypes } from './schedule.js';
+import { alternativeSupplyKinds, deviceKinds, earthingArrangements, phases, rcdTypes } from './schedule.js';
 
 const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/);
 
@@ -13,6 +13,28 @@ export const publicWayRcdSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('rcd'), name: z.string(), residualMa: z.number().nullable() }),
   z.object({ kind: z.literal('rcbo'), residualMa: z.number().nullable() }),
 ]);
+
+/**
+ * A device as the board page draws it on its row: enough to draw it to scale and to say where it is,
+ * nothing else (no id, no test readings). `label` is an RCD's name ("RCD 1") or the device's own label.
+ */
+export const publicDinDeviceSchema = z.object({
+  kind: z.enum(deviceKinds),
+  modules: z.number(),
+  poles: z.number().int(),
+  label: z.string(),
+  /** What its face shows, as the editor's picture prints it: "B16" / "63 A", and "30 mA A" or a fuse's standard. */
+  face: z.object({ main: z.string(), sub: z.string() }),
+});
+
+/** The board's DIN rows, top row first, each device in its order along the rail from the left. */
+export const publicDinRowsSchema = z.object({
+  modulesPerRow: z.number().int(),
+  rows: z.array(z.object({ devices: z.array(publicDinDeviceSchema) })),
+});
+
+/** Where a way's device sits: `row` counts from 1 at the top, `index` from 0 at the left of that row's devices. */
+export const publicDinPlaceSchema = z.object({ row: z.number().int(), index: z.number().int() });
 
 export const publicWaySchema = z.object({
   /** Null only for a spare way the schedule gives no number. */
@@ -32,6 +54,8 @@ export const publicWaySchema = z.object({
   feedsAnotherBoard: z.boolean(),
   /** A spare way: a device on the rail that feeds no circuit yet (its label is "Spare"). */
   spare: z.boolean(),
+  /** Its device on the board's rows (`dinRows`), or null when the schedule records none. */
+  place: publicDinPlaceSchema.nullable(),
 });
 
 /** "If RCD 1 trips, these go off." */
@@ -59,6 +83,7 @@ export const publicBoardSchema = z.object({
     alternativeSupply: z.object({ present: z.boolean(), kinds: z.array(z.enum(alternativeSupplyKinds)), description: z.string() }),
   }),
   ways: z.array(publicWaySchema),
+  dinRows: publicDinRowsSchema,
   rcdGroups: z.array(publicRcdGroupSchema),
   inspection: z.object({ lastOn: isoDate.nullable(), nextOn: isoDate.nullable() }),
   revision: z.object({ number: z.number().int(), date: isoDate }),
@@ -69,5 +94,8 @@ export const publicBoardSchema = z.object({
 
 export type PublicWayRcd = z.infer<typeof publicWayRcdSchema>;
 export type PublicWay = z.infer<typeof publicWaySchema>;
+export type PublicDinDevice = z.infer<typeof publicDinDeviceSchema>;
+export type PublicDinRows = z.infer<typeof publicDinRowsSchema>;
+export type PublicDinPlace = z.infer<typeof publicDinPlaceSchema>;
 export type PublicRcdGroup = z.infer<typeof publicRcdGroupSchema>;
 export type PublicBoard = z.infer<typeof publicBoardSchema>;

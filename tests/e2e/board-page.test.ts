@@ -9,6 +9,8 @@ import { PNG } from 'pngjs';
 import { AxeBuilder } from '@axe-core/playwright';
 import type { APIRequestContext, Page } from 'playwright-core';
 import { demoSites } from '../../server/seed/demo-data.js';
+import { scheduleSchema } from '../../shared/schemas/schedule.js';
+import { SWITCH_ONLY_CAUTIONS } from '../../shared/public/cautions.js';
 import { startBrowserApp, signedInOwnerPage, type BrowserApp } from '../helpers/browser.js';
 import { simpleParser } from 'mailparser';
 import { uniqueEmail, waitForMail } from '../helpers/app.js';
@@ -25,6 +27,36 @@ afterAll(async () => {
 const flatMain = demoSites[0].boards.find((b) => b.key === 'flat-main')!.schedule;
 /** The demo workshop: three phases, way 4 split into 4 L1–4 L3, last inspected 8 November 2022. */
 const workshop = demoSites[1].boards.find((b) => b.key === 'workshop')!.schedule;
+/**
+ * An invented two-row split-load board for the switch locator. Top row: RCD 1, ways 1, 3 (the garage) and 2, a blank, way 6.
+ * Second row: the main switch, way 7, RCD 2, way 4 and way 5 on a 2-pole RCBO.
+ */
+const landing = scheduleSchema.parse({
+  board: { name: 'Landing consumer unit', rows: 2, modulesPerRow: 12, supply: { earthing: 'TN-C-S' } },
+  devices: [
+    { id: 'rcd1', row: 1, kind: 'rcd', modules: 2, poles: 2, rating: 63, residualMa: 30, rcdType: 'A' },
+    { id: 'b32', row: 1, kind: 'mcb', rating: 32, curve: 'B' },
+    { id: 'b16', row: 1, kind: 'mcb', rating: 16, curve: 'B' },
+    { id: 'b6', row: 1, kind: 'mcb', rating: 6, curve: 'B' },
+    { id: 'gap', row: 1, kind: 'blank' },
+    { id: 'b20', row: 1, kind: 'mcb', rating: 20, curve: 'B' },
+    { id: 'main', row: 2, kind: 'main-switch', modules: 2, poles: 2, rating: 100, label: 'Main switch' },
+    { id: 'b10', row: 2, kind: 'mcb', rating: 10, curve: 'B' },
+    { id: 'rcd2', row: 2, kind: 'rcd', modules: 2, poles: 2, rating: 63, residualMa: 30, rcdType: 'A' },
+    { id: 'b40', row: 2, kind: 'mcb', rating: 40, curve: 'B' },
+    { id: 'rcbo', row: 2, kind: 'rcbo', modules: 2, poles: 2, rating: 40, curve: 'B', residualMa: 30, rcdType: 'A' },
+  ],
+  circuits: [
+    { id: 'c1', way: 1, deviceId: 'b32', label: 'Kitchen sockets', locations: ['Kitchen'] },
+    { id: 'c2', way: 2, deviceId: 'b6', label: 'Lights', locations: ['Hall', 'Landing'] },
+    { id: 'c3', way: 3, deviceId: 'b16', label: 'Garage sockets', locations: ['Garage'] },
+    { id: 'c4', way: 4, deviceId: 'b40', label: 'Cooker', locations: ['Kitchen'] },
+    { id: 'c5', way: 5, deviceId: 'rcbo', label: 'Shower', locations: ['Bathroom'] },
+    { id: 'c6', way: 6, deviceId: 'b20', label: 'Loft sockets', locations: ['Loft'] },
+    { id: 'c7', way: 7, deviceId: 'b10', label: 'Doorbell', locations: ['Hall'] },
+  ],
+});
+const SHOTS = process.env.WAYMARK_SHOTS;
 const PHONE = { width: 390, height: 844 };
 const DIST = join(import.meta.dirname, '..', '..', 'dist');
 /** The issue's budget for the board page route on a weak signal. */
@@ -105,6 +137,8 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     expect(await studio.textContent()).toContain('everything on that board goes off too');
     expect(await studio.textContent()).not.toContain('only this way goes off');
     expect(await page.getByText('Kitchen sockets').count()).toBe(0);
+    // One way found: the locator says which switch it is (the flat's board is one row, with no shared RCD).
+    expect(await page.locator('.public-locator__words').textContent()).toBe('The switch for way 8 (Garden studio) is the RCBO B32 100 mA, 10th from the left.');
 
     // Nothing is cut off or needs sideways scrolling on a phone.
     // The test runs under Node's types, so the page's `document` is reached through globalThis.
@@ -192,8 +226,13 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
 
     // Search by way and phase, as printed on the board.
     await page.getByLabel('Find a way by room, place or name').fill('way 4 L2');
-    await page.getByText('1 of 8 ways match').waitFor();
+    // Nine ways: 5 L3 is the workshop's spare, listed like any other way.
+    await page.getByText('1 of 9 ways match').waitFor();
     expect(await page.locator('.public-way').first().getByRole('heading').textContent()).toContain('Bench sockets');
+    // 4 L2 has its own RCBO, the second device on the lower row.
+    expect(await page.locator('.public-locator__words').textContent()).toBe(
+      'The switch for way 4 L2 (Bench sockets) is the RCBO B32 30 mA, 2nd from the left on the 2nd row.',
+    );
     await page.getByLabel('Find a way by room, place or name').fill('');
 
     // Each phase of way 4 can be picked in the report, and the contractor's e-mail names it.
@@ -217,6 +256,67 @@ describe('the board page on a phone, opened from the printed tag', { timeout: 18
     await earlier.getByRole('heading', { level: 1, name: workshop.board.name }).waitFor();
     expect(await earlier.locator('.public-facts__list').textContent()).toContain('Recommended by 8 November 2025');
     expect(await earlier.getByText(/overdue/i).count()).toBe(0);
+    expect(app.pageErrors).toEqual([]);
+  });
+
+  it('when the garage is searched at 390×844, then the board’s rows are drawn with its switch picked out and said in words, with the switching caution, and axe passes', async () => {
+    const { page: owner } = await signedInOwnerPage(app, 'Quillmarsh Test Electrical');
+    const boardId = await storeDemoBoard(owner, uniqueEmail('office'), landing);
+    const token = ((await (await owner.request.get(`/api/boards/${boardId}`)).json()) as { publicToken: string }).publicToken;
+    const page = await app.newPage({ viewport: PHONE });
+    page.setDefaultTimeout(60_000);
+    await page.goto(`/b/${token}`, { waitUntil: 'networkidle' });
+    await page.getByRole('heading', { level: 1, name: landing.board.name }).waitFor();
+    // No search yet, or several ways found: no locator, and a hint to narrow it down.
+    expect(await page.locator('.public-locator').count()).toBe(0);
+    await page.getByLabel('Find a way by room, place or name').fill('sockets');
+    await page.getByText('Narrow the search to one way to see which switch it is on the board.').waitFor();
+
+    await page.getByLabel('Find a way by room, place or name').fill('garage');
+    await page.getByText('1 of 7 ways match').waitFor();
+    const words = 'The switch for way 3 (Garage sockets) is the MCB B16, 3rd from the left on the top row, after RCD 1.';
+    expect(await page.locator('.public-locator__words').textContent()).toBe(words);
+    // The picture is an image whose text alternative is the same words.
+    const picture = page.getByRole('img', { name: words });
+    await picture.waitFor();
+    // Both rows drawn, every device of the schedule, and exactly one picked out: the third on the top row.
+    expect(await picture.locator('.public-din__device').count()).toBe(landing.devices.length);
+    const found = picture.locator('.public-din__device.is-found');
+    expect(await found.count()).toBe(1);
+    expect(await found.getAttribute('data-place')).toBe('1:2');
+    expect(await found.textContent()).toContain('B16');
+    // To scale: 12 modules of 17.5 mm (DIN 43880) plus two 6 mm margins across; a body is its modules less a 0.6 mm gap.
+    const pxPerMm = (await picture.boundingBox())!.width / (12 * 17.5 + 12);
+    const rcd = (await picture.locator('[data-place="1:0"] .public-din__body').boundingBox())!;
+    const mcb = (await found.locator('.public-din__body').boundingBox())!;
+    // The box takes in the outline too: 0.4 mm round a device, 1 mm round the picked-out one.
+    expect(rcd.width / pxPerMm).toBeCloseTo(2 * 17.5 - 0.6 + 0.4, 0);
+    expect(mcb.width / pxPerMm).toBeCloseTo(17.5 - 0.6 + 1, 0);
+    // Centre to centre: half of RCD 1, all of way 1, half of the garage MCB.
+    expect((mcb.x + mcb.width / 2 - (rcd.x + rcd.width / 2)) / pxPerMm).toBeCloseTo(17.5 + 17.5 + 17.5 / 2, 0);
+    // Switching is as far as a householder goes; the cover and what is behind it are for an electrician.
+    for (const caution of SWITCH_ONLY_CAUTIONS) expect(await page.locator('.public-locator').textContent()).toContain(caution);
+    expect(await page.locator('.public-locator').textContent()).toContain('Only a competent person may remove the cover of this board');
+
+    const scrollWidth = await page.evaluate(
+      () => (globalThis as unknown as { document: { documentElement: { scrollWidth: number } } }).document.documentElement.scrollWidth,
+    );
+    expect(scrollWidth).toBeLessThanOrEqual(PHONE.width);
+    const axe = await new AxeBuilder({ page }).analyze();
+    expect(axe.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id)).toEqual([]);
+    if (SHOTS) await page.screenshot({ path: join(SHOTS, 'board-locator-390.png'), fullPage: true });
+    if (SHOTS) await page.locator('.public-locator').screenshot({ path: join(SHOTS, 'board-locator-390-close.png') });
+
+    // The 2-pole RCBO on the second row says so, and the picture follows the search.
+    await page.getByLabel('Find a way by room, place or name').fill('shower');
+    await page
+      .getByText(
+        'The switch for way 5 (Shower) is the RCBO B40 30 mA, 5th and last from the left on the 2nd row, after RCD 2 — a 2-pole device, 2 modules wide.',
+      )
+      .waitFor();
+    expect(await page.locator('.public-din__device.is-found').getAttribute('data-place')).toBe('2:4');
+    await page.setViewportSize({ width: 1366, height: 900 });
+    if (SHOTS) await page.locator('.public-locator').screenshot({ path: join(SHOTS, 'board-locator-1366.png') });
     expect(app.pageErrors).toEqual([]);
   });
 
