@@ -6,6 +6,7 @@ import { invitationRoutes, membersRoutes } from './members/routes.js';
 import { organisationRoutes } from './organisation/routes.js';
 import { devRoutes } from './dev/routes.js';
 import { sheetLayoutRoutes } from './sheet-layouts/routes.js';
+import { printerProfileRoutes } from './printer-profiles/routes.js';
 import { boardPrintRoutes, printSettingsRoutes } from './print/routes.js';
 import { siteRoutes } from './sites/routes.js';
 import { boardRoutes } from './boards/routes.js';
@@ -28,6 +29,7 @@ export function apiRoutes(ctx: AppContext): Router {
   api.use('/organisation', organisationRoutes(ctx));
   api.use('/dev', devRoutes(ctx));
   api.use('/sheet-layouts', sheetLayoutRoutes(ctx));
+  api.use('/printer-profiles', printerProfileRoutes(ctx));
   api.use('/print-settings', printSettingsRoutes(ctx));
   api.use('/boards', boardPrintRoutes(ctx));
   api.use('/sites', siteRoutes(ctx));

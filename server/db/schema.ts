@@ -235,6 +235,30 @@ export const sheetLayouts = mysqlTable(
   (t) => [index('sheet_layouts_org_idx').on(t.organisationId)],
 );
 
+/**
+ * A tape or label printer an organisation prints images for: its head's resolution, the printable
+ * band of each tape width it takes (`{"12": 9}`, mm; widths left out keep Waymark's usual band), the
+ * unprinted margin it leaves at each end of a label, and whether it cuts between labels.
+ */
+export const printerProfiles = mysqlTable(
+  'printer_profiles',
+  {
+    id: int('id').autoincrement().primaryKey(),
+    organisationId: int('organisation_id')
+      .notNull()
+      .references(() => organisations.id),
+    name: varchar('name', { length: 80 }).notNull(),
+    dpi: int('dpi').notNull(),
+    bands: json('bands').$type<Record<string, number>>().notNull(),
+    endMarginMm: double('end_margin_mm').notNull(),
+    cutsBetweenLabels: boolean('cuts_between_labels').notNull(),
+    /** Bumped by every write; a save names the revision it was made from (`WHERE revision = baseRevision`), so a stale one is 409. */
+    revision: int('revision').notNull().default(1),
+    createdAt: now(),
+  },
+  (t) => [index('printer_profiles_org_idx').on(t.organisationId)],
+);
+
 export const reports = mysqlTable(
   'reports',
   {

@@ -5,6 +5,7 @@
 import { z } from 'zod';
 import { mediaIdSchema, printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput } from '../../shared/schemas/print.js';
 import { defaultMedia, printOutputParamSchema } from '../../shared/schemas/print-records.js';
+import { dpiSchema, profileParamSchema } from '../../shared/schemas/printer-profile.js';
 
 export { defaultMedia };
 
@@ -30,6 +31,26 @@ export function parsePrintQuery(params: Record<string, unknown>, query: unknown)
   const schema = printOptionSchemas[output].extend(common);
   const { media, record, ...options } = schema.parse(query ?? {}) as Record<string, unknown> & { media?: MediaId; record?: '0' | '1' };
   return { output, media: media ?? defaultMedia[output], options: options as PrintOptions[typeof output], record: record === '1' };
+}
+
+/** An images request: the print's query, the resolution and the printer profile (each optional). */
+export interface ImageQuery extends PrintQuery {
+  dpi?: number;
+  profileId?: number;
+}
+
+const imageExtras = {
+  dpi: dpiSchema.optional(),
+  profile: profileParamSchema.optional(),
+};
+
+/** Parses an images request as `parsePrintQuery` does, with `dpi` and `profile` beside the output's options. */
+export function parseImageQuery(params: Record<string, unknown>, query: unknown): ImageQuery {
+  const { output } = printOutputParamSchema.parse({ output: params.output });
+  const schema = printOptionSchemas[output].extend({ ...common, ...imageExtras });
+  const parsed = schema.parse(query ?? {}) as Record<string, unknown> & { media?: MediaId; record?: '0' | '1'; dpi?: number; profile?: number };
+  const { media, record, dpi, profile, ...options } = parsed;
+  return { output, media: media ?? defaultMedia[output], options: options as PrintOptions[typeof output], record: record === '1', dpi, profileId: profile };
 }
 
 /** `sheet-12` → 12; other media → null. */

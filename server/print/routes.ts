@@ -5,17 +5,21 @@
  * Recording: a GET never writes (a cross-site link or an image tag can make a browser send one),
  * so a print is recorded only by POST, which needs the CSRF token: `POST …/pdf/:output` (the print
  * page's download and print buttons) and `POST …/pack` (one row per file). The live preview GETs,
- * and so does a plain link to a PDF; neither fills the history.
+ * and so does a plain link to a PDF; neither fills the history. `…/image/:output` answers the same
+ * labels as PNG images (`images.ts`) and records the same way.
  */
 import { Router, type Request, type Response } from 'express';
 import { invalid } from '../errors.js';
 import type { AppContext } from '../context.js';
 import { canEdit, requireUser } from '../auth/guard.js';
 import { idParam, parse } from '../http/parse.js';
+import { dpiSchema, profileParamSchema } from '../../shared/schemas/printer-profile.js';
 import { z } from 'zod';
 import { printOffsetSaveSchema } from '../../shared/schemas/print-records.js';
 import { mediaIdSchema, type PrintWarning } from '../../shared/schemas/print.js';
-import { parsePrintQuery } from './query.js';
+import { parseImageQuery, parsePrintQuery } from './query.js';
+import { printCalibrationImage, printImages, type PrintedImages } from './images.js';
+import { printerSetupFor } from './printer-setup.js';
 import { checkPrint, printCalibration, printHistory, printOffset, printPdf, setPrintOffset } from './service.js';
 import { printPack } from './pack.js';
 
@@ -43,6 +47,17 @@ function sendPdf(res: Response, pdf: Uint8Array, filename: string) {
   res.send(Buffer.from(pdf.buffer, pdf.byteOffset, pdf.byteLength));
 }
 
+function sendImages(res: Response, printed: PrintedImages) {
+  res.set({
+    'Content-Type': printed.contentType,
+    'Content-Disposition': `attachment; filename="${printed.filename}"`,
+    'Cache-Control': 'private, no-store',
+    'X-Waymark-Warnings': warningsHeader(printed.warnings),
+    'X-Waymark-Image-Count': String(printed.imageCount),
+  });
+  res.send(printed.body);
+}
+
 /** Mounted at `/api/boards`, beside the boards router. */
 export function boardPrintRoutes(ctx: AppContext): Router {
   const r = Router();
@@ -57,6 +72,17 @@ export function boardPrintRoutes(ctx: AppContext): Router {
   };
   r.get('/:id/pdf/:output', requireUser, pdfRoute(false));
   r.post('/:id/pdf/:output', requireUser, pdfRoute(true));
+
+  // The same labels as PNG images for a tape printer's phone app (one PNG, or a ZIP of them in print order).
+  const imageRoute = (record: boolean) => async (req: Request, res: Response) => {
+    const boardId = idParam(req.params);
+    const query = parseImageQuery(req.params, req.query);
+    if (query.record && !record) throw invalid('A GET records nothing: send POST to record a print', { record: 'Use POST to record the print' });
+    const setup = await printerSetupFor(ctx, req.user!, query);
+    sendImages(res, await printImages(ctx, req.user!, boardId, { ...query, record }, setup));
+  };
+  r.get('/:id/image/:output', requireUser, imageRoute(false));
+  r.post('/:id/image/:output', requireUser, imageRoute(true));
 
   r.get('/:id/pdf/:output/warnings', requireUser, async (req, res) => {
     const boardId = idParam(req.params);
@@ -78,6 +104,11 @@ export function boardPrintRoutes(ctx: AppContext): Router {
 }
 
 const calibrationQuerySchema = z.strictObject({ media: mediaIdSchema.default('a4') });
+const calibrationImageQuerySchema = z.strictObject({
+  media: mediaIdSchema.default('tape-12'),
+  dpi: dpiSchema.optional(),
+  profile: profileParamSchema.optional(),
+});
 
 /** Mounted at `/api/print-settings`: the offset and the calibration page that checks it. */
 export function printSettingsRoutes(ctx: AppContext): Router {
@@ -90,6 +121,12 @@ export function printSettingsRoutes(ctx: AppContext): Router {
     const { media } = parse(calibrationQuerySchema, req.query);
     const printed = await printCalibration(ctx, req.user!, media);
     sendPdf(res, printed.pdf, printed.filename);
+  });
+  // The raster twin: the calibration page as the images route draws it, to check a printer profile.
+  r.get('/calibration/image', async (req, res) => {
+    const { media, dpi, profile } = parse(calibrationImageQuerySchema, req.query);
+    const setup = await printerSetupFor(ctx, req.user!, { dpi, profileId: profile });
+    sendImages(res, await printCalibrationImage(ctx, req.user!, media, setup));
   });
   r.put('/offset', canEdit, async (req, res) => {
     res.json(await setPrintOffset(ctx, req.user!, parse(printOffsetSaveSchema, req.body)));

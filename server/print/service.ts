@@ -7,7 +7,7 @@ import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
 import type { Medium, RenderRequest, RenderResult } from '../pdf/types.js';
 import { LayoutError } from '../pdf/types.js';
-import { layoutOutput, renderOutput, resolveMedium } from '../pdf/index.js';
+import { layoutOutput, renderOutput, resolveMedium, type TapeSettings } from '../pdf/index.js';
 import { printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput, type PrintWarning } from '../../shared/schemas/print.js';
 import type { PrintOffsetSave, PrintOffsetState, PrintRecord } from '../../shared/schemas/print-records.js';
 import { flagWorkProblem } from '../pdf/layout/work.js';
@@ -31,7 +31,8 @@ function cannotLayOut(err: LayoutError): AppError {
   return new AppError(422, 'cannot_lay_out', err.message, { [err.field ?? 'media']: err.message });
 }
 
-async function engine<T>(work: () => Promise<T> | T): Promise<T> {
+/** Runs engine work; a layout the medium cannot take becomes 422 with the field to change. */
+export async function engine<T>(work: () => Promise<T> | T): Promise<T> {
   try {
     return await work();
   } catch (err) {
@@ -41,9 +42,9 @@ async function engine<T>(work: () => Promise<T> | T): Promise<T> {
 }
 
 /** `sheet-<id>` must be one of the caller's organisation's layouts (another's id is a 404). */
-async function mediumFor(ctx: AppContext, organisationId: number, media: MediaId): Promise<Medium> {
+async function mediumFor(ctx: AppContext, organisationId: number, media: MediaId, tape: TapeSettings = {}): Promise<Medium> {
   const layoutId = sheetLayoutId(media);
-  if (layoutId === null) return engine(() => resolveMedium(media));
+  if (layoutId === null) return engine(() => resolveMedium(media, undefined, tape));
   const layout = await getLayout(ctx.db, organisationId, layoutId);
   const { id: _id, ...sheet } = layout;
   return engine(() => resolveMedium(media, { [String(layoutId)]: sheet }));
@@ -63,11 +64,20 @@ async function onlyWaysFor(ctx: AppContext, organisationId: number, source: Prin
   return ways;
 }
 
-/** The engine's request for one output of a loaded board, after the work limit is checked. */
-async function renderRequestFor(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderRequest<PrintOutput>> {
+/**
+ * The engine's request for one output of a loaded board, after the work limit is checked. `tape` is a
+ * printer profile's printable bands and end margin (the images route); the PDF uses the usual ones.
+ */
+export async function renderRequestFor(
+  ctx: AppContext,
+  user: CurrentUser,
+  source: PrintSource,
+  query: PrintQuery,
+  tape: TapeSettings = {},
+): Promise<RenderRequest<PrintOutput>> {
   // A changeover schedule of a board with no survey is the caller's mistake, not a layout the medium cannot take.
   if (query.output === 'changeover' && !source.schedule.survey?.ways.length) throw invalid(NO_SURVEY, { survey: NO_SURVEY });
-  const medium = await mediumFor(ctx, user.organisationId, query.media);
+  const medium = await mediumFor(ctx, user.organisationId, query.media, tape);
   const onlyWays = await onlyWaysFor(ctx, user.organisationId, source, query);
   if (query.output === 'flags') {
     const problem = flagWorkProblem(source.schedule, query.options as PrintOptions['flags'], onlyWays);
