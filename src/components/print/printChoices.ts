@@ -72,6 +72,9 @@ export function customSize(media: string): [number, number] | null {
 
 /** A readable name for a medium id, for the history table. */
 export function mediumName(media: string, layouts: SheetLayoutRecord[]): string {
+  // Images for a tape printer's app are recorded as `tape-12@180dpi`.
+  const image = /^(.+)@(\d+)dpi$/.exec(media);
+  if (image) return `${mediumName(image[1], layouts)}, images at ${image[2]} dpi`;
   const tape = /^tape-(\d+)$/.exec(media);
   if (tape) return `Tape ${tape[1]} mm`;
   const custom = customSize(media);
