@@ -146,6 +146,8 @@ describe('bad image requests', () => {
     const { id } = await createBoardWith(owner, makeSchedule(300));
     const work = await owner.get(`/api/boards/${id}/image/flags?media=tape-12&legs=8&bothEnds=true`).expect(422);
     expect(work.body.error.message).toMatch(/fewer ways|one end/);
+    const many = await owner.get(`/api/boards/${id}/image/flags?media=tape-12`).expect(422);
+    expect(many.body.error.message).toMatch(/at most 200 go in one: print fewer ways/);
     const started = performance.now();
     const huge = await owner.get(`/api/boards/${id}/image/chart?media=custom-2000x2000&dpi=600`).expect(422);
     expect(huge.body.error.fields.dpi).toMatch(/lower dpi/);

@@ -10,9 +10,9 @@ import { LayoutError, type Medium, type RenderRequest } from '../types.js';
 import type { PrintOutput, PrintWarning } from '../../../shared/schemas/print.js';
 import { decodes, svgToPng } from './draw.js';
 import { pageSvg } from './svg.js';
-import { MAX_IMAGE_PIXELS, MAX_REQUEST_PIXELS, pixelsFor } from './scale.js';
+import { MAX_IMAGE_PIXELS, MAX_IMAGES_PER_REQUEST, MAX_REQUEST_PIXELS, pixelsFor } from './scale.js';
 
-export { pixelsFor, COMMON_DPI, MAX_IMAGE_PIXELS, MAX_REQUEST_PIXELS } from './scale.js';
+export { pixelsFor, COMMON_DPI, MAX_IMAGE_PIXELS, MAX_IMAGES_PER_REQUEST, MAX_REQUEST_PIXELS } from './scale.js';
 
 export interface RasterImage {
   png: Buffer;
@@ -38,6 +38,11 @@ function checkSize(layout: LayoutDoc, dpi: number): void {
   const largest = Math.max(0, ...sizes);
   const total = sizes.reduce((a, b) => a + b, 0);
   const mp = (px: number) => `${Math.round(px / 1e6)} MP`;
+  if (layout.pages.length > MAX_IMAGES_PER_REQUEST)
+    throw new LayoutError(
+      `This print would make ${layout.pages.length} images; at most ${MAX_IMAGES_PER_REQUEST} go in one: print fewer ways at a time (the ways option)`,
+      'media',
+    );
   if (largest > MAX_IMAGE_PIXELS)
     throw new LayoutError(`At ${dpi} dpi one image would be ${mp(largest)}, over ${mp(MAX_IMAGE_PIXELS)}: choose a lower dpi or a smaller medium`, 'dpi');
   if (total > MAX_REQUEST_PIXELS)

@@ -26,3 +26,8 @@ export function pixelsPerMm(dpi: number): number {
 export const MAX_IMAGE_PIXELS = 40_000_000;
 /** Largest total of pixels one request draws (every label together). */
 export const MAX_REQUEST_PIXELS = 120_000_000;
+/**
+ * Most images one request draws. Each costs tens of milliseconds (a PDF page costs far less), so a print
+ * the PDF route takes whole (2,000 flags) goes to a phone in parts; a phone app prints a few at a time anyway.
+ */
+export const MAX_IMAGES_PER_REQUEST = 200;
