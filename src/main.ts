@@ -6,7 +6,10 @@ import './styles/base.css';
 import App from './App.vue';
 import { router } from './router/index.js';
 import { installRouteGuards } from './router/guard.js';
+import { watchComboboxes } from './components/app/comboboxAria.js';
 
+// Every select's combobox input, on every screen, says whether it is open and carries its name.
+watchComboboxes(document.body);
 const pinia = createPinia();
 installRouteGuards(router, pinia);
 const app = createApp(App).use(pinia).use(router);
