@@ -5,16 +5,15 @@
  */
 import type { Db } from '../db/client.js';
 import { applyPlan } from '../../shared/schedule/apply-plan.js';
-import { invalid, notFound } from '../errors.js';
-import { findBoardSchedule } from './repository.js';
+import { invalid } from '../errors.js';
+import { requireBoardSchedule } from './member-board.js';
 import { checkFeedsBoardIds, saveScheduleAt, type Actor, type SaveOutcome } from './writes.js';
 
 export type ApplyOutcome = SaveOutcome & { created?: string[]; updated?: string[] };
 
 /** `POST /api/boards/:id/changeover/apply` */
 export async function applyChangeover(db: Db, actor: Actor, id: number, baseRevision: number): Promise<ApplyOutcome> {
-  const row = await findBoardSchedule(db, actor.organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, actor.organisationId, id);
   if (row.revision !== baseRevision) return { status: 'stale', revision: row.revision };
   const plan = applyPlan(row.schedule);
   if (!plan.ok) throw invalid('The plan is not complete; nothing was changed', plan.fields);

@@ -5,8 +5,8 @@
 import { z } from 'zod';
 import type { Db } from '../db/client.js';
 import { BOARD_FILE_FORMAT, boardFileSchema, type BoardFile } from '../../shared/schemas/schedule.js';
-import { invalid, notFound } from '../errors.js';
-import { findBoardSchedule } from './repository.js';
+import { invalid } from '../errors.js';
+import { requireBoardSchedule } from './member-board.js';
 import { circuitsFromCsv, circuitsToCsv } from './circuit-csv.js';
 import { surveyToCsv } from './survey-csv.js';
 import { checkSchedule } from '../../shared/rules/index.js';
@@ -48,8 +48,7 @@ export function fileBaseName(code: string, name: string): string {
 }
 
 export async function exportBoardFile(db: Db, organisationId: number, id: number, now = new Date()): Promise<{ file: BoardFile; baseName: string }> {
-  const row = await findBoardSchedule(db, organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, organisationId, id);
   const file: BoardFile = { format: BOARD_FILE_FORMAT, kind: 'waymark-board', exportedAt: now.toISOString(), ...row.schedule };
   return { file, baseName: fileBaseName(row.code, row.schedule.board.name) };
 }
@@ -66,15 +65,13 @@ export async function importBoardFile(db: Db, actor: Actor, input: BoardImport):
 }
 
 export async function exportCircuitsCsv(db: Db, organisationId: number, id: number): Promise<{ csv: string; baseName: string }> {
-  const row = await findBoardSchedule(db, organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, organisationId, id);
   return { csv: circuitsToCsv(row.schedule.circuits), baseName: fileBaseName(row.code, row.schedule.board.name) };
 }
 
 /** `GET /api/boards/:id/survey.csv`: the old board's survey with today's verdicts; 400 on `survey` when there is none. */
 export async function exportSurveyCsv(db: Db, organisationId: number, id: number, today = todayIso()): Promise<{ csv: string; baseName: string }> {
-  const row = await findBoardSchedule(db, organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, organisationId, id);
   const csv = surveyToCsv(row.schedule, checkSchedule(row.schedule, { today }));
   if (csv == null) throw invalid('This board has no survey of an old board', { survey: 'No survey on this board' });
   return { csv, baseName: fileBaseName(row.code, row.schedule.board.name) };
@@ -82,8 +79,7 @@ export async function exportSurveyCsv(db: Db, organisationId: number, id: number
 
 /** Replaces the board's circuits with the file's, as one save against `baseRevision` (so stale is 409 as ever). */
 export async function importCircuitsCsv(db: Db, actor: Actor, id: number, csv: string, baseRevision: number): Promise<SaveOutcome> {
-  const row = await findBoardSchedule(db, actor.organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, actor.organisationId, id);
   if (row.revision !== baseRevision) return { status: 'stale', revision: row.revision };
   const result = circuitsFromCsv(csv, row.schedule.circuits);
   if (!result.ok) throw invalid('The file has errors; nothing was imported', result.fields);

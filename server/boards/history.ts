@@ -5,21 +5,16 @@ import type { Db } from '../db/client.js';
 import type { DiffResponse, RevisionListItem, RevisionSnapshot } from '../../shared/schemas/boards.js';
 import { diffSchedules } from '../../shared/schedule/diff.js';
 import { notFound } from '../errors.js';
-import { findBoardState } from './repository.js';
+import { requireLiveBoardState } from './member-board.js';
 import { findRevision, listRevisions } from './revision-repository.js';
 
-async function requireLiveBoard(db: Db, organisationId: number, boardId: number): Promise<void> {
-  const state = await findBoardState(db, organisationId, boardId);
-  if (!state || state.deletedAt) throw notFound('No such board');
-}
-
 export async function boardRevisions(db: Db, organisationId: number, boardId: number): Promise<{ items: RevisionListItem[] }> {
-  await requireLiveBoard(db, organisationId, boardId);
+  await requireLiveBoardState(db, organisationId, boardId);
   return { items: await listRevisions(db, organisationId, boardId) };
 }
 
 export async function boardRevision(db: Db, organisationId: number, boardId: number, number: number): Promise<RevisionSnapshot> {
-  await requireLiveBoard(db, organisationId, boardId);
+  await requireLiveBoardState(db, organisationId, boardId);
   const revision = await findRevision(db, organisationId, boardId, number);
   if (!revision) throw notFound(`No revision ${number} of this board`);
   return revision;

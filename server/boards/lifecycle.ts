@@ -6,22 +6,17 @@ import type { Db } from '../db/client.js';
 import type { BoardPatch } from '../../shared/schemas/boards.js';
 import { conflict, notFound } from '../errors.js';
 import { newPublicToken } from './codes.js';
-import { findBoardSchedule, findBoardState, updateBoardColumns } from './repository.js';
+import { findBoardState, updateBoardColumns } from './repository.js';
+import { requireBoardSchedule, requireLiveBoardState } from './member-board.js';
 import { checkSiteField, createBoardRecord, type Actor } from './writes.js';
 
 /** How long the owner can bring a deleted board back. */
 export const RESTORE_DAYS = 30;
 const DAY_MS = 24 * 3600 * 1000;
 
-async function liveBoard(db: Db, organisationId: number, id: number) {
-  const state = await findBoardState(db, organisationId, id);
-  if (!state || state.deletedAt) throw notFound('No such board');
-  return state;
-}
-
 /** Soft delete: the board leaves every list and its public page, and can be restored for 30 days. */
 export async function deleteBoard(db: Db, organisationId: number, id: number, now = new Date()): Promise<void> {
-  await liveBoard(db, organisationId, id);
+  await requireLiveBoardState(db, organisationId, id);
   await updateBoardColumns(db, organisationId, id, { deletedAt: now });
 }
 
@@ -37,8 +32,7 @@ export async function restoreBoard(db: Db, organisationId: number, id: number, n
 
 /** A copy with its own code and public token, starting its own history at revision 1. */
 export async function duplicateBoard(db: Db, actor: Actor, id: number): Promise<number> {
-  const source = await findBoardSchedule(db, actor.organisationId, id);
-  if (!source) throw notFound('No such board');
+  const source = await requireBoardSchedule(db, actor.organisationId, id);
   const name = `${source.schedule.board.name.slice(0, 113)} (copy)`;
   const schedule = { ...source.schedule, board: { ...source.schedule.board, name } };
   return createBoardRecord(db, actor, schedule, source.siteId, `Duplicated from ${source.code} revision ${source.revision}`);
@@ -46,21 +40,21 @@ export async function duplicateBoard(db: Db, actor: Actor, id: number): Promise<
 
 /** `PATCH /api/boards/:id`: only the site; names and everything else live in the schedule and its revisions. */
 export async function patchBoard(db: Db, organisationId: number, id: number, patch: BoardPatch): Promise<void> {
-  await liveBoard(db, organisationId, id);
+  await requireLiveBoardState(db, organisationId, id);
   if (patch.siteId === undefined) return;
   await checkSiteField(db, organisationId, patch.siteId);
   await updateBoardColumns(db, organisationId, id, { siteId: patch.siteId });
 }
 
 export async function setPublicEnabled(db: Db, organisationId: number, id: number, enabled: boolean): Promise<{ publicEnabled: boolean }> {
-  await liveBoard(db, organisationId, id);
+  await requireLiveBoardState(db, organisationId, id);
   await updateBoardColumns(db, organisationId, id, { publicEnabled: enabled });
   return { publicEnabled: enabled };
 }
 
 /** A new token retires the old link at once: every printed QR code for this board stops working. */
 export async function rotatePublicToken(db: Db, organisationId: number, id: number): Promise<{ publicToken: string }> {
-  await liveBoard(db, organisationId, id);
+  await requireLiveBoardState(db, organisationId, id);
   const publicToken = newPublicToken();
   await updateBoardColumns(db, organisationId, id, { publicToken });
   return { publicToken };

@@ -6,6 +6,7 @@ import { and, eq, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { boards } from '../db/schema.js';
 import { notFound } from '../errors.js';
+import { findBoardSchedule, findBoardState, type BoardScheduleRow } from './repository.js';
 
 export interface MemberBoardRow {
   id: number;
@@ -42,4 +43,18 @@ export async function requireMemberBoard(db: Db, organisationId: number, boardId
   const board = await findMemberBoard(db, organisationId, boardId);
   if (!board) throw notFound('No such board');
   return board;
+}
+
+/** The live board with its whole schedule, or the same 404 as {@link requireMemberBoard}. */
+export async function requireBoardSchedule(db: Db, organisationId: number, boardId: number): Promise<BoardScheduleRow> {
+  const row = await findBoardSchedule(db, organisationId, boardId);
+  if (!row) throw notFound('No such board');
+  return row;
+}
+
+/** Id, revision and code of a live (not deleted) board, or the same 404. */
+export async function requireLiveBoardState(db: Db, organisationId: number, boardId: number) {
+  const state = await findBoardState(db, organisationId, boardId);
+  if (!state || state.deletedAt) throw notFound('No such board');
+  return state;
 }

@@ -8,7 +8,8 @@ import type { BoardCreate, BoardListQuery, BoardListResponse, BoardSummary } fro
 import type { Finding } from '../../shared/rules/types.js';
 import { checkSchedule } from '../../shared/rules/index.js';
 import { notFound } from '../errors.js';
-import { findBoardSchedule, findBoardSummary, listBoards } from './repository.js';
+import { findBoardSummary, listBoards } from './repository.js';
+import { requireBoardSchedule } from './member-board.js';
 import { checkSiteField, createBoardRecord, saveScheduleAt, type Actor, type SaveOutcome } from './writes.js';
 import { buildTemplate, scheduleTemplates } from '../../shared/schedule/templates.js';
 import { todayIso } from '../http/clock.js';
@@ -40,8 +41,7 @@ export async function getBoardSummary(db: Db, organisationId: number, id: number
 
 /** The whole schedule with its revision: one query, whatever the number of circuits. */
 export async function getSchedule(db: Db, organisationId: number, id: number): Promise<ScheduleResponse> {
-  const row = await findBoardSchedule(db, organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, organisationId, id);
   return { ...row.schedule, id: row.id, revision: row.revision, updatedAt: row.updatedAt, code: row.code, siteId: row.siteId };
 }
 
@@ -54,7 +54,6 @@ export function saveSchedule(db: Db, actor: Actor, id: number, input: ScheduleSa
 
 /** `GET /api/boards/:id/check`: the rule set applied to the saved schedule, today. */
 export async function checkBoard(db: Db, organisationId: number, id: number, today = todayIso()): Promise<{ findings: Finding[] }> {
-  const row = await findBoardSchedule(db, organisationId, id);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, organisationId, id);
   return { findings: checkSchedule(row.schedule, { today }) };
 }

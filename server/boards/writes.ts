@@ -10,7 +10,8 @@ import type { Schedule } from '../../shared/schemas/schedule.js';
 import { diffSchedules } from '../../shared/schedule/diff.js';
 import { invalid, notFound } from '../errors.js';
 import { newBoardCode, newPublicToken } from './codes.js';
-import { existingBoardIds, findBoardSchedule, findBoardState, insertBoard, siteExists, updateScheduleIfAt } from './repository.js';
+import { existingBoardIds, findBoardState, insertBoard, siteExists, updateScheduleIfAt } from './repository.js';
+import { requireBoardSchedule } from './member-board.js';
 import { insertRevision } from './revision-repository.js';
 import { sameSchedule, searchTextOf } from './stored.js';
 
@@ -95,8 +96,7 @@ export type SaveOutcome =
  * overwritten silently. The revision row and the board row change in one transaction.
  */
 export async function saveScheduleAt(db: Db, actor: Actor, boardId: number, baseRevision: number, schedule: Schedule): Promise<SaveOutcome> {
-  const current = await findBoardSchedule(db, actor.organisationId, boardId);
-  if (!current) throw notFound('No such board');
+  const current = await requireBoardSchedule(db, actor.organisationId, boardId);
   if (current.revision !== baseRevision) return { status: 'stale', revision: current.revision };
   await checkFeedsBoardIds(db, actor.organisationId, schedule, boardId);
   if (sameSchedule(current.schedule, schedule)) return { status: 'unchanged', revision: current.revision, summary: 'No changes', changed: false };

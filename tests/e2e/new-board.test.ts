@@ -54,6 +54,6 @@ describe('a new board, from the form to the first report', { timeout: 180_000 },
     await page.getByRole('link', { name: '1 report from the board page to check' }).click();
     await page.waitForURL(new RegExp(`/boards/${id}/page`));
     await page.getByRole('link', { name: 'Correct way 2 in the schedule' }).waitFor();
-    expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true);
+    expect(await page.evaluate('document.documentElement.scrollWidth <= window.innerWidth')).toBe(true);
   });
 });
