@@ -27,6 +27,7 @@ async function ownerWithBoard() {
   const owner = await signupOwner(t.app);
   const schedule = makeSchedule(5);
   const board = await createBoardWith(owner, schedule);
+  await owner.patch(`/api/boards/${board.id}/public`, { enabled: true }).expect(200); // a new board's page starts off; the tag then carries a QR code
   return { owner, id: board.id, revision: board.revision, schedule };
 }
 

@@ -26,6 +26,9 @@ async function boardWithLongLabel(page: Page): Promise<number> {
   const schedule = scheduleSchema.parse({ ...base, circuits: base.circuits.map((c, i) => (i === 1 ? { ...c, label: LONG_LABEL } : c)) });
   const saved = await page.request.put(`/api/boards/${id}/schedule`, { headers, data: { ...schedule, baseRevision: 1 } });
   if (saved.status() !== 200) throw new Error(`save failed: ${saved.status()} ${await saved.text()}`);
+  // A new board's page starts off: switch it on, so the tag carries its QR code.
+  const shared = await page.request.patch(`/api/boards/${id}/public`, { headers, data: { enabled: true } });
+  if (shared.status() !== 200) throw new Error(`page switch failed: ${shared.status()}`);
   return id;
 }
 
