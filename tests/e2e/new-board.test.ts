@@ -53,7 +53,10 @@ describe('a new board, from the form to the first report', { timeout: 180_000 },
     await page.goto('/boards');
     await page.getByRole('link', { name: '1 report from the board page to check' }).click();
     await page.waitForURL(new RegExp(`/boards/${id}/page`));
-    await page.getByRole('link', { name: 'Correct way 2 in the schedule' }).waitFor();
+    await page.getByRole('link', { name: 'Correct way 2 in the schedule' }).click();
+    // The editor opens way 2's circuit (on a phone, its form) with the cursor in its label.
+    await page.waitForURL(new RegExp(`/boards/${id}\\?way=2$`));
+    await expect.poll(() => page.evaluate('document.activeElement && document.activeElement.value')).toBe('Kitchen sockets');
     expect(await page.evaluate('document.documentElement.scrollWidth <= window.innerWidth')).toBe(true);
   });
 });
