@@ -10,12 +10,12 @@ export const COMPRESSION_THRESHOLD = 1024;
 
 /** Types whose bytes are packed already (PDF streams, archives, raw files): encoding them again only costs time. */
 const PACKED_TYPES = new Set(['application/pdf', 'application/zip', 'application/gzip', 'application/octet-stream']);
-/** Families of packed media (PNG/JPEG, fonts, sound, film); SVG is text and is compressed. */
-const PACKED_FAMILIES = ['image/', 'font/', 'audio/', 'video/'];
+/** Top-level media types whose formats are packed already (pictures, fonts, sound, film); SVG is text and is compressed. */
+const PACKED_MEDIA = /^(?:image|font|audio|video)\//;
 
 function alreadyPacked(contentType: string): boolean {
   const type = contentType.split(';')[0]!.trim().toLowerCase();
-  return PACKED_TYPES.has(type) || (type !== 'image/svg+xml' && PACKED_FAMILIES.some((f) => type.startsWith(f)));
+  return PACKED_TYPES.has(type) || (type !== 'image/svg+xml' && PACKED_MEDIA.test(type));
 }
 
 function shouldCompress(req: Request, res: Response): boolean {
