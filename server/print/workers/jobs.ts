@@ -1,0 +1,35 @@
+/**
+ * What the main thread sends a render worker and what comes back. Both sides import this file, so
+ * the message shapes have one home. A LayoutError cannot cross a thread as its class (a thrown
+ * error is cloned as a plain Error), so the worker answers it as data and the pool throws it again.
+ */
+import type { PrintOutput, PrintWarning } from '../../../shared/schemas/print.js';
+import type { RenderRequest, RenderResult } from '../../pdf/types.js';
+import type { RasterImage } from '../../pdf/raster/index.js';
+
+export type RenderJob =
+  /** The PDF of one output (`renderOutput`). */
+  | { kind: 'pdf'; request: RenderRequest<PrintOutput> }
+  /** The same output as PNG images at `dpi` (`rasterOutput`). */
+  | { kind: 'images'; request: RenderRequest<PrintOutput>; dpi: number }
+  /** Laid out only, for the warnings list (`layoutOutput`). */
+  | { kind: 'check'; request: RenderRequest<PrintOutput> };
+
+export interface CheckedLayout {
+  warnings: PrintWarning[];
+  pageCount: number;
+}
+
+export interface DrawnImages {
+  images: RasterImage[];
+  warnings: PrintWarning[];
+}
+
+/** The answer for each kind of job. */
+export interface JobResults {
+  pdf: RenderResult;
+  images: DrawnImages;
+  check: CheckedLayout;
+}
+
+export type JobAnswer<K extends RenderJob['kind']> = { ok: true; result: JobResults[K] } | { ok: false; layoutError: { message: string; field?: string } };
