@@ -58,3 +58,10 @@ export async function requireLiveBoardState(db: Db, organisationId: number, boar
   if (!state || state.deletedAt) throw notFound('No such board');
   return state;
 }
+
+/** The board's state even when deleted (print history stays readable), or the same 404 for another organisation's id. */
+export async function requireOwnBoardState(db: Db, organisationId: number, boardId: number) {
+  const state = await findBoardState(db, organisationId, boardId);
+  if (!state) throw notFound('No such board');
+  return state;
+}

@@ -19,7 +19,7 @@ import { loadCalibrationSource, loadPrintSource, scheduleAtRevision, type PrintS
 import { sheetLayoutId, type PrintQuery } from './query.js';
 import * as repo from './repository.js';
 import { todayIso as today } from '../http/clock.js';
-import { findBoardState } from '../boards/repository.js';
+import { requireOwnBoardState } from '../boards/member-board.js';
 import { findOrganisation, updatePrintOffsetIfAt } from '../organisation/repository.js';
 
 export interface PrintedPdf extends RenderResult {
@@ -148,7 +148,7 @@ export async function checkPrint(
 
 export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: number): Promise<PrintRecord[]> {
   // Deleted boards keep their print history readable, so this asks only whose board it is.
-  if (!(await findBoardState(ctx.db, user.organisationId, boardId))) throw notFound('No such board');
+  await requireOwnBoardState(ctx.db, user.organisationId, boardId);
   const rows = await repo.listPrints(ctx.db, boardId);
   return rows.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }));
 }

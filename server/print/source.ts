@@ -12,7 +12,7 @@ import { checkSchedule, maxZsByCircuit, nextInspectionDate } from '../../shared/
 import { isoDay } from '../../shared/rules/dates.js';
 import { boardPageUrl } from '../../shared/public/board-page.js';
 import { invalid, notFound } from '../errors.js';
-import { findBoardSchedule } from '../boards/repository.js';
+import { requireBoardSchedule } from '../boards/member-board.js';
 import { findRevision } from '../boards/revision-repository.js';
 import { findOrganisation } from '../organisation/repository.js';
 import { findLogo } from '../uploads/repository.js';
@@ -39,8 +39,7 @@ async function contractorOf(db: Db, organisationId: number): Promise<{ contracto
  * a deleted board or an unknown id is a 404.
  */
 export async function loadPrintSource(db: Db, config: ServerConfig, organisationId: number, boardId: number, today: string): Promise<PrintSource> {
-  const row = await findBoardSchedule(db, organisationId, boardId);
-  if (!row) throw notFound('No such board');
+  const row = await requireBoardSchedule(db, organisationId, boardId);
   const [{ contractor, offset }, current] = await Promise.all([contractorOf(db, organisationId), findRevision(db, organisationId, row.id, row.revision)]);
   const schedule = row.schedule;
   const board: BoardMeta = {
