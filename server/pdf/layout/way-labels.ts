@@ -10,7 +10,8 @@ import { TAPE_MAX_LENGTH_MM } from '../media.js';
 import type { LayoutContext } from './context.js';
 import { placePieces, slotFor, slotMaxLength, type Piece } from './place.js';
 import { spareWays } from '../../../shared/schedule/ways.js';
-import { cellItems, cellSizes, type CellCaps, type CellText, type RowCaps } from './way-cell.js';
+import { cellItems, cellSizes, deviceLimits, deviceRoom, type CellCaps, type CellText, type DeviceLines, type RowCaps } from './way-cell.js';
+import { cellList, chooseDeviceFit, deviceFitWarnings, type DeviceCell } from './way-device-text.js';
 
 /** Strip height when tiled on a plain sheet (mm), unless the option says otherwise. // common practice */
 const PAGE_STRIP_HEIGHT_MM = 12;
@@ -81,8 +82,14 @@ function textFor(d: Device, circuits: Circuit[], rcds: Map<string, string>, spar
  */
 const EVEN_FLOOR_PT = 7;
 
-function rowCaps(cells: WayCell[], heightMm: number, texts: Map<string, CellText>, ctx: LayoutContext<'way-labels'>): RowCaps {
-  const measured = cells.map((c) => cellSizes(texts.get(c.deviceId)!, { x: 0, y: 0, w: c.w, h: heightMm }, ctx));
+function rowCaps(
+  cells: WayCell[],
+  heightMm: number,
+  texts: Map<string, CellText>,
+  devices: Map<string, DeviceLines>,
+  ctx: LayoutContext<'way-labels'>,
+): RowCaps {
+  const measured = cells.map((c) => cellSizes(texts.get(c.deviceId)!, { x: 0, y: 0, w: c.w, h: heightMm }, ctx, devices.get(c.deviceId)));
   const capsOf = (turned: boolean): CellCaps => {
     const sizes = measured.filter((m) => m.turned === turned).map((m) => m.sizes);
     return {
@@ -91,6 +98,54 @@ function rowCaps(cells: WayCell[], heightMm: number, texts: Map<string, CellText
     };
   };
   return { upright: capsOf(false), turned: capsOf(true) };
+}
+
+/** How a warning names a cell: "way 4 L1", "ways 1, 2", or the device's own name. */
+function cellWarningName(t: CellText): string {
+  if (!/^\d/.test(t.ways)) return t.ways || 'a device';
+  return `${t.ways.includes(',') ? 'ways' : 'way'} ${t.ways}`;
+}
+
+/**
+ * The row's device texts fitted once for the whole row (way-device-text.ts), so every cell sets them
+ * at one size in one form, whichever part or changed ways are printed; the warning says what it did.
+ */
+function rowDeviceLines(
+  row: number,
+  cells: WayCell[],
+  heightMm: number,
+  texts: Map<string, CellText>,
+  ctx: LayoutContext<'way-labels'>,
+): Map<string, DeviceLines> {
+  const strip = `Row ${row} way labels`;
+  const fitted: Array<{ id: string; cell: DeviceCell }> = [];
+  const leftOff: string[] = [];
+  for (const c of cells) {
+    const t = texts.get(c.deviceId)!;
+    const room = deviceRoom(t, { x: 0, y: 0, w: c.w, h: heightMm }, ctx);
+    if (room === 'too-low') leftOff.push(`${cellWarningName(t)} "${t.device}"`);
+    else if (room) fitted.push({ id: c.deviceId, cell: { ...room, name: cellWarningName(t), device: t.device } });
+  }
+  if (leftOff.length) {
+    const wider = ctx.req.medium.kind === 'tape' ? 'print on 9 mm tape or wider' : 'choose a taller strip (6 mm or more)';
+    ctx.warnings.add({
+      code: 'device-text-left-off',
+      label: strip,
+      message: `${strip}: a ${heightMm} mm high strip holds one line of text, so the device text is left off ${cellList(leftOff)}; ${wider} to show it`,
+    });
+  }
+  const fit = chooseDeviceFit(
+    fitted.map((f) => f.cell),
+    deviceLimits(ctx),
+    ctx.tm,
+  );
+  for (const w of deviceFitWarnings(
+    strip,
+    fitted.map((f) => f.cell),
+    fit,
+  ))
+    ctx.warnings.add(w);
+  return new Map(fitted.map((f, i) => [f.id, { lines: fit.cells[i].lines, sizePt: fit.sizePt }]));
 }
 
 /** "▼▲ meet part 2", "… parts 1 and 3", "… part 2": each part names the parts its marks meet. */
@@ -112,6 +167,7 @@ function segmentPiece(
   ctx: LayoutContext<'way-labels'>,
   joins: { left: boolean; right: boolean },
   caps: RowCaps,
+  deviceLines: Map<string, DeviceLines>,
 ): Piece {
   const mark = Math.min(2, heightMm / 4);
   const name = `Row ${strip.row} way labels${strip.parts > 1 ? ` (part ${strip.part} of ${strip.parts})` : ''}`;
@@ -130,7 +186,7 @@ function segmentPiece(
     if (joins.right && cell.x + cell.w > strip.lengthMm - 1e-6) textBox.w -= mark;
     const t = texts.get(cell.deviceId)!;
     const cellName = /^\d/.test(t.ways) ? `Way ${t.ways} label` : `${devices.get(cell.deviceId)?.label || t.ways || 'Device'} label`;
-    items.push(...cellItems(t, textBox, ctx, cellName, caps));
+    items.push(...cellItems(t, textBox, ctx, cellName, caps, deviceLines.get(cell.deviceId)));
   }
   items.push({ kind: 'line', from: { x: strip.lengthMm, y: 0 }, to: { x: strip.lengthMm, y: heightMm }, lineMm: 0.2, color: BLACK });
   const half = (x: number, dir: 1 | -1): Item[] => [
@@ -190,14 +246,15 @@ export function wayLabelPlan(ctx: LayoutContext<'way-labels'>): StripPlan {
       byDevice,
       ctx.options.pitchMm,
     );
-    const caps = rowCaps(cells, slot.heightMm, texts, ctx);
+    const deviceLines = rowDeviceLines(row, cells, slot.heightMm, texts, ctx);
+    const caps = rowCaps(cells, slot.heightMm, texts, deviceLines, ctx);
     const groups = only ? cells.filter((c) => c.ways.some((w) => only.has(w))).map((c) => [{ ...c, x: 0 }]) : [cells];
     for (cells of groups) {
       const parts = splitPoints(cells, max);
       parts.forEach(([a, b], i) => {
         const strip: WayStrip = { row, part: i + 1, parts: parts.length, startMm: a, lengthMm: b - a, cells: cellsIn(cells, a, b) };
         strips.push(strip);
-        pieces.push(segmentPiece(strip, slot.heightMm, devices, texts, ctx, { left: i > 0, right: i < parts.length - 1 }, caps));
+        pieces.push(segmentPiece(strip, slot.heightMm, devices, texts, ctx, { left: i > 0, right: i < parts.length - 1 }, caps, deviceLines));
       });
     }
   }
