@@ -4,6 +4,7 @@ import type { ServerConfig } from './config.js';
 import { openDatabase } from './db/client.js';
 import { smtpMailer } from './mail/mailer.js';
 import type { AppContext } from './context.js';
+import { closeRenderPool, warmRenderPool } from './print/workers/pool.js';
 
 export interface RunningServer {
   port: number;
@@ -17,6 +18,8 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
   const mailer = smtpMailer({ ...config.smtp, tagOrganisation: config.devMail });
   const ctx: AppContext = { config, database, db: database.db, mailer };
   const built = createApp(ctx);
+  // The render threads load the print engine now, so the first print does not wait for them.
+  warmRenderPool({ threads: config.printThreads ?? undefined });
   const server: Server = await new Promise((resolve) => {
     const s = built.app.listen(config.port, () => resolve(s));
   });
@@ -30,6 +33,7 @@ export async function startServer(config: ServerConfig): Promise<RunningServer> 
       server.closeAllConnections();
       await closed;
       await built.close();
+      await closeRenderPool();
       mailer.close();
       await database.close();
     },

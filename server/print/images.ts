@@ -8,7 +8,7 @@ import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
 import type { MediaId, PrintOutput, PrintWarning } from '../../shared/schemas/print.js';
 import { printOptionSchemas } from '../../shared/schemas/print.js';
-import { rasterOutput, type RasterImage } from '../pdf/raster/index.js';
+import type { RasterImage } from '../pdf/raster/index.js';
 import type { TapeSettings } from '../pdf/index.js';
 import { todayIso as today } from '../http/clock.js';
 import { loadCalibrationSource, loadPrintSource, type PrintSource } from './source.js';
@@ -16,6 +16,7 @@ import { engine, printRecordFor, renderRequestFor } from './service.js';
 import type { ImageQuery, PrintQuery } from './query.js';
 import * as repo from './repository.js';
 import { zipEntries } from './zip.js';
+import { runRenderJob } from './workers/pool.js';
 
 /** Resolution when neither `dpi=` nor a profile gives one: the usual tape printer head. // common practice */
 export const DEFAULT_DPI = 180;
@@ -48,7 +49,11 @@ async function packImages(images: RasterImage[], stem: string): Promise<Pick<Pri
 async function draw(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery, setup: PrinterSetup) {
   const req = await renderRequestFor(ctx, user, source, query, setup.tape);
   // The images go to a tape printer, not the office printer the organisation's offset corrects.
-  return engine(() => rasterOutput({ ...req, offset: { xMm: 0, yMm: 0 } }, setup.dpi));
+  const request = { ...req, offset: { xMm: 0, yMm: 0 } };
+  const drawn = await engine(() => runRenderJob({ kind: 'images', request, dpi: setup.dpi }, ctx.config.printTimeLimitMs));
+  // Bytes from the render thread arrive as Uint8Array; Express sends only a Buffer as bytes.
+  const images: RasterImage[] = drawn.images.map((i) => ({ ...i, png: Buffer.from(i.png.buffer, i.png.byteOffset, i.png.byteLength) }));
+  return { images, warnings: drawn.warnings };
 }
 
 /** One output of a board as images; recorded in the history when the query asks (`record=1`, POST only). */

@@ -7,7 +7,7 @@ import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
 import type { Medium, RenderRequest, RenderResult } from '../pdf/types.js';
 import { LayoutError } from '../pdf/types.js';
-import { layoutOutput, renderOutput, resolveMedium, type TapeSettings } from '../pdf/index.js';
+import { resolveMedium, type TapeSettings } from '../pdf/index.js';
 import { printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput, type PrintWarning } from '../../shared/schemas/print.js';
 import type { PrintOffsetSave, PrintOffsetState, PrintRecord } from '../../shared/schemas/print-records.js';
 import { flagWorkProblem } from '../pdf/layout/work.js';
@@ -21,6 +21,7 @@ import * as repo from './repository.js';
 import { todayIso as today } from '../http/clock.js';
 import { requireOwnBoardState } from '../boards/member-board.js';
 import { findOrganisation, updatePrintOffsetIfAt } from '../organisation/repository.js';
+import { runRenderJob } from './workers/pool.js';
 
 export interface PrintedPdf extends RenderResult {
   filename: string;
@@ -100,8 +101,8 @@ export async function renderRequestFor(
 
 /** Renders one output of a loaded board (the pack renders several from one source). */
 export async function renderWith(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderResult> {
-  const req = await renderRequestFor(ctx, user, source, query);
-  return engine(() => renderOutput(req));
+  const request = await renderRequestFor(ctx, user, source, query);
+  return engine(() => runRenderJob({ kind: 'pdf', request }, ctx.config.printTimeLimitMs));
 }
 
 /** The history row for one printed file. */
@@ -141,9 +142,8 @@ export async function checkPrint(
   query: PrintQuery,
 ): Promise<{ warnings: PrintWarning[]; pageCount: number }> {
   const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
-  const req = await renderRequestFor(ctx, user, source, query);
-  const layout = await engine(() => layoutOutput(req));
-  return { warnings: layout.warnings, pageCount: layout.pages.length };
+  const request = await renderRequestFor(ctx, user, source, query);
+  return engine(() => runRenderJob({ kind: 'check', request }, ctx.config.printTimeLimitMs));
 }
 
 export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: number): Promise<PrintRecord[]> {

@@ -5,7 +5,6 @@
  */
 import type { PrintOutput, PrintWarning } from '../../../shared/schemas/print.js';
 import type { RenderRequest, RenderResult } from '../../pdf/types.js';
-import type { RasterImage } from '../../pdf/raster/index.js';
 
 export type RenderJob =
   /** The PDF of one output (`renderOutput`). */
@@ -20,8 +19,15 @@ export interface CheckedLayout {
   pageCount: number;
 }
 
+/** A PNG as it arrives from a thread: a Node Buffer crosses as a plain Uint8Array. */
+export interface DrawnImage {
+  png: Uint8Array;
+  widthPx: number;
+  heightPx: number;
+}
+
 export interface DrawnImages {
-  images: RasterImage[];
+  images: DrawnImage[];
   warnings: PrintWarning[];
 }
 
