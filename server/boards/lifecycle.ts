@@ -4,10 +4,10 @@
  */
 import type { Db } from '../db/client.js';
 import type { BoardPatch } from '../../shared/schemas/boards.js';
-import { conflict, notFound } from '../errors.js';
+import { conflict } from '../errors.js';
 import { newPublicToken } from './codes.js';
-import { findBoardState, updateBoardColumns } from './repository.js';
-import { requireBoardSchedule, requireLiveBoardState } from './member-board.js';
+import { updateBoardColumns } from './repository.js';
+import { requireBoardSchedule, requireLiveBoardState, requireOwnBoardState } from './member-board.js';
 import { checkSiteField, createBoardRecord, type Actor } from './writes.js';
 
 /** How long the owner can bring a deleted board back. */
@@ -21,8 +21,7 @@ export async function deleteBoard(db: Db, organisationId: number, id: number, no
 }
 
 export async function restoreBoard(db: Db, organisationId: number, id: number, now = new Date()): Promise<void> {
-  const state = await findBoardState(db, organisationId, id);
-  if (!state) throw notFound('No such board');
+  const state = await requireOwnBoardState(db, organisationId, id);
   if (!state.deletedAt) throw conflict('This board is not deleted');
   if (now.getTime() - state.deletedAt.getTime() > RESTORE_DAYS * DAY_MS) {
     throw conflict(`This board was deleted more than ${RESTORE_DAYS} days ago and can no longer be restored`);

@@ -8,10 +8,10 @@ import { isDuplicateKey } from '../db/errors.js';
 import type { Db } from '../db/client.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import { diffSchedules } from '../../shared/schedule/diff.js';
-import { invalid, notFound } from '../errors.js';
+import { invalid } from '../errors.js';
 import { newBoardCode, newPublicToken } from './codes.js';
-import { existingBoardIds, findBoardState, insertBoard, siteExists, updateScheduleIfAt } from './repository.js';
-import { requireBoardSchedule } from './member-board.js';
+import { existingBoardIds, insertBoard, siteExists, updateScheduleIfAt } from './repository.js';
+import { requireBoardSchedule, requireLiveBoardState } from './member-board.js';
 import { insertRevision } from './revision-repository.js';
 import { sameSchedule, searchTextOf } from './stored.js';
 
@@ -107,7 +107,6 @@ export async function saveScheduleAt(db: Db, actor: Actor, boardId: number, base
     return true;
   });
   if (won) return { status: 'saved', revision: baseRevision + 1, summary, changed: true };
-  const now = await findBoardState(db, actor.organisationId, boardId);
-  if (!now || now.deletedAt) throw notFound('No such board');
+  const now = await requireLiveBoardState(db, actor.organisationId, boardId);
   return { status: 'stale', revision: now.revision };
 }
