@@ -113,6 +113,21 @@ export const sessions = mysqlTable('sessions', {
   data: mediumText('data'),
 });
 
+/**
+ * Rate-limit counters every app process shares (`server/http/limit-store.ts`): one row per limit and
+ * key (`login-ip:…`), counting hits until `reset_at`; the next hit after that starts a new window.
+ * Expired rows are deleted now and then by the store.
+ */
+export const rateLimitCounters = mysqlTable(
+  'rate_limit_counters',
+  {
+    counterKey: varchar('counter_key', { length: 255 }).primaryKey(),
+    hits: int('hits', { unsigned: true }).notNull(),
+    resetAt: datetime('reset_at', { mode: 'date', fsp: 3 }).notNull(),
+  },
+  (t) => [index('rate_limit_counters_reset_idx').on(t.resetAt)],
+);
+
 /** Messages caught by the local capture SMTP server (development and tests only). */
 export const capturedMail = mysqlTable('captured_mail', {
   id: int('id').autoincrement().primaryKey(),
