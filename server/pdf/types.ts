@@ -5,6 +5,7 @@
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import type { Finding } from '../../shared/rules/types.js';
 import type { PrintOptions, PrintOutput, PrintWarning, SheetLayout } from '../../shared/schemas/print.js';
+import type { NoticeWordingSet } from '../../shared/schemas/notice-wording.js';
 
 /** A medium resolved to sizes: continuous tape of a width, or a sheet page (optionally die-cut labels). */
 export type Medium =
@@ -31,6 +32,8 @@ export interface Contractor {
   phone: string;
   email: string;
   logo?: { bytes: Uint8Array; mime: 'image/png' | 'image/jpeg' };
+  /** The organisation's own wording of the notices it may reword; one left out prints the prescribed words. */
+  noticeWording?: NoticeWordingSet;
 }
 
 export interface RenderRequest<O extends PrintOutput = PrintOutput> {

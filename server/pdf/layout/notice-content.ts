@@ -1,6 +1,9 @@
 /**
- * What each statutory notice says, in our own words, and which ones a board calls for.
- * BS 7671 Section 514 asks for the notice; the layout and wording here are Waymark's.
+ * What each statutory notice says and which ones a board calls for. Where BS 7671 prescribes the words
+ * (514.12.1, 514.12.2, 514.14.1) the notice prints them, or the organisation's own wording when it has
+ * set one (`shared/notices/prescribed-wording.ts`); the regulation number prints either way. The
+ * earthing label's words are the standard's and fixed; the alternative-supply and voltage notices,
+ * whose words the standard leaves open, are Waymark's.
  */
 import { noticeKindList, type NoticeKind } from '../../../shared/schemas/print.js';
 import type { Schedule } from '../../../shared/schemas/schedule.js';
@@ -8,9 +11,14 @@ import { givesRcdProtection, hasOwnRcd, rcdNames } from '../../../shared/schedul
 import { supplyVoltages } from '../../../shared/schedule/voltage.js';
 import type { BoardMeta } from '../types.js';
 import { printedDate } from './dates.js';
+import { INSPECTION_DATE_LABELS, noticeWordingFor, prescribedNotices } from '../../../shared/notices/prescribed-wording.js';
+import type { NoticeWordingSet } from '../../../shared/schemas/notice-wording.js';
+import { cleanText } from './text.js';
 
 export interface NoticeContent {
   kind: NoticeKind;
+  /** How warnings name the notice, whatever its wording: "Periodic inspection and testing notice". */
+  name: string;
   title: string;
   body: string;
   details: string[];
@@ -49,36 +57,51 @@ function sourcesText(schedule: Schedule): string {
   return kinds.length === 1 ? kinds[0] : `${kinds.slice(0, -1).join(', ')} and ${kinds[kinds.length - 1]}`;
 }
 
-/** One notice's text for this board. */
-export function noticeContent(kind: NoticeKind, schedule: Schedule, board: BoardMeta): NoticeContent {
+/** Heading and wording of an editable notice: the organisation's, else the prescribed words; one paragraph. */
+function wordingOf(kind: keyof typeof prescribedNotices, own: NoticeWordingSet | undefined) {
+  const w = noticeWordingFor(kind, own);
+  return { title: cleanText(w.title), body: cleanText(w.body), regulation: prescribedNotices[kind].regulation };
+}
+
+/** Each notice's name in warnings (not its heading, which an organisation may reword). */
+const NOTICE_NAMES: Record<NoticeKind, string> = {
+  inspection: 'Periodic inspection and testing notice',
+  'rcd-test': 'RCD test notice',
+  earthing: 'Earthing and bonding label',
+  'mixed-colours': 'Mixed wiring colours notice',
+  'alternative-supply': 'Alternative supply notice',
+  voltage: 'Voltage warning notice',
+};
+
+/** One notice's text for this board; `wording` is the organisation's own wording of the notices it may reword. */
+export function noticeContent(kind: NoticeKind, schedule: Schedule, board: BoardMeta, wording?: NoticeWordingSet): NoticeContent {
+  return { ...noticeText(kind, schedule, board, wording), name: NOTICE_NAMES[kind] };
+}
+
+function noticeText(kind: NoticeKind, schedule: Schedule, board: BoardMeta, wording?: NoticeWordingSet): Omit<NoticeContent, 'name'> {
   const b = schedule.board;
   switch (kind) {
     case 'inspection':
       return {
         kind,
-        title: 'Periodic inspection and testing',
+        ...wordingOf(kind, wording),
         symbol: null,
-        regulation: 'BS 7671 514.12.1',
-        body: 'Have this electrical installation inspected and tested by a competent person at regular intervals, and keep each condition report.',
-        details: [`Last inspection: ${printedDate(b.lastInspectionOn) ?? BLANK}`, `Next inspection due: ${printedDate(board.nextInspectionOn) ?? BLANK}`],
+        details: [
+          `${INSPECTION_DATE_LABELS.last}: ${printedDate(b.lastInspectionOn) ?? BLANK}`,
+          `${INSPECTION_DATE_LABELS.next}: ${printedDate(board.nextInspectionOn) ?? BLANK}`,
+        ],
       };
     case 'rcd-test': {
       const names = [...rcdNames(schedule).values()];
       // Combined AFDD/RCBOs have a test button too.
       const rcbos = schedule.devices.filter(hasOwnRcd).length;
       const here = [...names, rcbos ? `${rcbos} RCBO${rcbos > 1 ? 's' : ''}` : ''].filter(Boolean).join(', ');
-      return {
-        kind,
-        title: 'Test the RCDs every six months',
-        symbol: null,
-        regulation: 'BS 7671 514.12.2',
-        body: "Press each RCD's test button (marked T or Test). It should switch off the circuits it protects; switch it back on. If it does not trip, call a competent electrician.",
-        details: here ? [`On this board: ${here}`] : [],
-      };
+      return { kind, ...wordingOf(kind, wording), symbol: null, details: here ? [`On this board: ${here}`] : [] };
     }
     case 'earthing':
       return {
         kind,
+        // BS 7671:2018+A2 Regulation 514.13.1 // from memory (to check against the printed standard)
         title: 'Safety Electrical Connection – Do Not Remove',
         symbol: 'earth',
         regulation: 'BS 7671 514.13.1',
@@ -88,12 +111,12 @@ export function noticeContent(kind: NoticeKind, schedule: Schedule, board: Board
     case 'mixed-colours':
       return {
         kind,
-        title: 'Caution: two wiring colour codes',
+        ...wordingOf(kind, wording),
         symbol: 'warning',
-        regulation: 'BS 7671 514.14.1',
-        body: 'Wiring here is in the colours of both an older and the current edition of BS 7671. Before extending, altering or repairing it, identify every conductor with care.',
+        // BS 7671:2018+A2 Table 51 (current colours); the older ones from memory
         details: ['Older: red, yellow, blue lines; black neutral', 'Current: brown, black, grey lines; blue neutral'],
       };
+    // Our words: BS 7671 asks for the warning (514.15.1) without words we could confirm.
     case 'alternative-supply':
       return {
         kind,

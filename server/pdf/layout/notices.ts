@@ -203,7 +203,7 @@ function roomHint(ctx: LayoutContext<'notices'>): string {
  * notice (514.15.1) is refused rather than cut; other notices print cut, with the usual warning.
  */
 function cannotFit(c: NoticeContent, lines: string[], ctx: LayoutContext<'notices'>): void {
-  const name = `${c.title} notice`;
+  const name = c.name;
   if (c.kind === 'alternative-supply') {
     throw new LayoutError(
       `The alternative-supply notice (${c.regulation}) cannot show where to isolate every source in type of at least ${NOTICE_MIN_PT} pt on ${ctx.req.medium.id}, and it is never printed cut: ${roomHint(ctx)}`,
@@ -264,7 +264,7 @@ function tapeNotice(c: NoticeContent, h: number, maxLength: number, ctx: LayoutC
   // Too thin to stack: two lines, as long as the longer needs.
   const size = narrowSize(area, ctx.tm);
   if (size < NOTICE_MIN_PT) {
-    throw new LayoutError(`${c.title} notice cannot set its wording in at least ${NOTICE_MIN_PT} pt on ${ctx.req.medium.id}: ${roomHint(ctx)}`, 'media');
+    throw new LayoutError(`${c.name} cannot set its wording in at least ${NOTICE_MIN_PT} pt on ${ctx.req.medium.id}: ${roomHint(ctx)}`, 'media');
   }
   const [a, b] = narrowLines(c);
   const w = Math.min(maxLength, Math.ceil(Math.max(ctx.tm.measure(a, 'bold', size), ctx.tm.measure(b, 'regular', size)) + room + 0.5));
@@ -298,7 +298,7 @@ function sheetNotice(c: NoticeContent, slot: Extract<Slot, { kind: 'free' }>, ct
 
 /** The notice as a piece for the slot. */
 function noticePiece(c: NoticeContent, slot: Slot, ctx: LayoutContext<'notices'>): Piece {
-  const name = `${c.title} notice`;
+  const name = c.name;
   if (slot.kind === 'fixed') return { name, widthMm: slot.widthMm, heightMm: slot.heightMm, items: fixedNotice(c, slot.widthMm, slot.heightMm, ctx) };
   if (ctx.req.medium.kind === 'tape') {
     const t = tapeNotice(c, slot.heightMm, Math.min(TAPE_MAX_LENGTH_MM, slot.maxLengthMm), ctx);
@@ -318,7 +318,7 @@ function kindsFor(ctx: LayoutContext<'notices'>): NoticeKind[] {
 function warnIfOverdue(c: NoticeContent, ctx: LayoutContext<'notices'>): void {
   const due = overdueInspection(ctx.req.board.nextInspectionOn, ctx.req.today);
   if (c.kind !== 'inspection' || !due) return;
-  const name = `${c.title} notice`;
+  const name = c.name;
   ctx.warnings.add({
     code: 'inspection-overdue',
     label: name,
@@ -331,7 +331,7 @@ export function layoutNotices(ctx: LayoutContext<'notices'>): LayoutDoc {
   const slot = slotFor(ctx.req.medium, Infinity);
   const pieces: Piece[] = [];
   for (const kind of kindsFor(ctx)) {
-    const content = noticeContent(kind, ctx.req.schedule, ctx.req.board);
+    const content = noticeContent(kind, ctx.req.schedule, ctx.req.board, ctx.req.contractor.noticeWording);
     const copies = kind === 'earthing' ? ctx.options.earthingCount : 1;
     if (copies > 0) warnIfOverdue(content, ctx);
     const piece = copies > 0 ? noticePiece(content, slot, ctx) : null;

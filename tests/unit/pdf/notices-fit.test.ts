@@ -33,7 +33,8 @@ describe('notices fit their wording', () => {
     expect(sizes).toHaveLength(6);
     for (const s of sizes) {
       expect(s.w / PT_PER_MM).toBeCloseTo(24, 1); // tape-24 is 24 mm wide
-      expect(s.h / PT_PER_MM).toBeLessThan(400); // far short of the 1000 mm maximum label length (common practice)
+      // Short of the 1000 mm maximum label length (common practice); the RCD notice's prescribed wording (514.12.2, ~330 characters) is the longest.
+      expect(s.h / PT_PER_MM).toBeLessThan(600);
       expect(s.h / PT_PER_MM).toBeGreaterThan(60);
     }
     layout.pages.forEach((_, i) => {
@@ -46,8 +47,8 @@ describe('notices fit their wording', () => {
     });
     const text = squash(await pdfText(result.pdf));
     for (const reg of ['514.12.1', '514.12.2', '514.14.1', '514.15.1', '514.10.1', '514.13.1']) expect(text).toContain(`BS 7671 ${reg}`); // BS 7671 Section 514
-    expect(text).toContain('Last inspection: 10 Feb 2025');
-    expect(text).toContain('Next inspection due: 10 Feb 2030');
+    expect(text).toContain('Date of last inspection: 10 Feb 2025'); // BS 7671 514.12.1 (from memory)
+    expect(text).toContain('Recommended date of next inspection: 10 Feb 2030'); // BS 7671 514.12.1 (from memory)
   });
 
   it('when tape-24 notices are rendered, then the regulation reference at the far end is inked inside the label', async () => {

@@ -62,14 +62,14 @@ describe('notices', () => {
     const texts = textRuns(layoutOutput(request('notices', 'a4', { kinds: 'inspection' })))
       .map((r) => r.text)
       .join(' ');
-    expect(texts).toContain('Last inspection: 10 Feb 2025');
-    expect(texts).toContain('Next inspection due: 10 Feb 2030');
+    expect(texts).toContain('Date of last inspection: 10 Feb 2025'); // BS 7671 514.12.1 (from memory)
+    expect(texts).toContain('Recommended date of next inspection: 10 Feb 2030'); // BS 7671 514.12.1 (from memory)
     const blank = { ...request('notices', 'a4', { kinds: 'inspection' }) };
     blank.board = { ...blank.board, nextInspectionOn: null };
     expect(
       textRuns(layoutOutput(blank))
         .map((r) => r.text)
         .join(' '),
-    ).toContain('Next inspection due: ____');
+    ).toContain('Recommended date of next inspection: ____');
   });
 });
