@@ -7,6 +7,8 @@ import { LRUCache } from 'lru-cache';
 import { readFileSync } from 'node:fs';
 import fontkit from '@pdf-lib/fontkit';
 import { MM_PER_PT, type FontFace, type TypeMetrics } from './model.js';
+import { directionalRuns } from './bidi.js';
+import { SUBSTITUTE, isNotDrawn } from '../../shared/fonts/undrawable.js';
 
 type FontkitFont = ReturnType<typeof fontkit.create>;
 
@@ -49,18 +51,39 @@ export const cachingFontkit = {
 
 const LAYOUT_CACHE_MAX = 20000;
 
+type GlyphRun = ReturnType<FontkitFont['layout']>;
+type Features = Parameters<FontkitFont['layout']>[1];
+/** fontkit's `layout` also takes script, language and direction after the features; its typings stop at the features. */
+type DirectedLayout = (text: string, features: Features, script: undefined, language: undefined, direction: 'ltr' | 'rtl') => GlyphRun;
+
 /**
- * The font with `layout` remembered per string. pdf-lib shapes every drawn run with fontkit;
- * a board's labels repeat across flags, strips and every live-preview render, so the same
- * glyph runs are reused instead of shaped again. Glyph runs are only read, never changed.
+ * One line's glyphs in the order they are seen on the page: each directional run (bidi.ts) shaped on
+ * its own, right-to-left runs in their direction so fontkit joins Arabic on the logical order and then
+ * reverses them. fontkit alone would reverse the whole line when it begins in Hebrew or Arabic.
+ */
+function layoutLine(font: FontkitFont, text: string, features: Features): GlyphRun {
+  const runs = directionalRuns(text);
+  if (runs.length === 1 && !runs[0].rtl) return font.layout(text, features);
+  const directed = font.layout.bind(font) as DirectedLayout;
+  const parts = runs.map((r) => directed(r.text, features, undefined, undefined, r.rtl ? 'rtl' : 'ltr'));
+  const line = parts[0];
+  line.glyphs = parts.flatMap((p) => p.glyphs);
+  line.positions = parts.flatMap((p) => p.positions);
+  return line;
+}
+
+/**
+ * The font with `layout` in visual order (`layoutLine`) and remembered per string. pdf-lib shapes
+ * every drawn run with fontkit; a board's labels repeat across flags, strips and every live-preview
+ * render, so the same glyph runs are reused instead of shaped again. Glyph runs are only read, never changed.
  */
 function withLayoutCache(font: FontkitFont): FontkitFont {
-  const runs = new LRUCache<string, ReturnType<FontkitFont['layout']>>({ max: LAYOUT_CACHE_MAX });
-  const layout = (text: string, features?: Parameters<FontkitFont['layout']>[1]) => {
-    if (features !== undefined) return font.layout(text, features);
+  const runs = new LRUCache<string, GlyphRun>({ max: LAYOUT_CACHE_MAX });
+  const layout = (text: string, features?: Features) => {
+    if (features !== undefined) return layoutLine(font, text, features);
     let run = runs.get(text);
     if (!run) {
-      run = font.layout(text);
+      run = layoutLine(font, text, undefined);
       runs.set(text, run);
     }
     return run;
@@ -123,13 +146,14 @@ function shapedWidth(text: string, face: FontFace, font: FontkitFont): number {
   return w;
 }
 
-const REPLACEMENT = '\ufffd';
 const printableCache = new LRUCache<string, string>({ max: SHAPED_CACHE_MAX });
 
 /**
- * Text the face can draw: code points it has no glyph for become U+FFFD, and a string whose
- * shaping this fontkit cannot run (it throws for some scripts) keeps only the unshaped characters.
- * pdf-lib would otherwise fail on the same string when drawing it.
+ * Text the face can draw: code points it has no glyph for become the visible substitute □ (never
+ * U+FFFD's "�", which reads as a broken file), selectors that only pick a glyph's style go, and a
+ * string whose shaping this fontkit cannot run (it throws for some scripts) keeps only the unshaped
+ * characters. pdf-lib would otherwise fail on the same string when drawing it. The layout warns,
+ * naming the label, for every character this changes (layout/undrawable.ts).
  */
 function printable(text: string, face: FontFace): string {
   const key = `${face}\u0000${text}`;
@@ -140,7 +164,8 @@ function printable(text: string, face: FontFace): string {
   let simple = true;
   for (const ch of text) {
     const cp = ch.codePointAt(0)!;
-    out += font.hasGlyphForCodePoint(cp) ? ch : REPLACEMENT;
+    if (cp !== 0xfffd && font.hasGlyphForCodePoint(cp)) out += ch;
+    else if (!isNotDrawn(ch)) out += SUBSTITUTE;
     if (!isSimple(cp)) simple = false;
   }
   if (!simple) {
@@ -156,9 +181,9 @@ function printable(text: string, face: FontFace): string {
 
 let metrics: TypeMetrics | null = null;
 
-/** Fallback for drawing a string fontkit cannot shape: every shaped character becomes U+FFFD. */
+/** Fallback for drawing a string fontkit cannot shape: every shaped character becomes the substitute □. */
 export function unshaped(text: string): string {
-  return Array.from(text, (ch) => (isSimple(ch.codePointAt(0)!) ? ch : REPLACEMENT)).join('');
+  return Array.from(text, (ch) => (isSimple(ch.codePointAt(0)!) ? ch : SUBSTITUTE)).join('');
 }
 
 /** The metrics every layout measures with (DejaVu faces share one ascender and descender). */

@@ -16,6 +16,7 @@ import { layoutTag } from './layout/tag.js';
 import { layoutCalibration } from './layout/calibration.js';
 import { layoutChangeover } from './layout/changeover/index.js';
 import { emptyDoc } from './layout/empty.js';
+import { trackingMetrics, undrawableWarnings, type ChangedTexts } from './layout/undrawable.js';
 
 type Layouts = { [O in PrintOutput]: (ctx: LayoutContext<O>) => LayoutDoc };
 const layouts: Layouts = {
@@ -31,9 +32,13 @@ const layouts: Layouts = {
 /** The output laid out in mm, without drawing: what tests and previews measure. */
 export function layoutOutput<O extends PrintOutput>(given: RenderRequest<O>, tm: TypeMetrics = typeMetrics()): LayoutDoc {
   const req = { ...given, offset: given.offset ?? { xMm: 0, yMm: 0 }, findings: given.findings ?? [] };
-  const ctx: LayoutContext<O> = { req, options: withDefaults(req.output, req.options), tm, warnings: new WarningList() };
-  const layout = (layouts[req.output] as (c: LayoutContext<O>) => LayoutDoc)(ctx);
-  return layout.pages.length > 0 ? layout : emptyDoc(layout, req.medium, tm);
+  // Every text placed passes through `printable`: the tracker notes what the fonts could not draw, to warn of it.
+  const changed: ChangedTexts = new Map();
+  const ctx: LayoutContext<O> = { req, options: withDefaults(req.output, req.options), tm: trackingMetrics(tm, changed), warnings: new WarningList() };
+  const laid = (layouts[req.output] as (c: LayoutContext<O>) => LayoutDoc)(ctx);
+  const layout = laid.pages.length > 0 ? laid : emptyDoc(laid, req.medium, tm);
+  layout.warnings.push(...undrawableWarnings(changed, req.schedule, req.contractor));
+  return layout;
 }
 
 /**
