@@ -23,6 +23,7 @@ function looksLikeWay(v: unknown): boolean {
     isString(v.device) &&
     isString(v.notes) &&
     typeof v.feedsAnotherBoard === 'boolean' &&
+    (v.place === null || (isObject(v.place) && typeof v.place.row === 'number' && typeof v.place.index === 'number')) &&
     (v.rcd === null || (isObject(v.rcd) && (v.rcd.kind === 'rcd' || v.rcd.kind === 'rcbo')))
   );
 }
@@ -39,6 +40,9 @@ export function isPublicBoard(v: unknown): v is PublicBoard {
     isString(v.supply.voltageText) &&
     Array.isArray(v.ways) &&
     v.ways.every(looksLikeWay) &&
+    isObject(v.dinRows) &&
+    typeof v.dinRows.modulesPerRow === 'number' &&
+    Array.isArray(v.dinRows.rows) &&
     Array.isArray(v.rcdGroups) &&
     isObject(v.inspection) &&
     isObject(v.revision) &&

@@ -4,7 +4,6 @@
  * kind that brings its own number of legs. One place, so the two layouts never disagree.
  */
 import { computed } from 'vue';
-import { maxZsFor } from '../../shared/rules/index.js';
 import { legsAfterKindChange } from '../../shared/schedule/legs.js';
 import type { Circuit } from '../../shared/schemas/schedule.js';
 import { useBoardStore } from '../stores/board.js';
@@ -23,14 +22,9 @@ export function useCircuitChoices() {
     return devices.filter((d) => d.kind !== 'blank' && d.kind !== 'spd').map((d) => ({ value: d.id, label: devicePickerText(d, devices) }));
   });
 
-  /** The largest Zs the circuit's device allows (BS 7671 Table 41.3), or null while it cannot be known. */
+  /** The largest Zs the circuit's device allows (BS 7671 Table 41.3), or null while it cannot be known; the store works it out once per change. */
   function maxZs(circuit: Circuit): number | null {
-    if (!store.working) return null;
-    try {
-      return maxZsFor(store.working, circuit);
-    } catch {
-      return null;
-    }
+    return store.maxZsById[circuit.id] ?? null;
   }
 
   /** A new kind brings its own number of legs (a ring two, else one) unless the legs were set by hand. */

@@ -8,12 +8,13 @@ import { computed, ref, watch } from 'vue';
 import { scheduleSchema, circuitSchema, deviceSchema, type Circuit, type Device, type DeviceKind, type Schedule } from '../../shared/schemas/schedule.js';
 import { fieldErrors } from '../../shared/schemas/errors.js';
 import { isoDay } from '../../shared/rules/dates.js';
-import { checkSchedule } from '../../shared/rules/index.js';
+import { checkSchedule, maxZsByCircuit } from '../../shared/rules/index.js';
 import type { Finding } from '../../shared/rules/types.js';
 import { ApiError } from '../api/http.js';
 import { applyChangeover, getSchedule, saveSchedule } from '../api/boards.js';
 import { clearDraft, readDraft, writeDraft } from './boardDraft.js';
 import { rebaseSchedule, type RebaseResult } from './boardRebase.js';
+import { spareWays, type SpareWay } from '../../shared/schedule/ways.js';
 
 export type BoardStatus = 'idle' | 'loading' | 'ready' | 'saving' | 'error';
 export type SaveOutcome = 'saved' | 'unchanged' | 'invalid' | 'conflict' | 'failed';
@@ -60,6 +61,19 @@ export const useBoardStore = defineStore('board', () => {
     const byField = new Map<string, Finding[]>();
     for (const f of findings.value) if (f.field) byField.set(f.field, [...(byField.get(f.field) ?? []), f]);
     return byField;
+  });
+
+  /** Spare ways (devices that feed no circuit), numbered as the chart and the way labels number them. */
+  const spares = computed<SpareWay[]>(() => (working.value ? spareWays(working.value) : []));
+
+  /** The largest Zs each circuit's device allows (BS 7671 Table 41.3), by circuit id: once per change, not per row. */
+  const maxZsById = computed<Record<string, number | null>>(() => {
+    if (!working.value) return {};
+    try {
+      return maxZsByCircuit(working.value);
+    } catch {
+      return {};
+    }
   });
 
   /** Schema messages for the working copy, merged with the server's: shown beside fields, and they block saving. */
@@ -254,6 +268,8 @@ export const useBoardStore = defineStore('board', () => {
     findings,
     findingsByField,
     fieldMessages,
+    spares,
+    maxZsById,
     load,
     save,
     reloadAndReapply,
@@ -328,7 +344,21 @@ function editing(working: { value: Schedule | null }) {
     s.devices.splice(at, 0, device);
   }
 
-  return { addCircuit, removeCircuit, addDevice, removeDevice, moveDevice };
+  /**
+   * Puts a circuit on a spare way: its number (the next free one when the spare has none), its phase
+   * and its device, placed among the circuits where that way falls, so the row stays where the spare was.
+   */
+  function addCircuitOnSpare(spare: SpareWay): Circuit {
+    const s = schedule();
+    const way = spare.way ?? nextFreeWay(s, Math.max(0, ...s.circuits.map((c) => c.way)));
+    const circuit = circuitSchema.parse({ id: newItemId('c'), way, phase: spare.phase, label: 'New circuit', deviceId: spare.device.id });
+    const after = s.circuits.findIndex((c) => c.way > way || (c.way === way && (c.phase ?? '') > (circuit.phase ?? '')));
+    const at = after === -1 ? s.circuits.length : after;
+    s.circuits.splice(at, 0, circuit);
+    return s.circuits[at];
+  }
+
+  return { addCircuit, removeCircuit, addDevice, removeDevice, moveDevice, addCircuitOnSpare };
 }
 
 /** Where a row's first device goes so the list stays in row order. */

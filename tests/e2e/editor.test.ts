@@ -117,6 +117,42 @@ describe('building a board in the editor', () => {
     expect(app.outsideRequests).toEqual([]);
   }, 180_000);
 
+  it('when a board is made from the 10-way layout with 9 circuits, then the table shows 10 ways, way 10 Spare, and using it makes a 10th circuit that is saved', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
+    const { id: boardId } = await api(page, 'POST', '/api/boards', { name: 'Hall consumer unit', template: 'split-load-10' });
+    await page.goto(`/boards/${boardId}`);
+    const circuitRows = page.locator('tbody tr[data-circuit-id]');
+    const spareRows = page.locator('tbody tr.board-spare');
+    await spareRows.first().waitFor();
+    // The layout is named for its ten ways (as the chart and the way labels count them): nine circuits and one spare.
+    expect(await circuitRows.count()).toBe(9);
+    expect(await spareRows.count()).toBe(1);
+    // In way order: the spare is the last line, numbered 10.
+    expect(await page.locator('tbody tr').count()).toBe(10);
+    expect(await page.locator('tbody tr').nth(9).locator('td').nth(0).textContent()).toBe('10');
+    expect(await page.locator('tbody tr').nth(9).locator('td').nth(1).textContent()).toBe('Spare');
+    expect(await page.locator('tbody tr').nth(8).locator('td[data-cell^="way-"] input').inputValue()).toBe('9');
+    await page.getByRole('tab', { name: 'Circuits (9 + 1 spare)' }).waitFor();
+
+    await page.getByRole('button', { name: 'Use spare way 10' }).click();
+    await page.keyboard.type('Garden lights');
+    expect(await spareRows.count()).toBe(0);
+    expect(await circuitRows.count()).toBe(10);
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 2' }).waitFor();
+
+    await page.reload();
+    await page.locator('tbody tr[data-circuit-id]').nth(9).waitFor();
+    expect(await circuitRows.count()).toBe(10);
+    expect(await spareRows.count()).toBe(0);
+    const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    const tenth = saved.circuits.find((c: { way: number }) => c.way === 10);
+    const spareDevice = saved.devices.find((d: { label: string }) => d.label === 'Spare');
+    expect(tenth).toMatchObject({ label: 'Garden lights', deviceId: spareDevice.id });
+    expect(await page.locator(`tr[data-circuit-id="${tenth.id}"] td[data-cell^="label-"] input`).inputValue()).toBe('Garden lights');
+    expect(app.pageErrors).toEqual([]);
+  }, 180_000);
+
   it('when a ring final is marked as grouped with two other circuits in its drawer, then the capacity finding appears beside that field', async () => {
     const { page } = await signedInOwnerPage(app, 'Fernhollow Test Electrical');
     const boardId = await boardWithCircuits(page, 2);
