@@ -6,6 +6,7 @@
  */
 import { mysqlTable, int, varchar, text, boolean, datetime, mysqlEnum, uniqueIndex, index, json, customType, double, bigint } from 'drizzle-orm/mysql-core';
 import { sql } from 'drizzle-orm';
+import type { NoticeWordingSet } from '../../shared/schemas/notice-wording.js';
 
 const longBlob = customType<{ data: Buffer; driverData: Buffer }>({
   dataType: () => 'longblob',
@@ -29,6 +30,8 @@ export const organisations = mysqlTable('organisations', {
   /** Millimetre offsets applied to every PDF page, to correct a printer's feed. */
   printOffsetXMm: double('print_offset_x_mm').notNull().default(0),
   printOffsetYMm: double('print_offset_y_mm').notNull().default(0),
+  /** The organisation's own wording of the notices it may reword (`shared/schemas/notice-wording.ts`); null or a notice left out: the prescribed words. */
+  noticeWording: json('notice_wording').$type<NoticeWordingSet>(),
   /** Bumped by every write; a save names the revision it was made from (`WHERE revision = baseRevision`), so a stale one is 409. */
   revision: int('revision').notNull().default(1),
   createdAt: now(),

@@ -1,0 +1,1 @@
+ALTER TABLE `organisations` ADD `notice_wording` json;
