@@ -16,9 +16,11 @@ import { seedDemoBoards } from '../server/seed/boards.js';
 import { benchPdf } from '../bench/pdf.js';
 import { benchQueries } from '../bench/queries.js';
 import { benchLoad } from '../bench/load-suite.js';
+import { benchEditor, type EditorFigures } from '../bench/editor.js';
 
 const root = join(import.meta.dirname, '..');
 const quick = process.argv.includes('--quick');
+const editorOnly = process.argv.includes('--editor');
 let mariadb: PrivateMariadb | null = null;
 const dataDir = mkdtempSync(join(tmpdir(), 'waymark-bench-db-'));
 
@@ -32,6 +34,21 @@ try {
   await migrateDatabase(database);
   await seedDemo(database.db, seedDemoBoards);
 
+  console.log('== Board editor in headless Chromium (1366 × 900; load median, keystroke → next frame over 10 keys)');
+  const editor = await benchEditor(mariadb.url, { runs: quick ? 3 : 5 });
+  console.table([editor]);
+  const editorFailures = editorTargets(editor);
+  if (editorOnly) {
+    await database.close();
+    console.log(editorFailures.length ? `\nTargets missed:\n  ${editorFailures.join('\n  ')}` : '\nEditor targets met.');
+  } else await benchServer(database, mariadb.url, editor, editorFailures);
+} finally {
+  await mariadb?.stop();
+  removeDir(dataDir);
+}
+
+/** The PDF, query and load figures, then bench-results.json with the editor's beside them. */
+async function benchServer(database: ReturnType<typeof openDatabase>, databaseUrl: string, editor: EditorFigures, editorFailures: string[]): Promise<void> {
   console.log('== PDF generation (median of repeated runs, baseline = bare pdf-lib with the same text runs and rectangles)');
   const pdf = await benchPdf(database, { runs: quick ? 3 : 9 });
   console.table(pdf);
@@ -41,15 +58,16 @@ try {
   console.table([queries]);
 
   console.log('== Board page under load (autocannon on loopback)');
-  const { load, rssMb } = await benchLoad(database, mariadb.url, { seconds: quick ? 3 : 10, connections: 50 });
+  const { load, rssMb } = await benchLoad(database, databaseUrl, { seconds: quick ? 3 : 10, connections: 50 });
   console.table(load);
   console.log(`Server RSS after the load: ${rssMb} MB`);
   await database.close();
 
   const machine = `${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${Math.round(totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
-  writeFileSync(join(root, 'bench-results.json'), JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb }, null, 2) + '\n');
+  writeFileSync(join(root, 'bench-results.json'), JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb, editor }, null, 2) + '\n');
   console.log(`\nWrote bench-results.json (${machine})`);
   const failures = [
+    ...editorFailures,
     ...pdf.filter((p) => p.ratio > 2).map((p) => `${p.name}: ${p.ratio}× its baseline (target ≤ 2×)`),
     ...load
       .filter((l) => l.ratio < 0.4 || l.errors > 0)
@@ -60,7 +78,14 @@ try {
   const chart1000 = pdf.find((p) => p.name === 'chart-1000')?.medianMs ?? 0;
   if (chart100 && chart1000 > 12 * chart100) failures.push(`chart-1000 is ${(chart1000 / chart100).toFixed(1)}× chart-100 (target ≤ 12×)`);
   console.log(failures.length ? `\nTargets missed:\n  ${failures.join('\n  ')}` : '\nAll targets met.');
-} finally {
-  await mariadb?.stop();
-  removeDir(dataDir);
+}
+
+/** Issue 19's targets: a 120-way board loads within 1.5 × a 10-way one and a keystroke stays inside one frame. */
+function editorTargets(e: EditorFigures): string[] {
+  const out: string[] = [];
+  if (e.load120Ms > 1.5 * e.load10Ms) out.push(`editor load120Ms ${e.load120Ms} > 1.5 × load10Ms ${e.load10Ms}`);
+  if (e.key120MedianMs > 16 || e.key120MedianMs > 1.5 * e.key10MedianMs)
+    out.push(`editor key120MedianMs ${e.key120MedianMs} (target ≤ 16 and ≤ 1.5 × key10MedianMs ${e.key10MedianMs})`);
+  if (e.key120MaxMs > 50) out.push(`editor key120MaxMs ${e.key120MaxMs} (target ≤ 50)`);
+  return out;
 }
