@@ -9,7 +9,7 @@ import { packOutputs } from '../server/print/pack.js';
 import { defaultMedia } from '../server/print/query.js';
 import { scheduleSchema } from '../shared/schemas/schedule.js';
 import type { RenderRequest } from '../server/pdf/types.js';
-import { requestFor } from './pdf.js';
+import { requestFor } from './render-request.js';
 
 export async function demoPackRenders(database: Database): Promise<RenderRequest[]> {
   const [board] = await database.db.select({ schedule: boards.schedule }).from(boards).where(isNull(boards.deletedAt)).orderBy(asc(boards.id)).limit(1);

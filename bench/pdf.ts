@@ -2,16 +2,14 @@
  * PDF timings: each output's median against a bare pdf-lib document drawing the same
  * number of text runs and rectangles (bench/pdf-baseline.ts), measured in the same run.
  */
-import { renderOutput, resolveMedium } from '../server/pdf/index.js';
+import { renderOutput } from '../server/pdf/index.js';
 import type { RenderRequest } from '../server/pdf/types.js';
-import { printOptionSchemas, type PrintOutput } from '../shared/schemas/print.js';
-import { checkSchedule, maxZsByCircuit, nextInspectionDate } from '../shared/rules/index.js';
-import type { Schedule } from '../shared/schemas/schedule.js';
 import type { Database } from '../server/db/client.js';
 import { makeSchedule as syntheticSchedule } from '../tests/helpers/boards.js';
 import { bareDocument } from './pdf-baseline.js';
 import { drawStats } from './pdf-stats.js';
 import { demoPackRenders } from './demo-pack.js';
+import { requestFor } from './render-request.js';
 
 export interface PdfFigure {
   name: string;
@@ -31,29 +29,6 @@ async function time(fn: () => Promise<unknown>, runs: number): Promise<number> {
     xs.push(performance.now() - t);
   }
   return Math.round(median(xs) * 10) / 10;
-}
-
-export function requestFor<O extends PrintOutput>(output: O, mediaId: string, schedule: Schedule): RenderRequest<O> {
-  const today = '2026-12-02';
-  return {
-    output,
-    medium: resolveMedium(mediaId),
-    options: printOptionSchemas[output].parse({}) as RenderRequest<O>['options'],
-    schedule,
-    board: {
-      id: 1,
-      code: 'WM-BENCH1',
-      publicUrl: 'http://localhost:3000/b/bench-token-0123456789abcdef',
-      publicEnabled: true,
-      revision: 3,
-      revisionDate: today,
-      nextInspectionOn: nextInspectionDate(schedule.board),
-    },
-    contractor: { name: 'Benchmark Electrical', phone: '01632 960 000', email: 'office@bench.example' },
-    findings: checkSchedule(schedule, { today }),
-    offset: { xMm: 0, yMm: 0 },
-    maxZsByCircuit: maxZsByCircuit(schedule),
-  } as RenderRequest<O>;
 }
 
 /** Times a group of renders done together against the baselines of the same PDFs. */

@@ -39,6 +39,23 @@ try {
   if (!focused) {
     // Errors only: the warnings (each `any` left in tests) are for `npm run lint`, and do not fail.
     if (!step('lint', bin('eslint'), ['.', '--quiet'])) throw new Error('lint failed');
+    // Import cycles in the server, shared, scripts and bench code (type-only imports skipped: see "madge" in package.json).
+    if (
+      !step('import cycles', bin('madge'), [
+        '--circular',
+        '--no-spinner',
+        '--extensions',
+        'ts',
+        '--ts-config',
+        'tsconfig.node.json',
+        'server',
+        'shared',
+        'scripts',
+        'bench',
+      ])
+    ) {
+      throw new Error('import cycle found: see the list above');
+    }
     if (!step('format', bin('prettier'), ['--check', '--log-level', 'warn', '.'])) throw new Error('format check failed: run `npm run format`');
     if (!step('type check (client)', bin('vue-tsc'), ['--noEmit', '-p', 'tsconfig.app.json'])) throw new Error('type check failed');
     if (!step('type check (server, shared, tests)', bin('tsc'), ['--noEmit', '-p', 'tsconfig.node.json'])) throw new Error('type check failed');
