@@ -15,6 +15,11 @@ export interface ServerConfig {
   clientDir: string | null;
   /** Rate limits can be raised for benchmarks; tests lower them to exercise 429. */
   rateLimits: { loginPerAccount: number; loginPerIp: number; publicPerMinute: number; reportsPerHour: number; sendsPerHour: number };
+  /**
+   * Put before every rate-limit counter's name in the shared store: processes of one deployment share it
+   * (the default, empty); another deployment on the same database, or each test app, takes its own.
+   */
+  rateLimitScope: string;
   /** Most one print may take, waiting for a render thread included, before it is stopped with 503. */
   printTimeLimitMs: number;
   /** Render worker threads; null: one fewer than the cores (at least one). */
@@ -75,6 +80,7 @@ export function configFromEnv(env: NodeJS.ProcessEnv, defaults: Partial<ServerCo
       /** Sign-ups, resets, invitation accepts, invitations and handovers an hour, per address (and per organisation for members). */
       sendsPerHour: Number(env.RATE_SENDS_HOUR ?? defaults.rateLimits?.sendsPerHour ?? 30),
     },
+    rateLimitScope: env.RATE_LIMIT_SCOPE ?? defaults.rateLimitScope ?? '',
     printTimeLimitMs: Number(env.PRINT_TIME_LIMIT_MS ?? defaults.printTimeLimitMs ?? 30_000),
     printThreads: env.PRINT_THREADS ? Number(env.PRINT_THREADS) : (defaults.printThreads ?? null),
   };

@@ -17,3 +17,6 @@ export const isDuplicateKey = (err: unknown) => hasCode(err, 'ER_DUP_ENTRY');
 
 /** A foreign key refused the delete: another row still points at this one. */
 export const isStillReferenced = (err: unknown) => hasCode(err, 'ER_ROW_IS_REFERENCED_2');
+
+/** The statement lost a deadlock, or a Galera node's certification (reported as a deadlock): running it again may succeed. */
+export const isDeadlock = (err: unknown) => hasCode(err, 'ER_LOCK_DEADLOCK');

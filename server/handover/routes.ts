@@ -13,7 +13,7 @@ import { boardHandovers, sendHandover } from './service.js';
 
 export function handoverRoutes(ctx: AppContext): Router {
   const r = Router({ mergeParams: true });
-  r.post('/handover', canEdit, ...perAddressAndOrganisation(ctx.config.rateLimits.sendsPerHour, 'handover e-mails'), async (req, res) => {
+  r.post('/handover', canEdit, ...perAddressAndOrganisation(ctx, 'handovers', ctx.config.rateLimits.sendsPerHour, 'handover e-mails'), async (req, res) => {
     const boardId = idParam(req.params);
     const input = parse(handoverSendSchema, req.body);
     res.status(201).json(await sendHandover(ctx, req.user!, boardId, input));

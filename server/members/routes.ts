@@ -23,7 +23,7 @@ export function membersRoutes(ctx: AppContext): Router {
     res.json({ invitations: await pendingInvitations(ctx.db, req.user!.organisationId) });
   });
 
-  r.post('/invitations', ownerOnly, ...perAddressAndOrganisation(ctx.config.rateLimits.sendsPerHour, 'invitations'), async (req, res) => {
+  r.post('/invitations', ownerOnly, ...perAddressAndOrganisation(ctx, 'invitations', ctx.config.rateLimits.sendsPerHour, 'invitations'), async (req, res) => {
     const input = parse(inviteSchema, req.body);
     res.status(201).json(await inviteMember(ctx, req.user!, input));
   });
@@ -50,7 +50,7 @@ export function invitationRoutes(ctx: AppContext): Router {
     res.json(await invitationByToken(ctx.db, token));
   });
 
-  r.post('/accept', perAddress(ctx.config.rateLimits.sendsPerHour, 'attempts to accept an invitation'), async (req, res) => {
+  r.post('/accept', perAddress(ctx, 'accept-invitation', ctx.config.rateLimits.sendsPerHour, 'attempts to accept an invitation'), async (req, res) => {
     const input = parse(acceptInvitationSchema, req.body);
     const userId = await acceptInvitation(ctx.db, input);
     await signIn(req, userId);

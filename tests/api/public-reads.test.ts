@@ -7,7 +7,7 @@ import type { AddressInfo, Server } from 'node:net';
 import type { Request } from 'express';
 import request from 'supertest';
 import type { ServerConfig } from '../../server/config.js';
-import { addressKey } from '../../server/public/routes.js';
+import { addressKey } from '../../server/http/limits.js';
 import { startTestApp, type TestApp } from '../helpers/app.js';
 import { createBoard, markedSchedule, signupMarkedOwner, type StoredBoard } from './public-fixture.js';
 

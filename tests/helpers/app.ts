@@ -47,7 +47,9 @@ export async function startTestApp(overrides: Partial<ServerConfig> = {}): Promi
       devMail: true,
     },
   );
-  const config: ServerConfig = { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
+  // Each app counts its own rate limits in the shared store, as it did in memory; apps meant to share pass one scope.
+  const rateLimitScope = `test-${randomUUID().slice(0, 8)}:`;
+  const config: ServerConfig = { ...base, rateLimitScope, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
   const mailer = smtpMailer({ ...config.smtp, tagOrganisation: config.devMail });
   const ctx: AppContext = { config, database, db: database.db, mailer };
   const built = createApp(ctx);

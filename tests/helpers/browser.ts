@@ -5,6 +5,7 @@
  * It adds no data of its own: each test signs up its own organisation. Build the client first:
  * `WAYMARK_BUILD=1 npm test -- tests/e2e/x.test.ts`.
  */
+import { randomUUID } from 'node:crypto';
 import { existsSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { join } from 'node:path';
@@ -76,7 +77,9 @@ async function serverConfig(databaseUrl: string, smtpPort: number, overrides: Pa
     },
     { clientDir, devMail: true, smtp: { host: '127.0.0.1', port: smtpPort, from: 'Waymark <no-reply@waymark.test>' } },
   );
-  return { ...base, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
+  // Each app counts its own rate limits in the shared store (other suites sign in from the same address).
+  const rateLimitScope = `browser-${randomUUID().slice(0, 8)}:`;
+  return { ...base, rateLimitScope, ...overrides, rateLimits: { ...base.rateLimits, ...(overrides.rateLimits ?? {}) } };
 }
 
 /** Starts server, mail capture and browser; `close()` stops all three (call it in `afterAll`). */
