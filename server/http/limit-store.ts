@@ -1,17 +1,16 @@
 /**
  * An express-rate-limit store on MariaDB (`rate_limit_counters`), so every app process counts the
- * same hits: two processes behind one balancer do not double a limit. Each hit is one atomic
- * statement (`INSERT … ON DUPLICATE KEY UPDATE … RETURNING`): the row's own lock orders racing hits,
- * so none is lost and the count read back is the one this hit made. Windows are fixed: the first hit
- * opens one for `windowMs` (database clock, so processes on different machines agree) and the first
- * hit after it ends opens the next. Expired rows are deleted at most once per SWEEP_EVERY_MS per
- * process, by whichever hit comes next.
+ * same hits: two processes behind one balancer do not double a limit. Hits are counted atomically,
+ * several to a statement (`limit-hits.ts`), so none is lost and each gets its own count. Windows are
+ * fixed: the first hit opens one for `windowMs` (database clock, so processes on different machines
+ * agree) and the first hit after it ends opens the next. Expired rows are deleted at most once per
+ * SWEEP_EVERY_MS per process, by whichever hit comes next.
  */
 import { createHash } from 'node:crypto';
 import { sql } from 'drizzle-orm';
 import type { ClientRateLimitInfo, Options, Store } from 'express-rate-limit';
 import type { Db } from '../db/client.js';
-import { isDeadlock } from '../db/errors.js';
+import { countHit, infoOf, retried, type CounterRow } from './limit-hits.js';
 
 /** The column's length (`counter_key varchar(255)`); longer keys are stored as their SHA-256. */
 const KEY_MAX = 255;
@@ -19,27 +18,8 @@ const KEY_MAX = 255;
 const SWEEP_EVERY_MS = 5 * 60_000;
 /** Rows one sweep deletes at most, so a sweep is never one long lock. */
 const SWEEP_BATCH = 5000;
-/** A hit that lost a deadlock (or a cluster's certification) is tried again this many times. */
-const TRIES = 3;
 
 let lastSweep = 0;
-
-type CounterRow = { hits: number | string; reset_at: Date | string };
-
-/** Drizzle's driver hands DATETIME back as text (`2026-12-04 20:15:24.156`, UTC here, as UTC_TIMESTAMP wrote it). */
-const asDate = (value: Date | string) => (value instanceof Date ? value : new Date(`${value.replace(' ', 'T')}Z`));
-
-const infoOf = (row: CounterRow): ClientRateLimitInfo => ({ totalHits: Number(row.hits), resetTime: asDate(row.reset_at) });
-
-async function retried<T>(work: () => Promise<T>): Promise<T> {
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await work();
-    } catch (err) {
-      if (attempt >= TRIES || !isDeadlock(err)) throw err;
-    }
-  }
-}
 
 /** One store per limiter (the library refuses a shared one); `prefix` keeps each limiter's keys apart in the one table. */
 export class SharedLimitStore implements Store {
@@ -60,21 +40,9 @@ export class SharedLimitStore implements Store {
     return full.length <= KEY_MAX ? full : `${this.prefix}sha256:${createHash('sha256').update(full).digest('hex')}`.slice(0, KEY_MAX);
   }
 
-  async increment(key: string): Promise<ClientRateLimitInfo> {
+  increment(key: string): Promise<ClientRateLimitInfo> {
     this.sweepNowAndThen();
-    const windowUs = this.windowMs * 1000;
-    // Assignments run left to right: both IFs read the old reset_at, so an ended window restarts at 1.
-    const result = await retried(() =>
-      this.db.execute(sql`
-        INSERT INTO rate_limit_counters (counter_key, hits, reset_at)
-        VALUES (${this.counterKey(key)}, 1, UTC_TIMESTAMP(3) + INTERVAL ${windowUs} MICROSECOND)
-        ON DUPLICATE KEY UPDATE
-          hits = IF(reset_at <= UTC_TIMESTAMP(3), 1, hits + 1),
-          reset_at = IF(reset_at <= UTC_TIMESTAMP(3), VALUES(reset_at), reset_at)
-        RETURNING hits, reset_at`),
-    );
-    const [row] = (result as unknown as [CounterRow[]])[0];
-    return infoOf(row);
+    return countHit(this.db, { counterKey: this.counterKey(key), windowUs: this.windowMs * 1000 });
   }
 
   async get(key: string): Promise<ClientRateLimitInfo | undefined> {

@@ -81,6 +81,13 @@ describe('the shared store itself', () => {
     expect(left).toEqual([]);
   });
 
+  it('when twenty hits of one key race in one process, then they are counted together and each gets its own count, 1 to 20', async () => {
+    const racing = store(`race-${randomUUID().slice(0, 8)}:`, 60_000);
+    const counts = await Promise.all(Array.from({ length: 20 }, () => racing.increment('k')));
+    expect(counts.map((c) => c.totalHits).sort((x, y) => x - y)).toEqual(Array.from({ length: 20 }, (_, i) => i + 1));
+    expect((await racing.get('k'))?.totalHits).toBe(20);
+  });
+
   it('when a key is longer than the column, then it is counted under its hash, apart from a key that shares its start', async () => {
     const long = store(`long-${randomUUID().slice(0, 8)}:`, 60_000);
     const base = 'x'.repeat(300);
