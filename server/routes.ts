@@ -11,12 +11,18 @@ import { boardPrintRoutes, printSettingsRoutes } from './print/routes.js';
 import { siteRoutes } from './sites/routes.js';
 import { boardRoutes } from './boards/routes.js';
 import { publicRoutes, sharingRoutes } from './public/routes.js';
+import { PRIVATE_CACHE_CONTROL } from './public/caching.js';
 import { reportRoutes } from './reports/routes.js';
 import { logoRoutes, photoRoutes } from './uploads/routes.js';
 import { handoverRoutes } from './handover/routes.js';
 
 export function apiRoutes(ctx: AppContext): Router {
   const api = Router();
+  // Signed-in answers are for one member: no cache may keep them (the board page's own routes say otherwise).
+  api.use((_req, res, next) => {
+    res.set('Cache-Control', PRIVATE_CACHE_CONTROL);
+    next();
+  });
   api.get('/health', async (_req, res) => {
     await ctx.database.pool.query('SELECT 1');
     res.json({ ok: true });

@@ -8,6 +8,7 @@ import expressStaticGzip from 'express-static-gzip';
 import { existsSync, readFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 import { preferredCoding, type ContentCoding } from './compression.js';
+import { BOARD_PAGE_CACHE_CONTROL } from '../public/caching.js';
 
 /** The shell page in each coding its build made; identity is always there. */
 function readShell(clientDir: string): Map<ContentCoding, Buffer> {
@@ -48,7 +49,10 @@ export function serveClient(app: Express, dir: string | null): void {
   app.get('/{*splat}', (req, res) => {
     const wanted = preferredCoding(req.headers['accept-encoding']);
     const coding = shell.has(wanted) ? wanted : 'identity';
-    res.type('html').set({ 'Cache-Control': 'no-cache', Vary: 'Accept-Encoding' });
+    // The board page's shell is the same for every tag and visitor, so a shared cache may keep it as it keeps the
+    // page's JSON; other screens' shell is revalidated each time (Express's entity tag makes that a 304).
+    const cache = req.path.startsWith('/b/') ? BOARD_PAGE_CACHE_CONTROL : 'no-cache';
+    res.type('html').set({ 'Cache-Control': cache, Vary: 'Accept-Encoding' });
     if (coding !== 'identity') res.set('Content-Encoding', coding);
     res.send(shell.get(coding));
   });

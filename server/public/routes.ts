@@ -12,6 +12,7 @@ import { reportSubmitSchema } from '../../shared/schemas/reports.js';
 import { submitReport } from '../reports/service.js';
 import { sendImage } from '../http/images.js';
 import { boardForToken, publicBoardPage, publicLogo, sharingState } from './service.js';
+import { BOARD_PAGE_CACHE_CONTROL, PRIVATE_CACHE_CONTROL } from './caching.js';
 
 /** A board may take more reports an hour than one address may send (several visitors, one site). */
 const BOARD_REPORTS_FACTOR = 3;
@@ -23,19 +24,20 @@ export function publicRoutes(ctx: AppContext): Router {
   const r = Router();
   const limits = ctx.config.rateLimits;
   r.use(sharedLimit(ctx, { name: 'public-read', windowMs: MINUTE, limit: limits.publicPerMinute, message: 'Too many requests; wait a minute and try again' }));
-  // The page is read-only and may change at any save, token rotation or switch-off: no shared caches, no indexing.
+  // Not indexed; nothing kept by a cache unless a route says so below (a 404, a 429 and every error stay uncached).
   r.use((_req, res, next) => {
-    res.set({ 'Cache-Control': 'no-store', 'X-Robots-Tag': 'noindex, nofollow' });
+    res.set({ 'Cache-Control': PRIVATE_CACHE_CONTROL, 'X-Robots-Tag': 'noindex, nofollow' });
     next();
   });
 
   r.get('/boards/:token', async (req, res) => {
-    // Serialised once per revision; the entity tag set here spares Express hashing the body again.
+    // Serialised once per revision; the entity tag set here spares Express hashing the body again, and
+    // Express answers 304 to a cache that sends it back (If-None-Match) while the page is unchanged.
     const { json, etag } = await publicBoardPage(ctx.db, token(req));
-    res.set('ETag', etag).type('json').send(json);
+    res.set({ ETag: etag, 'Cache-Control': BOARD_PAGE_CACHE_CONTROL }).type('json').send(json);
   });
   r.get('/boards/:token/logo', async (req, res) => {
-    sendImage(res, await publicLogo(ctx.db, token(req)), 'no-store');
+    sendImage(res, await publicLogo(ctx.db, token(req)), BOARD_PAGE_CACHE_CONTROL);
   });
   r.post(
     '/boards/:token/reports',
