@@ -7,6 +7,7 @@ import { and, eq, sql } from 'drizzle-orm';
 import type { Db } from '../db/client.js';
 import { organisations } from '../db/schema.js';
 import type { Organisation, OrganisationSettings } from '../../shared/schemas/organisation.js';
+import { noticeWordingSetSchema, type NoticeWordingSet } from '../../shared/schemas/notice-wording.js';
 
 const columns = {
   id: organisations.id,
@@ -42,4 +43,25 @@ export function updatePrintOffsetIfAt(db: Db, id: number, baseRevision: number, 
 
 export function updateOrganisationIfAt(db: Db, id: number, baseRevision: number, settings: OrganisationSettings): Promise<boolean> {
   return updateIfAt(db, id, baseRevision, settings);
+}
+
+/**
+ * The organisation's own notice wording and the row's revision. MariaDB hands JSON back as text; a
+ * stored value that no longer passes the schema reads as none, so a notice falls back to the prescribed words.
+ */
+export async function findNoticeWording(db: Db, id: number): Promise<{ wording: NoticeWordingSet; revision: number } | null> {
+  const [row] = await db
+    .select({ wording: organisations.noticeWording, revision: organisations.revision })
+    .from(organisations)
+    .where(eq(organisations.id, id))
+    .limit(1);
+  if (!row) return null;
+  const raw: unknown = typeof row.wording === 'string' ? JSON.parse(row.wording) : row.wording;
+  const parsed = noticeWordingSetSchema.safeParse(raw ?? {});
+  return { wording: parsed.success ? parsed.data : {}, revision: row.revision };
+}
+
+/** The notice wording, on the same row and so under the same revision check as the settings. */
+export function updateNoticeWordingIfAt(db: Db, id: number, baseRevision: number, wording: NoticeWordingSet): Promise<boolean> {
+  return updateIfAt(db, id, baseRevision, { noticeWording: Object.keys(wording).length ? wording : null });
 }

@@ -14,7 +14,7 @@ import { boardPageUrl } from '../../shared/public/board-page.js';
 import { invalid, notFound } from '../errors.js';
 import { requireBoardSchedule } from '../boards/member-board.js';
 import { findRevision } from '../boards/revision-repository.js';
-import { findOrganisation } from '../organisation/repository.js';
+import { findNoticeWording, findOrganisation } from '../organisation/repository.js';
 import { findLogo } from '../uploads/repository.js';
 
 export interface PrintSource {
@@ -27,9 +27,10 @@ export interface PrintSource {
 }
 
 async function contractorOf(db: Db, organisationId: number): Promise<{ contractor: Contractor; offset: PrintSource['offset'] }> {
-  const [org, logo] = await Promise.all([findOrganisation(db, organisationId), findLogo(db, organisationId)]);
+  const [org, logo, notices] = await Promise.all([findOrganisation(db, organisationId), findLogo(db, organisationId), findNoticeWording(db, organisationId)]);
   if (!org) throw notFound('No such organisation');
-  const contractor: Contractor = { name: org.name, phone: org.contactPhone, email: org.contactEmail };
+  // The notice wording is the organisation's, so every one of its boards prints the same words.
+  const contractor: Contractor = { name: org.name, phone: org.contactPhone, email: org.contactEmail, noticeWording: notices?.wording ?? {} };
   if (logo && (logo.mime === 'image/png' || logo.mime === 'image/jpeg')) contractor.logo = { bytes: new Uint8Array(logo.data), mime: logo.mime };
   return { contractor, offset: { xMm: org.printOffsetXMm, yMm: org.printOffsetYMm } };
 }
