@@ -30,7 +30,8 @@ const WARNINGS_HEADER_MAX = 6000;
 export function warningsHeader(warnings: PrintWarning[]): string {
   let kept = warnings;
   let encoded = encodeURIComponent(JSON.stringify(kept));
-  while (encoded.length > WARNINGS_HEADER_MAX && kept.length > 1) {
+  // Down to none kept: one warning alone can be longer than the header may be (a list of hundreds of ways).
+  while (encoded.length > WARNINGS_HEADER_MAX && kept.length > 0) {
     kept = kept.slice(0, Math.floor(kept.length / 2));
     const more: PrintWarning = { code: 'more-warnings', message: `${warnings.length - kept.length} more warnings: see the warnings list` };
     encoded = encodeURIComponent(JSON.stringify([...kept, more]));
