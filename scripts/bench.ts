@@ -16,6 +16,7 @@ import { seedDemoBoards } from '../server/seed/boards.js';
 import { benchPdf } from '../bench/pdf.js';
 import { benchQueries } from '../bench/queries.js';
 import { benchLoad } from '../bench/load-suite.js';
+import { benchEventLoop } from '../bench/event-loop.js';
 import { benchEditor, type EditorFigures } from '../bench/editor.js';
 
 const root = join(import.meta.dirname, '..');
@@ -61,10 +62,17 @@ async function benchServer(database: ReturnType<typeof openDatabase>, databaseUr
   const { load, rssMb } = await benchLoad(database, databaseUrl, { seconds: quick ? 3 : 10, connections: 50 });
   console.table(load);
   console.log(`Server RSS after the load: ${rssMb} MB`);
+
+  console.log('== /api/health while the largest allowed print renders (render threads; baseline: health alone, same run)');
+  const eventLoop = await benchEventLoop(databaseUrl, { prints: quick ? 2 : 5, idleSeconds: quick ? 3 : 10 });
+  console.table([eventLoop]);
   await database.close();
 
   const machine = `${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${Math.round(totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
-  writeFileSync(join(root, 'bench-results.json'), JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb, editor }, null, 2) + '\n');
+  writeFileSync(
+    join(root, 'bench-results.json'),
+    JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb, eventLoop, editor }, null, 2) + '\n',
+  );
   console.log(`\nWrote bench-results.json (${machine})`);
   const failures = [
     ...editorFailures,
@@ -73,6 +81,9 @@ async function benchServer(database: ReturnType<typeof openDatabase>, databaseUr
       .filter((l) => l.ratio < 0.4 || l.errors > 0)
       .map((l) => `${l.route}: ${Math.round(l.ratio * 100)} % of bare, ${l.errors} errors (target ≥ 40 %, 0 errors)`),
     ...(queries.at10 !== queries.at1000 ? [`queries differ: ${queries.at10} at 10 circuits, ${queries.at1000} at 1000`] : []),
+    ...(eventLoop.healthP99MsDuringBigPrint > 50
+      ? [`health p99 ${eventLoop.healthP99MsDuringBigPrint} ms during the big print (target ≤ 50; alone ${eventLoop.healthP99MsIdle} ms)`]
+      : []),
   ];
   const chart100 = pdf.find((p) => p.name === 'chart-100')?.medianMs ?? 0;
   const chart1000 = pdf.find((p) => p.name === 'chart-1000')?.medianMs ?? 0;
