@@ -36,7 +36,8 @@ function circuitTexts(s: Schedule): PrintedText[] {
     return [
       { field: at('label'), label: `${way} label`, text: c.label, ways },
       { field: at('description'), label: `${way} description`, text: c.description, ways },
-      ...c.locations.map((text, j) => ({ field: at(`locations.${j}`), label: `${way} location`, text, ways })),
+      // The editor edits the rooms as one list field, so their warnings share its path.
+      ...c.locations.map((text) => ({ field: at('locations'), label: `${way} location`, text, ways })),
       { field: at('previousReference'), label: `${way} old reference`, text: c.previousReference, ways },
       { field: at('notes'), label: `${way} notes`, text: c.notes, ways },
     ];
