@@ -23,18 +23,31 @@ export function createApp(ctx: AppContext): BuiltApp {
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', ctx.config.trustProxy);
-  app.use(
-    helmet({
-      contentSecurityPolicy: {
-        directives: {
-          'img-src': ["'self'", 'data:', 'blob:'],
-          'frame-src': ["'self'", 'blob:'],
-          'object-src': ["'self'", 'blob:'],
-          'upgrade-insecure-requests': null,
-        },
+  const documentHeaders = helmet({
+    contentSecurityPolicy: {
+      directives: {
+        'img-src': ["'self'", 'data:', 'blob:'],
+        'frame-src': ["'self'", 'blob:'],
+        'object-src': ["'self'", 'blob:'],
+        'upgrade-insecure-requests': null,
       },
-    }),
-  );
+    },
+  });
+  // A built script, stylesheet or font is never a document: the policy headers only a page (or a frame) obeys
+  // are left off, ~600 bytes on each of the dozen files a first visit on a weak signal fetches. What still
+  // applies to a sub-resource stays: no type sniffing, same-origin only, no referrer from a stylesheet's fonts.
+  const assetHeaders = helmet({
+    contentSecurityPolicy: false,
+    crossOriginOpenerPolicy: false,
+    originAgentCluster: false,
+    strictTransportSecurity: false,
+    xDnsPrefetchControl: false,
+    xDownloadOptions: false,
+    xFrameOptions: false,
+    xPermittedCrossDomainPolicies: false,
+    xXssProtection: false,
+  });
+  app.use((req, res, next) => (req.path.startsWith('/assets/') ? assetHeaders(req, res, next) : documentHeaders(req, res, next)));
   app.use(express.json({ limit: '5mb' }));
   const sessions = sessionMiddleware(ctx.database.pool, ctx.config.sessionSecret);
   // Reading a board page needs no session: skipping it there roughly doubles what the busiest

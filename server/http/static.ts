@@ -47,6 +47,11 @@ export function serveClient(app: Express, dir: string | null): void {
   // build, and serving it from memory keeps the board page fast under load.
   const shell = readShell(clientDir);
   app.get('/{*splat}', (req, res) => {
+    // A missing built file is a 404, never the shell: files under /assets/ go out without the page headers.
+    if (req.path.startsWith('/assets/')) {
+      res.status(404).type('text').set('Cache-Control', 'no-store').send('Not found');
+      return;
+    }
     const wanted = preferredCoding(req.headers['accept-encoding']);
     const coding = shell.has(wanted) ? wanted : 'identity';
     // The board page's shell is the same for every tag and visitor, so a shared cache may keep it as it keeps the

@@ -13,6 +13,8 @@ declare module 'vue-router' {
     auth?: boolean;
     /** Only these roles may open the screen. */
     roles?: Role[];
+    /** The screen uses no store, so the store library is not loaded for it (the public board page). */
+    storeless?: boolean;
   }
 }
 
@@ -40,8 +42,10 @@ function roleNotice(roles: Role[]): string {
   return `That page is for ${names} only, so you are back on the boards.`;
 }
 
-export function installRouteGuards(router: Router, pinia: Pinia): void {
+export function installRouteGuards(router: Router, loadPinia: () => Promise<Pinia>): void {
   router.beforeEach(async (to) => {
+    if (to.meta.storeless) return true;
+    const pinia = await loadPinia();
     const needsAuth = to.matched.some((r) => r.meta.auth);
     const guestOnly = typeof to.name === 'string' && GUEST_ONLY.has(to.name);
     if (!needsAuth && !guestOnly) return true;

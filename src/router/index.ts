@@ -7,7 +7,13 @@ import { createRouter, createWebHistory, type RouteRecordRaw } from 'vue-router'
 
 const routes: RouteRecordRaw[] = [
   // Public, no sign-in.
-  { path: '/b/:token', name: 'board-page', component: () => import('../views/public/BoardPageView.vue'), props: true },
+  {
+    path: '/b/:token',
+    name: 'board-page',
+    component: () => import('../views/public/BoardPageView.vue'),
+    props: true,
+    meta: { storeless: true },
+  },
   { path: '/signin', name: 'signin', component: () => import('../views/auth/SignInView.vue') },
   { path: '/signup', name: 'signup', component: () => import('../views/auth/SignUpView.vue') },
   { path: '/signup/:token', name: 'confirm-signup', component: () => import('../views/auth/ConfirmSignUpView.vue'), props: true },

@@ -28,7 +28,7 @@ export function waymarkTheme(): ThemeConfig {
       colorTextTertiary: faint,
       colorBorder: cssVariable('--wm-line', '#d5dbe3'),
       colorBgLayout: cssVariable('--wm-paper', '#f6f7f9'),
-      fontFamily: cssVariable('--wm-font', "'DejaVu Sans', system-ui, sans-serif"),
+      fontFamily: cssVariable('--wm-font', "system-ui, 'Waymark DejaVu', sans-serif"),
       fontSize: 14,
       borderRadius: 4,
     },
