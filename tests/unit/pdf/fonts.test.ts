@@ -5,18 +5,22 @@ import { fitText } from '../../../server/pdf/layout/fit.js';
 import { fontFaces, type LayoutDoc } from '../../../server/pdf/model.js';
 import { pdfText, rasterise } from './helpers.js';
 
-/** Every character the engine's own wording uses, plus the symbols electricians type. */
+/**
+ * Every character the engine's own wording uses, the symbols electricians type, the substitute □
+ * drawn for what no face has, and Hebrew and Arabic (shaped: joined forms and the lam-alef ligature).
+ */
 const GLYPHS = [
   ' !"#$%&\'()*+,-./0123456789:;<=>?@ABCDEFGHIJKLMNOPQRSTUVWXYZ[\\]^_`abcdefghijklmnopqrstuvwxyz{|}~',
-  '² ³ Ω Δ ± ≤ ≥ → — – ° µ ∅ Æ Ø Å é ü ß € £ ½ … · × − ’ “ ” ▼ ▲ \ufffd',
+  '² ³ Ω Δ ± ≤ ≥ → — – ° µ ∅ Æ Ø Å é ü ß € £ ½ … · × − ’ “ ” ▼ ▲ □',
+  'מטבח חדר שינה Kitchen مطبخ غرفة النوم لا',
 ];
 
 function glyphSheet(): LayoutDoc {
   const tm = typeMetrics();
   const items = fontFaces.flatMap((face, f) =>
-    GLYPHS.flatMap((line, l) => fitText(line, { x: 5, y: 5 + (f * 2 + l) * 9, w: 200, h: 8 }, { face, maxPt: 11, minPt: 11 }, tm).runs),
+    GLYPHS.flatMap((line, l) => fitText(line, { x: 5, y: 5 + (f * GLYPHS.length + l) * 9, w: 200, h: 8 }, { face, maxPt: 11, minPt: 11 }, tm).runs),
   );
-  return { title: 'Glyphs', pages: [{ widthMm: 210, heightMm: 90, items }], warnings: [] };
+  return { title: 'Glyphs', pages: [{ widthMm: 210, heightMm: 5 + fontFaces.length * GLYPHS.length * 9, items }], warnings: [] };
 }
 
 describe('embedded fonts', () => {
@@ -40,6 +44,6 @@ describe('embedded fonts', () => {
 
   it('when the subset is extracted, then the text comes back as typed', async () => {
     const text = await pdfText((await drawLayout(glyphSheet(), { xMm: 0, yMm: 0 })).pdf);
-    for (const ch of ['²', 'Ω', '≤', 'Δ', '±', 'é', '€', '½']) expect(text).toContain(ch);
+    for (const ch of ['²', 'Ω', '≤', 'Δ', '±', 'é', '€', '½', '□']) expect(text).toContain(ch);
   });
 });
