@@ -19,16 +19,16 @@ describe('notice wording on the organisation screen', { timeout: 120_000 }, () =
     const { page } = await signedInOwnerPage(app, 'Notice Words Ltd', { viewport: PHONE });
     await page.goto('/settings/organisation');
     const form = page.getByTestId('notice-form-rcd-test');
-    const body = form.getByLabel('Wording');
+    const body = form.getByLabel('Wording', { exact: true });
     await body.waitFor();
     expect(await body.inputValue()).toBe(prescribedNotices['rcd-test'].wording.body);
     await expect.poll(() => form.getByTestId('notice-state-rcd-test').textContent()).toContain('prescribed words');
 
-    await form.getByLabel('Heading').fill('Monthly RCD check');
+    await form.getByLabel('Heading', { exact: true }).fill('Monthly RCD check');
     await body.fill(OWN_BODY);
     // The length limit shows as the user types.
     expect(await form.locator('[data-count]').last().getAttribute('data-count')).toBe(`${OWN_BODY.length} / ${NOTICE_BODY_MAX}`);
-    await form.getByRole('button', { name: 'Save' }).click();
+    await form.getByRole('button', { name: 'Save the RCD test wording' }).click();
     await form.getByText('Saved. Notices printed from now on').waitFor();
     await expect.poll(() => form.getByTestId('notice-state-rcd-test').textContent()).toContain("your organisation's wording");
     const saved = noticeWordingListSchema.parse(await (await page.request.get('/api/organisation/notice-wording')).json());
@@ -45,7 +45,7 @@ describe('notice wording on the organisation screen', { timeout: 120_000 }, () =
 
     // The notice saves moved the organisation's revision on; the details form saves against the new one.
     await page.getByLabel('Contact phone').fill('01632 960 123');
-    await page.getByRole('button', { name: 'Save' }).first().click();
+    await page.getByRole('button', { name: 'Save', exact: true }).click();
     await page.getByText('Saved. Charts printed from now on').waitFor();
     expect(app.pageErrors).toEqual([]);
   });
