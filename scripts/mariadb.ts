@@ -41,16 +41,24 @@ function binary(name: string): string {
   return name;
 }
 
-async function waitForQuery(port: number, timeoutMs: number): Promise<void> {
+/** Ready when a query answers; a cluster node also asks that it has joined (see scripts/galera.ts). */
+export type Readiness = (conn: mysql.Connection) => Promise<boolean>;
+
+async function waitForQuery(port: number, timeoutMs: number, ready?: Readiness): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   let lastError: unknown;
   while (Date.now() < deadline) {
     try {
       // `mariadb-admin ping` counts "access denied" as alive, so prove it with a real query.
       const conn = await mysql.createConnection({ host: '127.0.0.1', port, user: 'root', password: '' });
-      await conn.query('SELECT 1');
-      await conn.end();
-      return;
+      try {
+        await conn.query('SELECT 1');
+        if (!ready || (await ready(conn))) return;
+        lastError = new Error('not ready yet');
+      } finally {
+        await conn.end();
+      }
+      await new Promise((r) => setTimeout(r, 200));
     } catch (err) {
       lastError = err;
       await new Promise((r) => setTimeout(r, 100));
@@ -74,7 +82,18 @@ export async function startPrivateMariadb(opts: {
   dbName?: string;
   durable?: boolean;
   supervise?: boolean;
+  /**
+   * The system user the server runs as. `mysql` (the Debian package's user) when a Galera state transfer must write
+   * into the data dir: rsync runs as the server's user, and a root-owned dir refuses it. The dir is then chowned.
+   */
+  user?: 'root' | 'mysql';
+  /** More server options (Galera's), told whether this is the first start of this process or a restart. */
+  extraArgs?: (firstStart: boolean) => string[];
+  ready?: Readiness;
+  /** How long a start may take before it is given up (a joining cluster node copies the data first). */
+  startTimeoutMs?: number;
 }): Promise<PrivateMariadb> {
+  const user = opts.user ?? 'root';
   const dataDir = opts.dataDir;
   const dbName = opts.dbName ?? 'waymark';
   const port = opts.port ?? (await freePort());
@@ -86,12 +105,15 @@ export async function startPrivateMariadb(opts: {
 
   if (!existsSync(join(db, 'mysql'))) {
     mkdirSync(db, { recursive: true });
+    if (user === 'mysql') execFileSync('chown', ['-R', 'mysql:mysql', dataDir]);
     execFileSync(
       binary('mariadb-install-db'),
-      ['--no-defaults', `--datadir=${db}`, '--user=root', '--auth-root-authentication-method=normal', '--skip-test-db'],
+      ['--no-defaults', `--datadir=${db}`, `--user=${user}`, '--auth-root-authentication-method=normal', '--skip-test-db'],
       { stdio: 'ignore' },
     );
   }
+  if (user === 'mysql') execFileSync('chown', ['-R', 'mysql:mysql', dataDir]);
+  let firstStart = true;
 
   let pid = 0;
   let wanted = true;
@@ -125,7 +147,7 @@ export async function startPrivateMariadb(opts: {
         `--pid-file=${pidFile}`,
         `--port=${port}`,
         '--bind-address=127.0.0.1',
-        '--user=root',
+        `--user=${user}`,
         '--character-set-server=utf8mb4',
         '--collation-server=utf8mb4_unicode_ci',
         `--log-error=${logFile}`,
@@ -135,6 +157,7 @@ export async function startPrivateMariadb(opts: {
         // app has acknowledged. Only the throw-away test and benchmark databases trade that for speed.
         `--innodb-flush-log-at-trx-commit=${opts.durable === false ? 2 : 1}`,
         '--max-connections=500',
+        ...(opts.extraArgs?.(firstStart) ?? []),
       ],
       { detached: true, stdio: 'ignore' },
     );
@@ -145,7 +168,8 @@ export async function startPrivateMariadb(opts: {
       pid = 0;
       if (opts.supervise && wanted) restartLater(signal ?? `exit code ${code}`);
     });
-    await waitForQuery(port, 30_000);
+    firstStart = false;
+    await waitForQuery(port, opts.startTimeoutMs ?? 30_000, opts.ready);
     upSince = Date.now();
   };
   await start();

@@ -5,9 +5,9 @@
 import session from 'express-session';
 import MySQLStoreFactory from 'express-mysql-session';
 import type { RequestHandler } from 'express';
-import type { Pool } from 'mysql2/promise';
+import { repeatableStatements, type SqlPool } from '../db/cluster.js';
 
-export function sessionMiddleware(pool: Pool, secret: string): { middleware: RequestHandler; close(): Promise<void> } {
+export function sessionMiddleware(pool: SqlPool, secret: string): { middleware: RequestHandler; close(): Promise<void> } {
   // express-mysql-session's types describe a different express-session module shape than the one installed.
   // eslint-disable-next-line @typescript-eslint/no-explicit-any -- see above
   const MySQLStore = MySQLStoreFactory(session as any);
@@ -20,7 +20,8 @@ export function sessionMiddleware(pool: Pool, secret: string): { middleware: Req
       schema: { tableName: 'sessions', columnNames: { session_id: 'session_id', expires: 'expires', data: 'data' } },
       // eslint-disable-next-line @typescript-eslint/no-explicit-any -- its types want mysql (v1)'s pool; mysql2's promise pool works at run time
     },
-    pool as any,
+    // Its statements (upsert by id, touch, delete) may be sent twice: retried when a cluster node goes away under one.
+    repeatableStatements(pool) as any,
   );
   const middleware = session({
     name: 'waymark.sid',

@@ -4,7 +4,8 @@
  * the demo seed all use these, so the revision rules hold everywhere.
  */
 import { inTransaction } from '../db/client.js';
-import { isDuplicateKey } from '../db/errors.js';
+import { mayRetryTransaction } from '../db/cluster.js';
+import { isDeadlock, isDuplicateKey } from '../db/errors.js';
 import type { Db } from '../db/client.js';
 import type { Schedule } from '../../shared/schemas/schedule.js';
 import { diffSchedules } from '../../shared/schedule/diff.js';
@@ -96,6 +97,26 @@ export type SaveOutcome =
  * overwritten silently. The revision row and the board row change in one transaction.
  */
 export async function saveScheduleAt(db: Db, actor: Actor, boardId: number, baseRevision: number, schedule: Schedule): Promise<SaveOutcome> {
+  for (let attempt = 1; ; attempt++) {
+    try {
+      return await saveOnce(db, actor, boardId, baseRevision, schedule);
+    } catch (err) {
+      // On a Galera cluster two nodes may both pass the revision check, and one loses at commit (a deadlock error):
+      // run the whole save again, which reads the winner's revision and answers stale. A node gone mid-save is the
+      // same: the guarded update cannot apply twice. After the last try a lost conflict is still a stale save (409).
+      if (!mayRetryTransaction(err)) throw err;
+      if (attempt >= SAVE_ATTEMPTS) {
+        if (!isDeadlock(err)) throw err;
+        return { status: 'stale', revision: (await requireLiveBoardState(db, actor.organisationId, boardId)).revision };
+      }
+      await new Promise((r) => setTimeout(r, 50 * attempt));
+    }
+  }
+}
+
+const SAVE_ATTEMPTS = 4;
+
+async function saveOnce(db: Db, actor: Actor, boardId: number, baseRevision: number, schedule: Schedule): Promise<SaveOutcome> {
   const current = await requireBoardSchedule(db, actor.organisationId, boardId);
   if (current.revision !== baseRevision) return { status: 'stale', revision: current.revision };
   await checkFeedsBoardIds(db, actor.organisationId, schedule, boardId);

@@ -1,28 +1,34 @@
 import mysql from 'mysql2/promise';
 import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2';
 import * as schema from './schema.js';
+import { openPoolCluster, splitDatabaseUrl, type SqlPool } from './cluster.js';
 
 export type Db = MySql2Database<typeof schema>;
 
 export interface Database {
   db: Db;
-  pool: mysql.Pool;
+  /** One pool, or a pool cluster over every node the URL lists (server/db/cluster.ts). */
+  pool: SqlPool;
   /** Number of SQL statements sent through this pool (the benchmark reads it). */
   queryCount(): number;
   close(): Promise<void>;
 }
 
-/** Opens a pool on a `mysql://` URL. The pool reconnects by itself after an outage. */
+/**
+ * Opens a pool on a `mysql://` URL. The pool reconnects by itself after an outage. A URL listing several hosts
+ * opens a pool cluster instead: `connectionLimit` connections to each node.
+ */
 export function openDatabase(url: string, opts: { connectionLimit?: number } = {}): Database {
-  const pool = mysql.createPool({
-    uri: url,
+  const options: mysql.PoolOptions = {
     connectionLimit: opts.connectionLimit ?? 20,
     dateStrings: false,
     timezone: 'Z',
     enableKeepAlive: true,
     connectTimeout: 5000,
     supportBigNumbers: true,
-  });
+  };
+  const urls = splitDatabaseUrl(url);
+  const pool: SqlPool = urls.length > 1 ? openPoolCluster(urls, options) : mysql.createPool({ ...options, uri: url });
   let count = 0;
   const countingPool = new Proxy(pool, {
     get(target, prop, receiver) {
