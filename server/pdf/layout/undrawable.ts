@@ -55,6 +55,7 @@ const comesFrom = (laidOut: string, typed: string) => laidOut.includes(typed) ||
  */
 export function undrawableWarnings(changed: ChangedTexts, schedule: Schedule, contractor: Contractor): PrintWarning[] {
   const warnings: PrintWarning[] = [];
+  if (changed.size === 0) return warnings; // the usual case: no field needs looking at
   /** Per laid-out text, the lost characters some field's warning already names. */
   const named = new Map<string, Set<string>>();
   for (const s of sources(schedule, contractor)) {
