@@ -112,7 +112,7 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     const name = page.getByLabel('Organisation name');
     await name.waitFor();
     await page.getByLabel('Contact e-mail').fill('office-at-halyard');
-    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('button', { name: 'Save', exact: true }).click(); // the details form's; each notice wording has its own Save
     await page
       .locator('.ant-form-item-has-error', { has: page.getByLabel('Contact e-mail') })
       .getByText(contactEmailMessage('office-at-halyard'))
@@ -121,7 +121,7 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     await name.fill('Halyard & Daughters Electrical');
     await page.getByLabel('Contact phone').fill('01632 960 482'); // Ofcom's range kept for drama, never a real line (from memory)
     await page.getByLabel('Contact e-mail').fill('office@halyard.example');
-    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('button', { name: 'Save', exact: true }).click(); // the details form's; each notice wording has its own Save
     await page.getByText('Saved.', { exact: false }).waitFor();
     await page.getByTestId('chart-foot-preview').getByText('Tel. 01632 960 482').waitFor();
     const account = page.getByRole('button', { name: 'Account menu for Test Owner' });
@@ -146,7 +146,7 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     expect(other.status()).toBe(200);
 
     await name.fill('Overwriting Ltd');
-    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('button', { name: 'Save', exact: true }).click(); // the details form's; each notice wording has its own Save
     await page.getByTestId('stale-save').getByText('Someone saved this since you opened it: reload to see their changes.').waitFor();
     expect((await (await page.request.get('/api/organisation')).json()).name).toBe('Saved In Another Tab Ltd');
     await page.getByTestId('stale-save-reload').click();
@@ -154,7 +154,7 @@ describe('members and invitations through the screens', { timeout: 120_000 }, ()
     expect(await name.inputValue()).toBe('Saved In Another Tab Ltd');
     // Saved again from the reloaded revision, the change goes through.
     await name.fill('Second Try Ltd');
-    await page.getByRole('button', { name: 'Save' }).click();
+    await page.getByRole('button', { name: 'Save', exact: true }).click(); // the details form's; each notice wording has its own Save
     await page.getByText('Saved.', { exact: false }).waitFor();
     expect(await (await page.request.get('/api/organisation')).json()).toMatchObject({ name: 'Second Try Ltd', revision: revision + 2 });
   });
