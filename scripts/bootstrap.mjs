@@ -9,14 +9,22 @@ import { join, dirname } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 const root = join(dirname(fileURLToPath(import.meta.url)), '..');
-const task = process.argv[2]; // 'start' | 'test' | 'bench'
+const task = process.argv[2]; // 'start' | 'test' | 'bench' | 'cluster'
 const rest = process.argv.slice(3);
 
 /** Debian packages each task needs, keyed by a binary that proves the package is there. */
 const needs = {
   start: { '/usr/sbin/mariadbd': 'mariadb-server' },
-  test: { '/usr/sbin/mariadbd': 'mariadb-server', '/usr/bin/chromium': 'chromium', '/usr/bin/pdftoppm': 'poppler-utils' },
-  bench: { '/usr/sbin/mariadbd': 'mariadb-server' },
+  // galera-4 and rsync come with mariadb-server; named here so a server installed without them is noticed.
+  test: {
+    '/usr/sbin/mariadbd': 'mariadb-server',
+    '/usr/lib/galera/libgalera_smm.so': 'galera-4',
+    '/usr/bin/rsync': 'rsync',
+    '/usr/bin/chromium': 'chromium',
+    '/usr/bin/pdftoppm': 'poppler-utils',
+  },
+  bench: { '/usr/sbin/mariadbd': 'mariadb-server', '/usr/lib/galera/libgalera_smm.so': 'galera-4', '/usr/bin/rsync': 'rsync' },
+  cluster: { '/usr/sbin/mariadbd': 'mariadb-server', '/usr/lib/galera/libgalera_smm.so': 'galera-4', '/usr/bin/rsync': 'rsync' },
 };
 
 function run(cmd, args, opts = {}) {
@@ -65,7 +73,7 @@ function ensureDebianPackages() {
 }
 
 if (!needs[task]) {
-  console.error('usage: bootstrap.mjs start|test|bench [args]');
+  console.error('usage: bootstrap.mjs start|test|bench|cluster [args]');
   process.exit(2);
 }
 ensureNodeModules();
