@@ -18,6 +18,7 @@ import { benchQueries } from '../bench/queries.js';
 import { benchLoad } from '../bench/load-suite.js';
 import { benchEventLoop } from '../bench/event-loop.js';
 import { benchEditor, type EditorFigures } from '../bench/editor.js';
+import { benchClusterInto } from '../bench/cluster.js';
 
 const root = join(import.meta.dirname, '..');
 const quick = process.argv.includes('--quick');
@@ -74,6 +75,7 @@ async function benchServer(database: ReturnType<typeof openDatabase>, databaseUr
     JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb, eventLoop, editor }, null, 2) + '\n',
   );
   console.log(`\nWrote bench-results.json (${machine})`);
+  await benchClusterInto(join(root, 'bench-results.json'), { seconds: quick ? 3 : 10 });
   const failures = [
     ...editorFailures,
     ...pdf.filter((p) => p.ratio > 2).map((p) => `${p.name}: ${p.ratio}× its baseline (target ≤ 2×)`),
