@@ -11,7 +11,8 @@ import { requireCsrf } from './auth/csrf.js';
 import { apiRoutes } from './routes.js';
 import { errorHandler, notFound } from './errors.js';
 import { dynamicCompression } from './http/compression.js';
-import { serveClient } from './http/static.js';
+import { clientShellHtml, serveClient } from './http/static.js';
+import { boardPageDocumentRoutes } from './public/page-route.js';
 import './http/context.js';
 
 export interface BuiltApp {
@@ -57,6 +58,8 @@ export function createApp(ctx: AppContext): BuiltApp {
   app.use('/api', dynamicCompression(), cookieParser(), withSession, loadUser(ctx.db), requireCsrf(ctx.config.sessionSecret), apiRoutes(ctx));
   app.use('/api', (_req, _res, next) => next(notFound('No such API route')));
 
+  const shell = clientShellHtml(ctx.config.clientDir);
+  if (shell) app.use(boardPageDocumentRoutes(ctx, shell));
   serveClient(app, ctx.config.clientDir);
   app.use(errorHandler);
   return { app, close: () => sessions.close() };

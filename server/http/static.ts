@@ -23,6 +23,12 @@ function readShell(clientDir: string): Map<ContentCoding, Buffer> {
   return shell;
 }
 
+/** The built shell page as text, or null without a build: the board page's first HTML is made from it. */
+export function clientShellHtml(dir: string | null): string | null {
+  if (!dir || !existsSync(join(dir, 'index.html'))) return null;
+  return readFileSync(join(resolve(dir), 'index.html'), 'utf8');
+}
+
 /** Mounts the client's files and the shell page fallback; does nothing without a build in `clientDir`. */
 export function serveClient(app: Express, dir: string | null): void {
   if (!dir || !existsSync(join(dir, 'index.html'))) return;

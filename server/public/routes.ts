@@ -19,11 +19,20 @@ const BOARD_REPORTS_FACTOR = 3;
 
 const token = (req: Request) => String(req.params.token ?? '');
 
+/** Reads of board pages per address, one counter for the page's HTML, its JSON and its logo. */
+export const publicReadLimit = (ctx: AppContext) =>
+  sharedLimit(ctx, {
+    name: 'public-read',
+    windowMs: MINUTE,
+    limit: ctx.config.rateLimits.publicPerMinute,
+    message: 'Too many requests; wait a minute and try again',
+  });
+
 /** Mounted at `/public`. */
 export function publicRoutes(ctx: AppContext): Router {
   const r = Router();
   const limits = ctx.config.rateLimits;
-  r.use(sharedLimit(ctx, { name: 'public-read', windowMs: MINUTE, limit: limits.publicPerMinute, message: 'Too many requests; wait a minute and try again' }));
+  r.use(publicReadLimit(ctx));
   // Not indexed; nothing kept by a cache unless a route says so below (a 404, a 429 and every error stay uncached).
   r.use((_req, res, next) => {
     res.set({ 'Cache-Control': PRIVATE_CACHE_CONTROL, 'X-Robots-Tag': 'noindex, nofollow' });

@@ -6,6 +6,7 @@
 import type { PublicBoard } from '../../shared/schemas/public-board.js';
 import type { ReportSubmit } from '../../shared/schemas/reports.js';
 import { ApiError, request } from './http.js';
+import { BOARD_DATA_ELEMENT_ID } from '../../shared/public/inline-data.js';
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 const isString = (v: unknown): v is string => typeof v === 'string';
@@ -57,8 +58,23 @@ export type PublicBoardResult = { status: 'ready'; board: PublicBoard } | { stat
 
 const boardPath = (token: string) => `/api/public/boards/${encodeURIComponent(token)}`;
 
+/** The board the page's first HTML carried, once (server/public/page-html.ts); null when there is none or it is unreadable. */
+function takeInlineBoard(): PublicBoard | null {
+  const element = document.getElementById(BOARD_DATA_ELEMENT_ID);
+  if (!element) return null;
+  element.remove();
+  try {
+    const data: unknown = JSON.parse(element.textContent ?? '');
+    return isPublicBoard(data) ? data : null;
+  } catch {
+    return null;
+  }
+}
+
 /** The board behind a token; a 404 is an expected answer (rotated, switched off or mistyped), not an error. */
 export async function fetchPublicBoard(token: string, signal?: AbortSignal): Promise<PublicBoardResult> {
+  const inline = takeInlineBoard();
+  if (inline) return { status: 'ready', board: inline };
   try {
     const res = await request('GET', boardPath(token), { signal });
     const body: unknown = await res.json();

@@ -33,6 +33,8 @@ export const CHROMIUM_ARGS = [
 
 export interface PageOptions {
   viewport?: { width: number; height: number };
+  /** False for a visitor whose browser runs no script (or whose script never arrived). */
+  javaScriptEnabled?: boolean;
 }
 
 export interface BrowserApp {
@@ -97,7 +99,12 @@ export async function startBrowserApp(overrides: Partial<ServerConfig> = {}): Pr
   const pageErrors: Error[] = [];
 
   async function newPage(options: PageOptions = {}): Promise<Page> {
-    const context = await browser.newContext({ baseURL: baseUrl, viewport: options.viewport ?? { width: 1280, height: 800 }, locale: 'en-GB' });
+    const context = await browser.newContext({
+      baseURL: baseUrl,
+      viewport: options.viewport ?? { width: 1280, height: 800 },
+      locale: 'en-GB',
+      javaScriptEnabled: options.javaScriptEnabled ?? true,
+    });
     contexts.push(context);
     // Generous waits: the tests share two cores with builds and other suites.
     context.setDefaultTimeout(60_000);
