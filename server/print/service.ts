@@ -5,10 +5,10 @@
  */
 import type { AppContext } from '../context.js';
 import type { CurrentUser } from '../http/context.js';
-import type { Medium, RenderRequest, RenderResult } from '../pdf/types.js';
+import type { Medium, RenderResult } from '../pdf/types.js';
 import { LayoutError } from '../pdf/types.js';
 import { resolveMedium, type TapeSettings } from '../pdf/index.js';
-import { printOptionSchemas, type MediaId, type PrintOptions, type PrintOutput, type PrintWarning } from '../../shared/schemas/print.js';
+import { printOptionSchemas, type MediaId, type PrintOptions, type PrintWarning } from '../../shared/schemas/print.js';
 import type { PrintOffsetSave, PrintOffsetState, PrintRecord } from '../../shared/schemas/print-records.js';
 import { flagWorkProblem } from '../pdf/layout/work.js';
 import { waysChangedBetween } from '../../shared/schedule/diff.js';
@@ -22,6 +22,7 @@ import { todayIso as today } from '../http/clock.js';
 import { requireOwnBoardState } from '../boards/member-board.js';
 import { findOrganisation, updatePrintOffsetIfAt } from '../organisation/repository.js';
 import { runRenderJob } from './workers/pool.js';
+import type { PrintJobRequest } from './workers/jobs.js';
 
 export interface PrintedPdf extends RenderResult {
   filename: string;
@@ -75,7 +76,7 @@ export async function renderRequestFor(
   source: PrintSource,
   query: PrintQuery,
   tape: TapeSettings = {},
-): Promise<RenderRequest<PrintOutput>> {
+): Promise<PrintJobRequest> {
   // A changeover schedule of a board with no survey is the caller's mistake, not a layout the medium cannot take.
   if (query.output === 'changeover' && !source.schedule.survey?.ways.length) throw invalid(NO_SURVEY, { survey: NO_SURVEY });
   const medium = await mediumFor(ctx, user.organisationId, query.media, tape);
@@ -91,9 +92,8 @@ export async function renderRequestFor(
     schedule: source.schedule,
     board: source.board,
     contractor: source.contractor,
-    findings: source.findings,
+    checkedOn: source.checkedOn,
     offset: source.offset,
-    maxZsByCircuit: source.maxZsByCircuit,
     onlyWays,
     today: today(),
   };

@@ -6,9 +6,8 @@
 import type { Db } from '../db/client.js';
 import type { ServerConfig } from '../config.js';
 import type { BoardMeta, Contractor } from '../pdf/types.js';
-import type { Finding } from '../../shared/rules/types.js';
 import { scheduleSchema, type Schedule } from '../../shared/schemas/schedule.js';
-import { checkSchedule, maxZsByCircuit, nextInspectionDate } from '../../shared/rules/index.js';
+import { nextInspectionDate } from '../../shared/rules/index.js';
 import { isoDay } from '../../shared/rules/dates.js';
 import { boardPageUrl } from '../../shared/public/board-page.js';
 import { invalid, notFound } from '../errors.js';
@@ -21,9 +20,9 @@ export interface PrintSource {
   schedule: Schedule;
   board: BoardMeta;
   contractor: Contractor;
-  findings: Finding[];
+  /** The day the rules judge the board on, in the render thread (findings, maximum Zs); null: not judged (calibration). */
+  checkedOn: string | null;
   offset: { xMm: number; yMm: number };
-  maxZsByCircuit: Record<string, number | null>;
 }
 
 async function contractorOf(db: Db, organisationId: number): Promise<{ contractor: Contractor; offset: PrintSource['offset'] }> {
@@ -52,7 +51,7 @@ export async function loadPrintSource(db: Db, config: ServerConfig, organisation
     revisionDate: isoDay(new Date(current?.createdAt ?? row.updatedAt)),
     nextInspectionOn: nextInspectionDate(schedule.board),
   };
-  return { schedule, board, contractor, findings: checkSchedule(schedule, { today }), offset, maxZsByCircuit: maxZsByCircuit(schedule) };
+  return { schedule, board, contractor, checkedOn: today, offset };
 }
 
 /**
@@ -86,5 +85,5 @@ export async function loadCalibrationSource(db: Db, config: ServerConfig, organi
     revisionDate: today,
     nextInspectionOn: null,
   };
-  return { schedule, board, contractor, findings: [], offset, maxZsByCircuit: {} };
+  return { schedule, board, contractor, checkedOn: null, offset };
 }

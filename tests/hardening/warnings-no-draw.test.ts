@@ -33,13 +33,16 @@ afterAll(async () => {
 describe('the warnings list of a print', () => {
   it('when the render worker is asked what a 40-way chart and its flags would warn about, then it answers without drawing either', async () => {
     const schedule = makeSchedule(40);
-    const chart = await renderJob({ kind: 'check', request: { ...request('chart', 'a4'), schedule } });
-    const flags = await renderJob({ kind: 'check', request: { ...request('flags', 'tape-12'), schedule, medium: resolveMedium('tape-12') } });
+    const chart = await renderJob({ kind: 'check', request: { ...request('chart', 'a4'), schedule, checkedOn: '2026-01-05' } });
+    const flags = await renderJob({
+      kind: 'check',
+      request: { ...request('flags', 'tape-12'), schedule, medium: resolveMedium('tape-12'), checkedOn: '2026-01-05' },
+    });
     expect(chart.ok && chart.result).toMatchObject({ pageCount: expect.any(Number) });
     expect(flags.ok && 'pageCount' in flags.result && flags.result.pageCount).toBeGreaterThanOrEqual(40); // at least a flag a way, a page a flag
     expect(drawLayout).not.toHaveBeenCalled();
     // The PDF job does draw (and here refuses, proving the mock is the one in use).
-    await expect(renderJob({ kind: 'pdf', request: { ...request('chart', 'a4'), schedule } })).rejects.toThrow(/drawn/);
+    await expect(renderJob({ kind: 'pdf', request: { ...request('chart', 'a4'), schedule, checkedOn: null } })).rejects.toThrow(/drawn/);
   });
 
   it('when the print page asks for a chart warnings list, then it gives the page count the PDF itself has', async () => {

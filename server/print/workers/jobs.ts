@@ -6,13 +6,20 @@
 import type { PrintOutput, PrintWarning } from '../../../shared/schemas/print.js';
 import type { RenderRequest, RenderResult } from '../../pdf/types.js';
 
+/**
+ * A render request whose rule findings and maximum Zs the worker works out, so judging a big board
+ * (tens of milliseconds at 2,000 ways) does not hold the event loop either. `checkedOn` is the day
+ * the rules judge the board on; null gives none (the calibration page has no board to judge).
+ */
+export type PrintJobRequest = Omit<RenderRequest<PrintOutput>, 'findings' | 'maxZsByCircuit'> & { checkedOn: string | null };
+
 export type RenderJob =
   /** The PDF of one output (`renderOutput`). */
-  | { kind: 'pdf'; request: RenderRequest<PrintOutput> }
+  | { kind: 'pdf'; request: PrintJobRequest }
   /** The same output as PNG images at `dpi` (`rasterOutput`). */
-  | { kind: 'images'; request: RenderRequest<PrintOutput>; dpi: number }
+  | { kind: 'images'; request: PrintJobRequest; dpi: number }
   /** Laid out only, for the warnings list (`layoutOutput`). */
-  | { kind: 'check'; request: RenderRequest<PrintOutput> };
+  | { kind: 'check'; request: PrintJobRequest };
 
 export interface CheckedLayout {
   warnings: PrintWarning[];

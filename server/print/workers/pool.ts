@@ -28,6 +28,9 @@ export interface RenderPoolOptions {
 /** Seconds a client is told to wait after a refusal. // common practice: a few seconds for a busy server */
 const RETRY_AFTER_SECONDS = 5;
 
+/** How much lower the render threads run than the rest of the process (nice(2): 0 to 19, higher is lower). */
+const RENDER_NICENESS = 10;
+
 const ownExtension = extname(fileURLToPath(import.meta.url));
 
 /** tsx's loader for the thread when this process runs TypeScript without it (vitest); else the process's own flags. */
@@ -51,6 +54,9 @@ function renderPool(options: RenderPoolOptions = {}): Piscina {
     maxQueue: options.queue ?? threads * 16,
     // A thread left idle is kept: starting one (loading the engine and fonts) costs far more than the memory.
     idleTimeout: 60_000,
+    // Below the event loop and the database in the CPU's queue (nice(2), through @napi-rs/nice): on a busy
+    // machine a print takes a little longer rather than every other request waiting behind it.
+    niceIncrement: RENDER_NICENESS,
   });
   return pool;
 }

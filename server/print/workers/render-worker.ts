@@ -5,19 +5,27 @@
  */
 import { layoutOutput, renderOutput } from '../../pdf/index.js';
 import { rasterOutput } from '../../pdf/raster/index.js';
-import { LayoutError } from '../../pdf/types.js';
-import type { JobAnswer, JobResults, RenderJob } from './jobs.js';
+import { LayoutError, type RenderRequest } from '../../pdf/types.js';
+import { checkSchedule, maxZsByCircuit } from '../../../shared/rules/index.js';
+import type { JobAnswer, JobResults, PrintJobRequest, RenderJob } from './jobs.js';
+
+/** The engine's request with the board judged by the rules (findings and maximum Zs per circuit). */
+function judged({ checkedOn, ...request }: PrintJobRequest): RenderRequest {
+  if (checkedOn === null) return { ...request, findings: [], maxZsByCircuit: {} };
+  return { ...request, findings: checkSchedule(request.schedule, { today: checkedOn }), maxZsByCircuit: maxZsByCircuit(request.schedule) };
+}
 
 async function work(job: RenderJob): Promise<JobResults[RenderJob['kind']]> {
+  const request = judged(job.request);
   switch (job.kind) {
     case 'pdf':
-      return renderOutput(job.request);
+      return renderOutput(request);
     case 'images': {
-      const { images, warnings } = await rasterOutput(job.request, job.dpi);
+      const { images, warnings } = await rasterOutput(request, job.dpi);
       return { images, warnings };
     }
     case 'check': {
-      const layout = layoutOutput(job.request);
+      const layout = layoutOutput(request);
       return { warnings: layout.warnings, pageCount: layout.pages.length };
     }
   }
