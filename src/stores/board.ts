@@ -1,15 +1,17 @@
 /**
  * The board being edited: the copy as last loaded or saved (`loaded`), the electrician's
  * working copy, the revision it was based on, and what the rules and the schema say about
- * the working copy, recomputed on every edit so findings appear while typing.
+ * the working copy, recomputed a beat after each edit so findings appear while typing without
+ * slowing it. Derived facts (spare ways, max Zs, findings by field) are computed once per change here.
  */
 import { defineStore } from 'pinia';
-import { computed, ref, watch } from 'vue';
+import { computed, ref, toRaw, watch } from 'vue';
 import { scheduleSchema, circuitSchema, deviceSchema, type Circuit, type Device, type DeviceKind, type Schedule } from '../../shared/schemas/schedule.js';
 import { fieldErrors } from '../../shared/schemas/errors.js';
 import { isoDay } from '../../shared/rules/dates.js';
 import { checkSchedule, maxZsByCircuit } from '../../shared/rules/index.js';
 import type { Finding } from '../../shared/rules/types.js';
+import { undrawableTextFindings } from '../../shared/fonts/printed-text.js';
 import { ApiError } from '../api/http.js';
 import { applyChangeover, getSchedule, saveSchedule } from '../api/boards.js';
 import { clearDraft, readDraft, writeDraft } from './boardDraft.js';
@@ -23,6 +25,8 @@ const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;
 const isoToday = () => isoDay(new Date());
 /** Ids only need to be unique within one board; a short random tail keeps two editors' new items apart. */
 const NO_SUCH_BOARD = 'There is no such board: it does not exist or was deleted.';
+/** How long after the last keystroke the rules and the schema look at the copy: findings appear well within half a second. */
+export const CHECK_DELAY_MS = 200;
 export const newItemId = (prefix: string) => `${prefix}-${Math.random().toString(36).slice(2, 10)}`;
 
 export const useBoardStore = defineStore('board', () => {
@@ -44,22 +48,61 @@ export const useBoardStore = defineStore('board', () => {
   /** When the working copy was restored from an unsaved draft on this device: when that draft was written. */
   const restoredDraftAt = ref<string | null>(null);
 
-  const dirty = computed(() => working.value !== null && JSON.stringify(working.value) !== JSON.stringify(loaded.value));
+  /**
+   * The rule checks and the schema run off the typing path: an edit marks the copy `edited` at once
+   * and the checks run CHECK_DELAY_MS after the last one (a new copy from a load or a save is checked
+   * at once). They read the plain object behind the working copy, so nothing they look at is tracked
+   * per keystroke; `checkedVersion` is what tells the derived values to recompute.
+   */
+  const checkedVersion = ref(0);
+  const edited = ref(false);
+  let checkTimer: ReturnType<typeof setTimeout> | undefined;
+  function checkNow(): void {
+    clearTimeout(checkTimer);
+    edited.value = false;
+    checkedVersion.value++;
+  }
+  const checkedCopy = (): Schedule | null => {
+    void checkedVersion.value;
+    return working.value ? toRaw(working.value) : null;
+  };
+
+  const sameAsLoaded = (): boolean => JSON.stringify(toRaw(working.value)) === JSON.stringify(toRaw(loaded.value));
+  /** Unsaved changes: true from the first keystroke; a change typed back to the saved value clears it when the checks run. */
+  const dirty = computed(() => {
+    if (working.value === null) return false;
+    if (edited.value) return true;
+    void checkedVersion.value;
+    void loaded.value;
+    return !sameAsLoaded();
+  });
 
   const findings = computed<Finding[]>(() => {
-    if (!working.value) return [];
+    const copy = checkedCopy();
+    if (!copy) return [];
     try {
-      return checkSchedule(working.value, { today: today.value });
+      return checkSchedule(copy, { today: today.value });
     } catch {
       // A half-typed copy (e.g. a cleared number) must never break the editor; the schema messages say what is wrong.
       return [];
     }
   });
 
-  /** Findings by the schedule path they concern, to show each beside its field. */
+  /** Characters the printing fonts cannot draw, per text field: said while typing, not when the labels come out. */
+  const printFindings = computed<Finding[]>(() => {
+    const copy = checkedCopy();
+    if (!copy) return [];
+    try {
+      return undrawableTextFindings(copy);
+    } catch {
+      return []; // as for the rules: a half-typed copy never breaks the editor
+    }
+  });
+
+  /** Findings by the schedule path they concern, to show each beside its field (the print fonts' warnings too). */
   const findingsByField = computed(() => {
     const byField = new Map<string, Finding[]>();
-    for (const f of findings.value) if (f.field) byField.set(f.field, [...(byField.get(f.field) ?? []), f]);
+    for (const f of [...findings.value, ...printFindings.value]) if (f.field) byField.set(f.field, [...(byField.get(f.field) ?? []), f]);
     return byField;
   });
 
@@ -78,8 +121,9 @@ export const useBoardStore = defineStore('board', () => {
 
   /** Schema messages for the working copy, merged with the server's: shown beside fields, and they block saving. */
   const fieldMessages = computed<Record<string, string>>(() => {
-    if (!working.value) return {};
-    const parsed = scheduleSchema.safeParse(working.value);
+    const copy = checkedCopy();
+    if (!copy) return {};
+    const parsed = scheduleSchema.safeParse(copy);
     return { ...serverFields.value, ...(parsed.success ? {} : fieldErrors(parsed.error)) };
   });
 
@@ -97,15 +141,20 @@ export const useBoardStore = defineStore('board', () => {
   let draftTimer: ReturnType<typeof setTimeout> | undefined;
   watch(
     working,
-    () => {
+    (now, before) => {
       clearTimeout(draftTimer);
       draftTimer = setTimeout(keepDraft, 300);
+      if (now !== before) return; // a new copy: checked at once by the watcher below
+      edited.value = true;
+      clearTimeout(checkTimer);
+      checkTimer = setTimeout(checkNow, CHECK_DELAY_MS);
     },
     { deep: true },
   );
+  watch(working, checkNow, { flush: 'sync' });
   function keepDraft(): void {
     if (boardId.value === null || !loaded.value || !working.value) return;
-    if (dirty.value) writeDraft(boardId.value, { baseRevision: baseRevision.value, base: loaded.value, working: working.value });
+    if (!sameAsLoaded()) writeDraft(boardId.value, { baseRevision: baseRevision.value, base: loaded.value, working: working.value });
     else clearDraft(boardId.value);
   }
 
@@ -154,7 +203,8 @@ export const useBoardStore = defineStore('board', () => {
   /** Saves the working copy against `baseRevision`; never throws, the outcome says what happened. */
   async function save(): Promise<SaveOutcome> {
     if (!working.value || boardId.value === null) return 'failed';
-    if (!dirty.value) return 'unchanged';
+    checkNow(); // findings and messages as of the last keystroke, for the save and whatever it shows
+    if (sameAsLoaded()) return 'unchanged';
     const parsed = scheduleSchema.safeParse(working.value);
     if (!parsed.success) return 'invalid';
     status.value = 'saving';
@@ -240,6 +290,8 @@ export const useBoardStore = defineStore('board', () => {
   }
 
   function reset(): void {
+    clearTimeout(checkTimer);
+    clearTimeout(draftTimer);
     boardId.value = null;
     status.value = 'idle';
     loaded.value = null;
