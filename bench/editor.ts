@@ -58,6 +58,11 @@ const KEY_TIMER = `
 
 async function keyTimes(page: Page, circuitId: string, keys: number): Promise<number[]> {
   const input = page.locator(`td[data-cell="label-${circuitId}"] input`);
+  // A table that builds only the lines in view is scrolled down to the line, as a user would.
+  for (let i = 0; i < 40 && !(await input.count()); i++) {
+    await page.evaluate(`document.querySelector('.board-circuits__scroll')?.scrollBy(0, 300)`);
+    await page.waitForTimeout(50);
+  }
   await input.scrollIntoViewIfNeeded();
   await input.click();
   await page.keyboard.press('End');

@@ -15,12 +15,26 @@ export function tabForPath(path: string | undefined): EditorTab {
   return 'circuits';
 }
 
+/** Lists that build only the rows on screen (the circuit table) bring a path's row into being when asked. */
+type FieldRevealer = (path: string) => Promise<void>;
+const revealers = new Set<FieldRevealer>();
+
+/** Registers a list's revealer for as long as it is on screen; call the returned function on unmount. */
+export function addFieldRevealer(reveal: FieldRevealer): () => void {
+  revealers.add(reveal);
+  return () => revealers.delete(reveal);
+}
+
+const frame = () => new Promise((resolve) => requestAnimationFrame(resolve));
+const fieldElement = (path: string) => document.querySelector<HTMLElement>(`[data-field="${CSS.escape(path)}"]`);
+
 /** Scrolls to the element marked `data-field="<path>"` and focuses its first control. */
 export async function focusField(path: string): Promise<boolean> {
   await nextTick();
   // Tabs render their panes lazily; give the pane one frame to appear.
-  await new Promise((resolve) => requestAnimationFrame(resolve));
-  const el = document.querySelector<HTMLElement>(`[data-field="${CSS.escape(path)}"]`);
+  await frame();
+  if (!fieldElement(path)) for (const reveal of revealers) await reveal(path);
+  const el = fieldElement(path);
   if (!el) return false;
   el.scrollIntoView({ block: 'center', behavior: 'smooth' });
   el.querySelector<HTMLElement>('input, textarea, [tabindex="0"]')?.focus({ preventScroll: true });
