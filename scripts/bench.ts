@@ -19,10 +19,12 @@ import { benchLoad } from '../bench/load-suite.js';
 import { benchEventLoop } from '../bench/event-loop.js';
 import { benchEditor, type EditorFigures } from '../bench/editor.js';
 import { benchClusterInto } from '../bench/cluster.js';
+import { benchTransfer, transferTargets, type TransferFigures } from '../bench/transfer.js';
 
 const root = join(import.meta.dirname, '..');
 const quick = process.argv.includes('--quick');
 const editorOnly = process.argv.includes('--editor');
+const transferOnly = process.argv.includes('--transfer');
 let mariadb: PrivateMariadb | null = null;
 const dataDir = mkdtempSync(join(tmpdir(), 'waymark-bench-db-'));
 
@@ -36,21 +38,44 @@ try {
   await migrateDatabase(database);
   await seedDemo(database.db, seedDemoBoards);
 
-  console.log('== Board editor in headless Chromium (1366 × 900; load median, keystroke → next frame over 10 keys)');
-  const editor = await benchEditor(mariadb.url, { runs: quick ? 3 : 5 });
-  console.table([editor]);
-  const editorFailures = editorTargets(editor);
-  if (editorOnly) {
+  if (transferOnly) {
+    const transfer = await benchTransferFigures(mariadb.url);
     await database.close();
-    console.log(editorFailures.length ? `\nTargets missed:\n  ${editorFailures.join('\n  ')}` : '\nEditor targets met.');
-  } else await benchServer(database, mariadb.url, editor, editorFailures);
+    const missed = transferTargets(transfer);
+    console.log(missed.length ? `\nTargets missed:\n  ${missed.join('\n  ')}` : '\nTransfer targets met.');
+  } else {
+    console.log('== Board editor in headless Chromium (1366 × 900; load median, keystroke → next frame over 10 keys)');
+    const editor = await benchEditor(mariadb.url, { runs: quick ? 3 : 5 });
+    console.table([editor]);
+    const editorFailures = editorTargets(editor);
+    if (editorOnly) {
+      await database.close();
+      console.log(editorFailures.length ? `\nTargets missed:\n  ${editorFailures.join('\n  ')}` : '\nEditor targets met.');
+    } else {
+      const transfer = await benchTransferFigures(mariadb.url);
+      await benchServer(database, mariadb.url, editor, transfer, [...editorFailures, ...transferTargets(transfer)]);
+    }
+  }
 } finally {
   await mariadb?.stop();
   removeDir(dataDir);
 }
 
+async function benchTransferFigures(databaseUrl: string): Promise<TransferFigures> {
+  console.log('== Bytes over the wire (headless Chromium: first visits, a repeat after a one-screen release, the board page at 1.6 Mbit/s)');
+  const transfer = await benchTransfer(databaseUrl);
+  console.table([transfer]);
+  return transfer;
+}
+
 /** The PDF, query and load figures, then bench-results.json with the editor's beside them. */
-async function benchServer(database: ReturnType<typeof openDatabase>, databaseUrl: string, editor: EditorFigures, editorFailures: string[]): Promise<void> {
+async function benchServer(
+  database: ReturnType<typeof openDatabase>,
+  databaseUrl: string,
+  editor: EditorFigures,
+  transfer: TransferFigures,
+  editorFailures: string[],
+): Promise<void> {
   console.log('== PDF generation (median of repeated runs, baseline = bare pdf-lib with the same text runs and rectangles)');
   const pdf = await benchPdf(database, { runs: quick ? 3 : 9 });
   console.table(pdf);
@@ -72,7 +97,7 @@ async function benchServer(database: ReturnType<typeof openDatabase>, databaseUr
   const machine = `${cpus().length} × ${cpus()[0]?.model ?? 'cpu'}, ${Math.round(totalmem() / 2 ** 30)} GiB, Node ${process.version}`;
   writeFileSync(
     join(root, 'bench-results.json'),
-    JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb, eventLoop, editor }, null, 2) + '\n',
+    JSON.stringify({ machine, at: new Date().toISOString(), pdf, load, queries, rssMb, eventLoop, editor, transfer }, null, 2) + '\n',
   );
   console.log(`\nWrote bench-results.json (${machine})`);
   await benchClusterInto(join(root, 'bench-results.json'), { seconds: quick ? 3 : 10 });
