@@ -19,7 +19,8 @@ const SWEEP_EVERY_MS = 5 * 60_000;
 /** Rows one sweep deletes at most, so a sweep is never one long lock. */
 const SWEEP_BATCH = 5000;
 
-let lastSweep = 0;
+/** The first sweep comes SWEEP_EVERY_MS after the process starts, not on its first hit. */
+let lastSweep = Date.now();
 
 /** One store per limiter (the library refuses a shared one); `prefix` keeps each limiter's keys apart in the one table. */
 export class SharedLimitStore implements Store {

@@ -57,7 +57,9 @@ describe('board page reads arriving together', () => {
       if (board) expect(a, a.token).toEqual({ token: a.token, status: 200, name: board.name });
       else expect(a.status, a.token).toBe(404);
     }
-    expect(statements).toBeLessThan(asked.length);
+    // Each read is also counted against the shared per-address limit (one statement per batch of hits, as the
+    // reads): one by one that would be two statements a read.
+    expect(statements).toBeLessThan(2 * asked.length);
   });
 
   it('when a token is rotated during a crowd of reads, then every read sent after the rotation was answered gets 404', async () => {
