@@ -20,8 +20,9 @@ const SHOTS = process.env.WAYMARK_SHOTS;
 const LAPTOP = { width: 1366, height: 900 };
 const PHONE = { width: 390, height: 844 }; // a common phone viewport in CSS pixels // from memory
 
-async function boardWithCircuits(page: Page): Promise<number> {
+async function boardWithCircuits(page: Page, secondLabel?: string): Promise<number> {
   const schedule = makeSchedule(2, 'Print fonts board');
+  if (secondLabel) schedule.circuits[1].label = secondLabel;
   const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
   const headers = { 'X-CSRF-Token': token };
   const { id } = await (await page.request.post('/api/boards', { headers, data: { name: schedule.board.name } })).json();
@@ -64,6 +65,18 @@ describe('characters that will not print, said while typing', { timeout: 240_000
     expect(box.x + box.width).toBeLessThanOrEqual(PHONE.width);
     if (SHOTS) await page.waitForTimeout(1000);
     if (SHOTS) await page.screenshot({ path: `${SHOTS}/print-fonts-phone.png` });
+    expect(app.pageErrors).toEqual([]);
+  });
+
+  it('when a board with 配電 in a label is opened to print, then the print page lists the warning naming the label and both characters', async () => {
+    const { page } = await signedInOwnerPage(app, 'Fontwell Test Electrical', { viewport: PHONE });
+    const boardId = await boardWithCircuits(page, '配電 lights');
+    await page.goto(`/boards/${boardId}/print`);
+    const item = page.locator('.print-warning-list__item[data-code="undrawable-characters"]');
+    await item.first().waitFor({ timeout: 30_000 });
+    const text = (await item.first().textContent()) ?? '';
+    expect(text).toMatch(/^\s*Way 2 label "配電 lights": "配" \(U\+914D\), "電" \(U\+96FB\) cannot be drawn/);
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/print-fonts-print-page.png`, fullPage: true });
     expect(app.pageErrors).toEqual([]);
   });
 });
