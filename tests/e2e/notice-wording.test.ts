@@ -35,7 +35,7 @@ describe('notice wording on the organisation screen', { timeout: 120_000 }, () =
     expect(saved.notices.find((n) => n.kind === 'rcd-test')!.custom).toEqual({ title: 'Monthly RCD check', body: OWN_BODY });
 
     // Nothing on the page is wider than the phone.
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width);
+    expect(await page.evaluate<number>('document.documentElement.scrollWidth')).toBeLessThanOrEqual(PHONE.width);
     const box = await form.getByTestId('notice-reset-rcd-test').boundingBox();
     expect(box!.x + box!.width).toBeLessThanOrEqual(PHONE.width);
 
