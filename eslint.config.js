@@ -6,7 +6,7 @@ import vue from 'eslint-plugin-vue';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.waymark/**', 'drizzle/**', 'components.d.ts', 'coverage/**'] },
+  { ignores: ['dist/**', 'node_modules/**', '.waymark/**', 'drizzle/**', 'components.d.ts', 'coverage/**', '.data/**', '.tmp/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   ...vue.configs['flat/recommended'],
