@@ -17,6 +17,7 @@ import { applyChangeover, getSchedule, saveSchedule } from '../api/boards.js';
 import { clearDraft, readDraft, writeDraft } from './boardDraft.js';
 import { rebaseSchedule, type RebaseResult } from './boardRebase.js';
 import { spareWays, type SpareWay } from '../../shared/schedule/ways.js';
+import { sameParts, scheduleParts } from './scheduleParts.js';
 
 export type BoardStatus = 'idle' | 'loading' | 'ready' | 'saving' | 'error';
 export type SaveOutcome = 'saved' | 'unchanged' | 'invalid' | 'conflict' | 'failed';
@@ -49,17 +50,15 @@ export const useBoardStore = defineStore('board', () => {
   const restoredDraftAt = ref<string | null>(null);
 
   /**
-   * The rule checks and the schema run off the typing path: an edit marks the copy `edited` at once
-   * and the checks run CHECK_DELAY_MS after the last one (a new copy from a load or a save is checked
-   * at once). They read the plain object behind the working copy, so nothing they look at is tracked
-   * per keystroke; `checkedVersion` is what tells the derived values to recompute.
+   * The rule checks and the schema run off the typing path: they run CHECK_DELAY_MS after the last
+   * edit (a new copy from a load or a save is checked at once), on the plain object behind the
+   * working copy, so nothing they look at is tracked per keystroke; `checkedVersion` is what tells
+   * the derived values to recompute.
    */
   const checkedVersion = ref(0);
-  const edited = ref(false);
   let checkTimer: ReturnType<typeof setTimeout> | undefined;
   function checkNow(): void {
     clearTimeout(checkTimer);
-    edited.value = false;
     checkedVersion.value++;
   }
   const checkedCopy = (): Schedule | null => {
@@ -67,15 +66,11 @@ export const useBoardStore = defineStore('board', () => {
     return working.value ? toRaw(working.value) : null;
   };
 
-  const sameAsLoaded = (): boolean => JSON.stringify(toRaw(working.value)) === JSON.stringify(toRaw(loaded.value));
-  /** Unsaved changes: true from the first keystroke; a change typed back to the saved value clears it when the checks run. */
-  const dirty = computed(() => {
-    if (working.value === null) return false;
-    if (edited.value) return true;
-    void checkedVersion.value;
-    void loaded.value;
-    return !sameAsLoaded();
-  });
+  // The copies' content part by part (see scheduleParts): a keystroke re-serialises its own circuit only.
+  const workingParts = computed(() => scheduleParts(working.value));
+  const loadedParts = computed(() => scheduleParts(loaded.value));
+  /** Unsaved changes, from the first keystroke, gone again if the change is typed back. */
+  const dirty = computed(() => working.value !== null && !sameParts(workingParts.value, loadedParts.value));
 
   const findings = computed<Finding[]>(() => {
     const copy = checkedCopy();
@@ -139,22 +134,21 @@ export const useBoardStore = defineStore('board', () => {
 
   // The draft follows every edit (a beat behind, so typing is not slowed) and goes when nothing is unsaved.
   let draftTimer: ReturnType<typeof setTimeout> | undefined;
-  watch(
-    working,
-    (now, before) => {
-      clearTimeout(draftTimer);
-      draftTimer = setTimeout(keepDraft, 300);
-      if (now !== before) return; // a new copy: checked at once by the watcher below
-      edited.value = true;
-      clearTimeout(checkTimer);
-      checkTimer = setTimeout(checkNow, CHECK_DELAY_MS);
-    },
-    { deep: true },
-  );
+  let copySeen: Schedule | null = null;
+  watch(workingParts, () => {
+    clearTimeout(draftTimer);
+    draftTimer = setTimeout(keepDraft, 300);
+    if (working.value !== copySeen) {
+      copySeen = working.value; // a new copy: checked at once by the watcher below
+      return;
+    }
+    clearTimeout(checkTimer);
+    checkTimer = setTimeout(checkNow, CHECK_DELAY_MS);
+  });
   watch(working, checkNow, { flush: 'sync' });
   function keepDraft(): void {
     if (boardId.value === null || !loaded.value || !working.value) return;
-    if (!sameAsLoaded()) writeDraft(boardId.value, { baseRevision: baseRevision.value, base: loaded.value, working: working.value });
+    if (dirty.value) writeDraft(boardId.value, { baseRevision: baseRevision.value, base: loaded.value, working: working.value });
     else clearDraft(boardId.value);
   }
 
@@ -204,7 +198,7 @@ export const useBoardStore = defineStore('board', () => {
   async function save(): Promise<SaveOutcome> {
     if (!working.value || boardId.value === null) return 'failed';
     checkNow(); // findings and messages as of the last keystroke, for the save and whatever it shows
-    if (sameAsLoaded()) return 'unchanged';
+    if (!dirty.value) return 'unchanged';
     const parsed = scheduleSchema.safeParse(working.value);
     if (!parsed.success) return 'invalid';
     status.value = 'saving';
