@@ -20,7 +20,7 @@ let shellDir: string;
 beforeAll(async () => {
   // A stand-in client build: the shell page is served from whatever index.html the build left.
   shellDir = mkdtempSync(join(tmpdir(), 'waymark-shell-'));
-  writeFileSync(join(shellDir, 'index.html'), '<!doctype html><title>Waymark</title>');
+  writeFileSync(join(shellDir, 'index.html'), '<!doctype html><title>Waymark</title><div id="app"></div>');
   t = await startTestApp({ clientDir: shellDir, rateLimits: { publicPerMinute: 1000 } as ServerConfig['rateLimits'] });
 });
 afterAll(async () => {
@@ -122,6 +122,27 @@ describe('the board page in a shared cache', () => {
       .expect(304);
     const editor = await request(t.app).get('/boards/1').expect(200);
     expect(directives(editor.headers['cache-control'])['no-cache']).toBe(true);
+  });
+});
+
+describe("the board page's first HTML in a shared cache", () => {
+  it('when a board page is opened, then its HTML with the board in it is cacheable like the JSON, revalidates to 304, and after a switch-off revalidates to the plain shell', async () => {
+    const owner = await signupMarkedOwner(t.app);
+    const board = await createBoard(owner, undefined, false);
+    const url = `/b/${board.token}`;
+    const page = await request(t.app).get(url).expect(200);
+    expect(page.text).toContain('Hallway consumer unit');
+    expect(directives(page.headers['cache-control']).public).toBe(true);
+    expect(sharedCacheSeconds(page.headers['cache-control'])).toBeLessThanOrEqual(STATED_SECONDS);
+    expect(page.headers['set-cookie']).toBeUndefined();
+    const json = await request(t.app).get(`/api/public/boards/${board.token}`).expect(200);
+    expect(page.headers.etag).not.toBe(json.headers.etag); // one URL's tag never answers the other's request
+    await request(t.app).get(url).set('If-None-Match', page.headers.etag).expect(304);
+
+    await owner.patch(`/api/boards/${board.id}/public`, { enabled: false }).expect(200);
+    const off = await request(t.app).get(url).set('If-None-Match', page.headers.etag).expect(200);
+    expect(off.headers.etag).not.toBe(page.headers.etag);
+    expect(off.text).not.toContain('Hallway consumer unit');
   });
 });
 
