@@ -16,7 +16,7 @@ import { migrateDatabase } from '../server/db/migrate.js';
 import { boards } from '../server/db/schema.js';
 import { seedDemo, DEMO_PASSWORD, DEMO_USERS } from '../server/seed/index.js';
 import { seedDemoBoards } from '../server/seed/boards.js';
-import { measure, spawnServer } from './load.js';
+import { measure, productionServerEnv, spawnServer } from './load.js';
 
 export interface ClusterFigures {
   nodes: number;
@@ -102,9 +102,7 @@ export async function benchCluster(opts: { seconds: number; connections: number 
     await seedDemo(database.db, seedDemoBoards);
     const [board] = await database.db.select({ id: boards.id, token: boards.publicToken }).from(boards).where(isNull(boards.deletedAt)).limit(1);
     await database.close();
-    // As the load suite runs its server: production, a relay address that takes no mail, the public limit out of the way.
-    const env = { ...process.env, DATABASE_URL: cluster.url, SESSION_SECRET: 'bench-secret', PORT: '0', NODE_ENV: 'production' };
-    Object.assign(env, { SMTP_HOST: '127.0.0.1', SMTP_PORT: '1', RATE_PUBLIC_MINUTE: '100000000', WAYMARK_CLIENT_DIR: 'dist' });
+    const env = productionServerEnv(cluster.url);
     const bases: string[] = [];
     for (let i = 0; i < 2; i++) {
       const app = await spawnServer(['server/index.ts'], env);

@@ -8,7 +8,7 @@ import { BOARD_FILE_FORMAT } from '../shared/schemas/schedule.js';
 import { DEMO_PASSWORD, DEMO_USERS } from '../server/seed/index.js';
 import { makeSchedule } from '../tests/helpers/boards.js';
 import { CHROMIUM_ARGS } from '../tests/helpers/browser.js';
-import { spawnServer } from './load.js';
+import { productionServerEnv, spawnServer } from './load.js';
 
 export interface EditorFigures {
   load10Ms: number;
@@ -88,17 +88,7 @@ async function figuresFor(page: Page, circuits: number, runs: number): Promise<{
 
 /** Starts the production server on the bench database, signs in as the demo owner and measures both boards. */
 export async function benchEditor(databaseUrl: string, opts: { runs: number }): Promise<EditorFigures> {
-  const env = {
-    ...process.env,
-    DATABASE_URL: databaseUrl,
-    SESSION_SECRET: 'bench-secret',
-    PORT: '0',
-    NODE_ENV: 'production',
-    // Production refuses to start without a relay; the bench sends no mail, so an address that takes none will do.
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: '1',
-    WAYMARK_CLIENT_DIR: 'dist',
-  };
+  const env = productionServerEnv(databaseUrl);
   const server = await spawnServer(['server/index.ts'], env);
   const browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS });
   try {

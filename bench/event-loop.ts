@@ -7,7 +7,7 @@
 import type { ChildProcess } from 'node:child_process';
 import { DEMO_PASSWORD, DEMO_USERS } from '../server/seed/index.js';
 import { makeSchedule } from '../tests/helpers/boards.js';
-import { spawnServer } from './load.js';
+import { productionServerEnv, spawnServer } from './load.js';
 
 export interface EventLoopFigures {
   /** Health p99 with nothing else running. */
@@ -71,18 +71,7 @@ async function poll(url: string, until: () => boolean): Promise<number[]> {
 }
 
 export async function benchEventLoop(databaseUrl: string, opts: { prints: number; idleSeconds: number }): Promise<EventLoopFigures> {
-  const env = {
-    ...process.env,
-    DATABASE_URL: databaseUrl,
-    SESSION_SECRET: 'bench-secret',
-    PORT: '0',
-    NODE_ENV: 'production',
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: '1',
-    WAYMARK_DEMO: 'on',
-    // One client polling a board page far faster than a visitor: the limit is not what is measured.
-    RATE_PUBLIC_MINUTE: '100000000',
-  };
+  const env = productionServerEnv(databaseUrl, { WAYMARK_DEMO: 'on' });
   const children: ChildProcess[] = [];
   try {
     const app = await spawnServer(['server/index.ts'], env);

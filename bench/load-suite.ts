@@ -6,7 +6,7 @@ import type { ChildProcess } from 'node:child_process';
 import { isNull } from 'drizzle-orm';
 import type { Database } from '../server/db/client.js';
 import { boards } from '../server/db/schema.js';
-import { measure, rssMb, spawnServer } from './load.js';
+import { measure, productionServerEnv, rssMb, spawnServer } from './load.js';
 
 export interface LoadRow {
   route: string;
@@ -31,19 +31,7 @@ export async function benchLoad(
 ): Promise<{ load: LoadRow[]; rssMb: number }> {
   const [board] = await database.db.select({ token: boards.publicToken }).from(boards).where(isNull(boards.deletedAt)).limit(1);
   if (!board) throw new Error('no demo board to load');
-  const env = {
-    ...process.env,
-    DATABASE_URL: databaseUrl,
-    SESSION_SECRET: 'bench-secret',
-    PORT: '0',
-    NODE_ENV: 'production',
-    // Production refuses to start without a relay; the load sends no mail, so an address that takes none will do.
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: '1',
-    // The limits protect a public server from one abuser; the benchmark is that one client.
-    RATE_PUBLIC_MINUTE: '100000000',
-    WAYMARK_CLIENT_DIR: 'dist',
-  };
+  const env = productionServerEnv(databaseUrl);
   const children: ChildProcess[] = [];
   try {
     const app = await spawnServer(['server/index.ts'], env);

@@ -22,6 +22,27 @@ export async function measure(url: string, seconds: number, connections: number)
 }
 
 /** Starts a process that prints its port once listening (`PORT n` or `(port n)`); resolves with the port. */
+/**
+ * The environment every bench runs the production server with: the bench database, production mode with a
+ * relay address that takes no mail (production refuses to start without one; the bench sends none), the built
+ * client, and the per-address board-page limit out of the way (the bench is one client asking far more often
+ * than any visitor: the limit is not what is measured). `extra` adds or overrides.
+ */
+export function productionServerEnv(databaseUrl: string, extra: Record<string, string> = {}): NodeJS.ProcessEnv {
+  return {
+    ...process.env,
+    DATABASE_URL: databaseUrl,
+    SESSION_SECRET: 'bench-secret',
+    PORT: '0',
+    NODE_ENV: 'production',
+    SMTP_HOST: '127.0.0.1',
+    SMTP_PORT: '1',
+    RATE_PUBLIC_MINUTE: '100000000',
+    WAYMARK_CLIENT_DIR: 'dist',
+    ...extra,
+  };
+}
+
 export function spawnServer(args: string[], env: NodeJS.ProcessEnv): Promise<{ child: ChildProcess; port: number }> {
   return new Promise((resolve, reject) => {
     // node --import tsx (not the tsx wrapper), so the pid is the server's own and its RSS is measured.

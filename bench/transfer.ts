@@ -12,7 +12,7 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { DEMO_PASSWORD, DEMO_USERS } from '../server/seed/index.js';
 import { CHROMIUM_ARGS } from '../tests/helpers/browser.js';
 import type { BoardListResponse } from '../shared/schemas/boards.js';
-import { spawnServer } from './load.js';
+import { productionServerEnv, spawnServer } from './load.js';
 import { releaseOneScreen } from './release-copy.js';
 
 export interface TransferFigures {
@@ -71,17 +71,7 @@ async function demoBoard(page: Page): Promise<{ id: number; token: string; label
 }
 
 export async function benchTransfer(databaseUrl: string): Promise<TransferFigures> {
-  const env = (clientDir: string, port: string) => ({
-    ...process.env,
-    DATABASE_URL: databaseUrl,
-    SESSION_SECRET: 'bench-secret',
-    PORT: port,
-    NODE_ENV: 'production',
-    // Production refuses to start without a relay; the bench sends no mail.
-    SMTP_HOST: '127.0.0.1',
-    SMTP_PORT: '1',
-    WAYMARK_CLIENT_DIR: clientDir,
-  });
+  const env = (clientDir: string, port: string) => productionServerEnv(databaseUrl, { WAYMARK_CLIENT_DIR: clientDir, PORT: port });
   let server = await spawnServer(['server/index.ts'], env('dist', '0'));
   const port = server.port;
   const baseURL = `http://127.0.0.1:${port}`;
