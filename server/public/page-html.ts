@@ -69,7 +69,10 @@ const APP_ELEMENT = /<div id="app">[\s\S]*?<\/div>/;
 export function boardPageHtml(shell: string, page: PublicBoard, json: string): string {
   if (!APP_ELEMENT.test(shell)) return shell;
   const data = `<script type="application/json" id="${BOARD_DATA_ELEMENT_ID}">${scriptSafeJson(json)}</script>`;
-  return shell
-    .replace(/<title>[^<]*<\/title>/, `<title>${escapeHtml(page.board.name)} · board page</title>`)
-    .replace(APP_ELEMENT, () => `<div id="app">${boardPageFirstView(page)}</div>${data}`);
+  return (
+    shell
+      // Replacers as functions: a `$&` or `$'` typed in a board name is text, not a replacement pattern.
+      .replace(/<title>[^<]*<\/title>/, () => `<title>${escapeHtml(page.board.name)} · board page</title>`)
+      .replace(APP_ELEMENT, () => `<div id="app">${boardPageFirstView(page)}</div>${data}`)
+  );
 }

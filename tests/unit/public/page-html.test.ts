@@ -45,6 +45,23 @@ describe('board page first HTML', () => {
     expect(html.indexOf('Before you touch this board')).toBeLessThan(html.indexOf('Way 1:'));
   });
 
+  it("when a board name holds a replacement pattern ($' $& $`), then the title shows it as typed and the shell appears once", () => {
+    // ECMA-262 GetSubstitution: in a replacement string `$'`, `$&` and `$\`` stand for parts of the subject.
+    const named = toPublicBoard(scheduleSchema.parse({ ...schedule, board: { ...schedule.board, name: "Shop $' $& $` DB" } }), {
+      organisation: { name: 'Example Electrical', contactPhone: '', contactEmail: '' },
+      hasLogo: false,
+      revision: 1,
+      revisionDate: '2026-12-01',
+      nextInspectionOn: null,
+    });
+    const html = boardPageHtml(SHELL, named, JSON.stringify(named));
+    expect(html).toContain('<title>Shop $&#39; $&amp; $` DB · board page</title>');
+    expect(html.match(/<div id="app">/g)).toHaveLength(1);
+    expect(html.match(/<title>/g)).toHaveLength(1);
+    // The first view and the data sit in the one app element, after the title, not inside it.
+    expect(html.indexOf(`id="${BOARD_DATA_ELEMENT_ID}"`)).toBeGreaterThan(html.indexOf('</title>'));
+  });
+
   it('when the shell has no app element, then it is returned unchanged', () => {
     expect(boardPageHtml('<html></html>', page, '{}')).toBe('<html></html>');
   });
