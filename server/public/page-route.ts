@@ -3,6 +3,7 @@
  * Cached like the page's JSON, counted against the same per-address limit; a token that opens no
  * page falls through to the plain shell, whose script then says so.
  */
+import { createHash } from 'node:crypto';
 import { Router } from 'express';
 import type { AppContext } from '../context.js';
 import { AppError } from '../errors.js';
@@ -16,6 +17,9 @@ export function boardPageDocumentRoutes(ctx: AppContext, shellHtml: string): Rou
   const r = Router();
   // One HTML per cached projection: a scan of an unchanged board costs no rendering.
   const rendered = new WeakMap<PublicBoardBody, string>();
+  // The HTML is the page and this release's shell: after a release the old tag must not revalidate, or a
+  // cache (or a browser) keeps HTML naming scripts the new build no longer has for as long as the board is unchanged.
+  const release = createHash('sha256').update(shellHtml).digest('base64url').slice(0, 12);
   r.get('/b/:token', publicReadLimit(ctx), dynamicCompression(), async (req, res, next) => {
     let body: PublicBoardBody;
     try {
@@ -29,8 +33,8 @@ export function boardPageDocumentRoutes(ctx: AppContext, shellHtml: string): Rou
       html = boardPageHtml(shellHtml, body.page, body.json.toString('utf8'));
       rendered.set(body, html);
     }
-    // The page's tag, marked as the HTML's: a cache must not answer the JSON's request with it.
-    res.set({ ETag: `"page-${body.etag.slice(1)}`, 'Cache-Control': BOARD_PAGE_CACHE_CONTROL, 'X-Robots-Tag': 'noindex, nofollow' });
+    // The page's tag, marked as the HTML's (a cache must not answer the JSON's request with it) and the release's.
+    res.set({ ETag: `"page-${release}-${body.etag.slice(1)}`, 'Cache-Control': BOARD_PAGE_CACHE_CONTROL, 'X-Robots-Tag': 'noindex, nofollow' });
     res.type('html').send(html);
   });
   return r;
