@@ -14,6 +14,12 @@ import { countHit, infoOf, retried, type CounterRow } from './limit-hits.js';
 
 /** The column's length (`counter_key varchar(255)`); longer keys are stored as their SHA-256. */
 const KEY_MAX = 255;
+/**
+ * Keys the column's collation compares exactly as JavaScript does, kept readable: utf8mb4_unicode_ci is blind to
+ * case and accents and ignores trailing spaces, so `aB` and `Ab` (two board-page tokens) would share one row, and the
+ * row would come back under the other spelling. Any other key is stored as its SHA-256 in lower-case hex.
+ */
+const PLAIN_KEY = /^[a-z0-9.:|@_+/-]*$/;
 /** How often each process deletes rows whose window has ended. */
 const SWEEP_EVERY_MS = 5 * 60_000;
 /** Rows one sweep deletes at most, so a sweep is never one long lock. */
@@ -38,7 +44,7 @@ export class SharedLimitStore implements Store {
 
   private counterKey(key: string): string {
     const full = this.prefix + key;
-    return full.length <= KEY_MAX ? full : `${this.prefix}sha256:${createHash('sha256').update(full).digest('hex')}`.slice(0, KEY_MAX);
+    return PLAIN_KEY.test(key) && full.length <= KEY_MAX ? full : `${this.prefix}sha256:${createHash('sha256').update(full).digest('hex')}`.slice(0, KEY_MAX);
   }
 
   increment(key: string): Promise<ClientRateLimitInfo> {
