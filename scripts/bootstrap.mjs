@@ -23,7 +23,8 @@ const needs = {
     '/usr/bin/chromium': 'chromium',
     '/usr/bin/pdftoppm': 'poppler-utils',
   },
-  bench: { '/usr/sbin/mariadbd': 'mariadb-server', '/usr/lib/galera/libgalera_smm.so': 'galera-4', '/usr/bin/rsync': 'rsync' },
+  // The bench drives the editor in Debian's Chromium.
+  bench: { '/usr/sbin/mariadbd': 'mariadb-server', '/usr/lib/galera/libgalera_smm.so': 'galera-4', '/usr/bin/rsync': 'rsync', '/usr/bin/chromium': 'chromium' },
   cluster: { '/usr/sbin/mariadbd': 'mariadb-server', '/usr/lib/galera/libgalera_smm.so': 'galera-4', '/usr/bin/rsync': 'rsync' },
 };
 
