@@ -17,6 +17,7 @@ import type { ImageQuery, PrintQuery } from './query.js';
 import * as repo from './repository.js';
 import { zipEntries } from './zip.js';
 import { runRenderJob } from './workers/pool.js';
+import { withinOrganisationShare } from './workers/fair-share.js';
 
 /** Resolution when neither `dpi=` nor a profile gives one: the usual tape printer head. // common practice */
 export const DEFAULT_DPI = 180;
@@ -50,7 +51,9 @@ async function draw(ctx: AppContext, user: CurrentUser, source: PrintSource, que
   const req = await renderRequestFor(ctx, user, source, query, setup.tape);
   // The images go to a tape printer, not the office printer the organisation's offset corrects.
   const request = { ...req, offset: { xMm: 0, yMm: 0 } };
-  const drawn = await engine(() => runRenderJob({ kind: 'images', request, dpi: setup.dpi }, ctx.config.printTimeLimitMs));
+  const drawn = await engine(() =>
+    withinOrganisationShare(user.organisationId, () => runRenderJob({ kind: 'images', request, dpi: setup.dpi }, ctx.config.printTimeLimitMs)),
+  );
   // Bytes from the render thread arrive as Uint8Array; Express sends only a Buffer as bytes.
   const images: RasterImage[] = drawn.images.map((i) => ({ ...i, png: Buffer.from(i.png.buffer, i.png.byteOffset, i.png.byteLength) }));
   return { images, warnings: drawn.warnings };

@@ -22,6 +22,7 @@ import { todayIso as today } from '../http/clock.js';
 import { requireOwnBoardState } from '../boards/member-board.js';
 import { findOrganisation, updatePrintOffsetIfAt } from '../organisation/repository.js';
 import { runRenderJob } from './workers/pool.js';
+import { withinOrganisationShare } from './workers/fair-share.js';
 import type { PrintJobRequest } from './workers/jobs.js';
 
 export interface PrintedPdf extends RenderResult {
@@ -102,7 +103,7 @@ export async function renderRequestFor(
 /** Renders one output of a loaded board (the pack renders several from one source). */
 export async function renderWith(ctx: AppContext, user: CurrentUser, source: PrintSource, query: PrintQuery): Promise<RenderResult> {
   const request = await renderRequestFor(ctx, user, source, query);
-  return engine(() => runRenderJob({ kind: 'pdf', request }, ctx.config.printTimeLimitMs));
+  return engine(() => withinOrganisationShare(user.organisationId, () => runRenderJob({ kind: 'pdf', request }, ctx.config.printTimeLimitMs)));
 }
 
 /** The history row for one printed file. */
@@ -143,7 +144,7 @@ export async function checkPrint(
 ): Promise<{ warnings: PrintWarning[]; pageCount: number }> {
   const source = await loadPrintSource(ctx.db, ctx.config, user.organisationId, boardId, today());
   const request = await renderRequestFor(ctx, user, source, query);
-  return engine(() => runRenderJob({ kind: 'check', request }, ctx.config.printTimeLimitMs));
+  return engine(() => withinOrganisationShare(user.organisationId, () => runRenderJob({ kind: 'check', request }, ctx.config.printTimeLimitMs)));
 }
 
 export async function printHistory(ctx: AppContext, user: CurrentUser, boardId: number): Promise<PrintRecord[]> {
