@@ -4,11 +4,11 @@
  * page falls through to the plain shell, whose script then says so.
  */
 import { createHash } from 'node:crypto';
-import { Router } from 'express';
+import { Router, type RequestHandler } from 'express';
 import type { AppContext } from '../context.js';
 import { AppError } from '../errors.js';
 import { dynamicCompression } from '../http/compression.js';
-import { BOARD_PAGE_CACHE_CONTROL } from './caching.js';
+import { BOARD_PAGE_CACHE_CONTROL, PRIVATE_CACHE_CONTROL } from './caching.js';
 import { boardPageHtml } from './page-html.js';
 import { publicReadLimit } from './routes.js';
 import { publicBoardPage, type PublicBoardBody } from './service.js';
@@ -20,7 +20,12 @@ export function boardPageDocumentRoutes(ctx: AppContext, shellHtml: string): Rou
   // The HTML is the page and this release's shell: after a release the old tag must not revalidate, or a
   // cache (or a browser) keeps HTML naming scripts the new build no longer has for as long as the board is unchanged.
   const release = createHash('sha256').update(shellHtml).digest('base64url').slice(0, 12);
-  r.get('/b/:token', publicReadLimit(ctx), dynamicCompression(), async (req, res, next) => {
+  // Uncached until the page itself is sent: a 429 or an error answer is never kept by a shared cache.
+  const uncached: RequestHandler = (_req, res, next) => {
+    res.set('Cache-Control', PRIVATE_CACHE_CONTROL);
+    next();
+  };
+  r.get('/b/:token', uncached, publicReadLimit(ctx), dynamicCompression(), async (req, res, next) => {
     let body: PublicBoardBody;
     try {
       body = await publicBoardPage(ctx.db, String(req.params.token));

@@ -170,7 +170,7 @@ describe('nothing private is cacheable', () => {
         .get(`/api/public/boards/${'U'.repeat(32)}`)
         .expect(404),
     );
-    const limited = await startTestApp({ rateLimits: { publicPerMinute: 1 } as ServerConfig['rateLimits'] });
+    const limited = await startTestApp({ clientDir: shellDir, rateLimits: { publicPerMinute: 1 } as ServerConfig['rateLimits'] });
     try {
       await request(limited.app)
         .get(`/api/public/boards/${'U'.repeat(32)}`)
@@ -178,6 +178,12 @@ describe('nothing private is cacheable', () => {
       expectUncached(
         await request(limited.app)
           .get(`/api/public/boards/${'U'.repeat(32)}`)
+          .expect(429),
+      );
+      // The page's HTML counts against the same limit, and its 429 is not cacheable either.
+      expectUncached(
+        await request(limited.app)
+          .get(`/b/${'U'.repeat(32)}`)
           .expect(429),
       );
     } finally {
