@@ -10,7 +10,7 @@ import DataLoader from 'dataloader';
 import { sql } from 'drizzle-orm';
 import type { ClientRateLimitInfo } from 'express-rate-limit';
 import type { Db } from '../db/client.js';
-import { isDeadlock } from '../db/errors.js';
+import { withNodeRetry } from '../db/cluster.js';
 
 export interface Hit {
   /** The full counter key (limit name and key, at most 255 characters). */
@@ -19,8 +19,6 @@ export interface Hit {
   windowUs: number;
 }
 
-/** A hit that lost a deadlock (or a cluster's certification) is tried again this many times. */
-const TRIES = 3;
 /** Most hits in one statement. */
 const MAX_BATCH = 500;
 
@@ -31,16 +29,12 @@ const asDate = (value: Date | string) => (value instanceof Date ? value : new Da
 
 export const infoOf = (row: CounterRow): ClientRateLimitInfo => ({ totalHits: Number(row.hits), resetTime: asDate(row.reset_at) });
 
-/** Runs a statement again when it lost a deadlock; other errors (the database away) go to the caller. */
-export async function retried<T>(work: () => Promise<T>): Promise<T> {
-  for (let attempt = 1; ; attempt++) {
-    try {
-      return await work();
-    } catch (err) {
-      if (attempt >= TRIES || !isDeadlock(err)) throw err;
-    }
-  }
-}
+/**
+ * Sends a count again when it surely did not apply (a lost deadlock or certification conflict, an unsynced node) or
+ * when its node went away mid-statement: a hit counted twice only makes a limit a little stricter, while a hit that
+ * fails is a 500 for a visitor. The same retry the cluster gives repeatable statements (server/db/cluster.ts).
+ */
+export const retried = <T>(work: () => Promise<T>): Promise<T> => withNodeRetry(work, true);
 
 /** One statement for a batch: each distinct key once (in key order, so racing batches lock rows in the same order). */
 async function countHits(db: Db, hits: readonly Hit[]): Promise<ClientRateLimitInfo[]> {

@@ -107,11 +107,14 @@ describe('a node killed in the middle of saves and board-page reads', () => {
 
     const acknowledged = new Map<number, string>();
     const statuses: number[] = [];
+    /** Each 5xx with what was asked and the error's code, so a failure says which request and why. */
+    const failures: string[] = [];
     let killedAt = 0;
     let servedAfterKill = 0;
     let stop = false;
-    const note = (status: number) => {
+    const note = (status: number, what = '', body: { error?: { code?: string } } = {}) => {
       statuses.push(status);
+      if (status >= 500) failures.push(`${what} ${status} ${body.error?.code ?? ''}`);
       if (killedAt && status < 400) servedAfterKill++;
     };
     const saves = (async () => {
@@ -119,14 +122,17 @@ describe('a node killed in the middle of saves and board-page reads', () => {
       for (let n = 1; !stop; n++) {
         const label = `Save ${n}`;
         const res = await owners[n % 2].put(`/api/boards/${board.id}/schedule`, { ...labelled(schedule, label), baseRevision: revision });
-        note(res.status);
+        note(res.status, 'PUT schedule', res.body);
         if (res.status === 200) acknowledged.set((revision = res.body.revision), label);
         // A 409 here is a save the app had committed just as its node went away: read where the board is now.
         else if (res.status === 409) revision = (await owners[0].get(`/api/boards/${board.id}/schedule`)).body.revision;
       }
     })();
     const reads = (async () => {
-      for (let n = 0; !stop; n++) note((await (n % 2 ? owners[1] : owners[0]).get(`/api/public/boards/${token}`)).status);
+      for (let n = 0; !stop; n++) {
+        const res = await (n % 2 ? owners[1] : owners[0]).get(`/api/public/boards/${token}`);
+        note(res.status, 'GET board page', res.body);
+      }
     })();
 
     await new Promise((r) => setTimeout(r, 1500));
@@ -138,6 +144,7 @@ describe('a node killed in the middle of saves and board-page reads', () => {
     stop = true;
     await Promise.all([saves, reads]);
 
+    expect(failures).toEqual([]);
     expect(statuses.filter((s) => s >= 500)).toEqual([]);
     expect(servedAfterKill).toBeGreaterThan(20);
     expect(acknowledged.size).toBeGreaterThan(5);
