@@ -24,7 +24,11 @@ describe('notice wording on the organisation screen', { timeout: 120_000 }, () =
     expect(await body.inputValue()).toBe(prescribedNotices['rcd-test'].wording.body);
     await expect.poll(() => form.getByTestId('notice-state-rcd-test').textContent()).toContain('prescribed words');
 
+    // Characters the printing fonts lack are named as the owner types, and the warning goes once they are gone.
+    await form.getByLabel('Heading', { exact: true }).fill('月次 RCD check');
+    await form.getByText('"月" (U+6708), "次" (U+6B21) cannot be drawn with the printing fonts').waitFor();
     await form.getByLabel('Heading', { exact: true }).fill('Monthly RCD check');
+    await expect.poll(() => form.getByText('cannot be drawn with the printing fonts').count()).toBe(0);
     await body.fill(OWN_BODY);
     // The length limit shows as the user types.
     expect(await form.locator('[data-count]').last().getAttribute('data-count')).toBe(`${OWN_BODY.length} / ${NOTICE_BODY_MAX}`);
