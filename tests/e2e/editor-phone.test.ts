@@ -49,6 +49,36 @@ async function expectSaveInReach(page: Page): Promise<void> {
   expect(onTop).toBe(true);
 }
 
+/** Writes through the page's own session, as the API client the editor uses would. */
+async function api(page: Page, method: 'POST' | 'PUT', path: string, data: unknown) {
+  const { token } = (await (await page.request.get('/api/auth/csrf')).json()) as { token: string };
+  const res = await page.request.fetch(path, { method, headers: { 'X-CSRF-Token': token }, data });
+  if (!res.ok()) throw new Error(`${method} ${path}: ${res.status()} ${await res.text()}`);
+  return res.json();
+}
+
+/**
+ * Every line of the circuit list as [way, label], scrolling the page top to bottom: only the lines
+ * in view (and a few either side) are built, so no one moment shows them all.
+ */
+async function listedWays(page: Page): Promise<[string, string][]> {
+  const seen = new Map<number, [string, string]>();
+  for (let y = 0; ; y += 300) {
+    await page.evaluate((top) => (globalThis as unknown as { scrollTo(x: number, y: number): void }).scrollTo(0, top), y);
+    await page.waitForTimeout(100);
+    for (const li of await page.locator('.circuit-list__items > li').all()) {
+      const way = (await li.locator('.circuit-list__way').textContent()) ?? '';
+      seen.set(Number(await li.getAttribute('data-index')), [way, (await li.locator('.circuit-list__label').textContent()) ?? '']);
+    }
+    const { scrollY, innerHeight, height } = await page.evaluate(() => {
+      const w = globalThis as unknown as { scrollY: number; innerHeight: number; document: { documentElement: { scrollHeight: number } } };
+      return { scrollY: w.scrollY, innerHeight: w.innerHeight, height: w.document.documentElement.scrollHeight };
+    });
+    if (scrollY + innerHeight >= height) break;
+  }
+  return [...seen.entries()].sort((a, b) => a[0] - b[0]).map(([, line]) => line);
+}
+
 const form = (page: Page) => page.locator('.ant-drawer-open');
 const formInput = (page: Page, path: string) => form(page).locator(`[data-field="${path}"] input`).first();
 async function choose(page: Page, path: string, option: string): Promise<void> {
@@ -208,6 +238,65 @@ describe('the board editor on a phone (390 × 844)', { timeout: 240_000 }, () =>
     await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 2' }).waitFor();
     const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
     expect(saved.circuits.map((c: { label: string }) => c.label)).toEqual(['Shed sockets']);
+    expect(app.pageErrors).toEqual([]);
+  });
+
+  it('when a board from the 10-way layout has 9 circuits, then the phone list shows 10 ways with way 10 Spare, and using it makes a 10th circuit on that device that is saved', async () => {
+    const { page } = await signedInOwnerPage(app, 'Phone Spare Electrical', { viewport: PHONE });
+    const { id: boardId } = await api(page, 'POST', '/api/boards', { name: 'Hall consumer unit', template: 'split-load-10' });
+    const before = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    // The layout is named for its ten ways: nine circuits and one breaker labelled Spare with none.
+    const spareDevice = before.devices.find((d: { label: string }) => d.label === 'Spare');
+    expect(before.circuits).toHaveLength(9);
+    expect(before.circuits.some((c: { deviceId: string | null }) => c.deviceId === spareDevice.id)).toBe(false);
+
+    await page.goto(`/boards/${boardId}`);
+    const lines = page.locator('.circuit-list__items > li');
+    const spareLines = page.locator('.circuit-list__item--spare');
+    await page.getByRole('tab', { name: 'Circuits (9 + 1 spare)' }).waitFor();
+    await lines.first().waitFor();
+    expect(await page.locator('table.board-circuits').count()).toBe(0);
+    // Ten ways in way order, the spare the last, numbered 10, on its device.
+    const ways = await listedWays(page);
+    expect(ways.map(([way]) => way)).toEqual(['1', '2', '3', '4', '5', '6', '7', '8', '9', '10']);
+    expect(ways.filter(([, label]) => label === 'Spare')).toEqual([['10', 'Spare']]);
+    await spareLines.scrollIntoViewIfNeeded();
+    expect(await spareLines.count()).toBe(1);
+    expect(await spareLines.getAttribute('data-spare-device')).toBe(spareDevice.id);
+    expect(await spareLines.locator('.circuit-list__meta').textContent()).toBe('Spare (B16)'); // the layout's spare breaker, a B16
+    // The button sits inside the screen, beside its way.
+    const use = page.getByRole('button', { name: 'Use spare way 10' });
+    const useBox = (await use.boundingBox())!;
+    expect(useBox.x + useBox.width).toBeLessThanOrEqual(PHONE.width);
+    await expectNoSidewaysScroll(page, 'list with a spare');
+    await expectSaveInReach(page);
+    if (SHOTS) await page.screenshot({ path: `${SHOTS}/editor-phone-spare.png` });
+
+    // Using it opens the form of a new circuit on way 10 and the spare device, its label ready to type over.
+    await use.click();
+    await formOpen(page);
+    expect(await formInput(page, 'circuits.9.way').inputValue()).toBe('10');
+    expect(await form(page).locator('[data-field="circuits.9.deviceId"]').textContent()).toContain('Spare (B16)');
+    await page.keyboard.type('Garden lights');
+    expect(await formInput(page, 'circuits.9.label').inputValue()).toBe('Garden lights');
+    await expectNoSidewaysScroll(page, 'form of the spare way');
+    await page.getByRole('button', { name: 'Done' }).click();
+    await page.getByRole('button', { name: /^Details of way 10: Garden lights, Spare \(B16\)/ }).waitFor();
+    expect(await spareLines.count()).toBe(0);
+
+    await page.getByTestId('save').click();
+    await page.getByTestId('save-state').filter({ hasText: 'Saved · revision 2' }).waitFor();
+    await page.reload();
+    await page.getByRole('tab', { name: 'Circuits (10)' }).waitFor();
+    await lines.first().waitFor();
+    const reloaded = await listedWays(page);
+    expect(reloaded.map(([way]) => way)).toEqual(['1', '2', '3', '4', '5', '6', '7', '8', '9', '10']);
+    expect(reloaded[9]).toEqual(['10', 'Garden lights']);
+    expect(reloaded.filter(([, label]) => label === 'Spare')).toEqual([]);
+    await expectNoSidewaysScroll(page, 'list after reload');
+    const saved = await (await page.request.get(`/api/boards/${boardId}/schedule`)).json();
+    expect(saved.circuits).toHaveLength(10);
+    expect(saved.circuits.find((c: { way: number }) => c.way === 10)).toMatchObject({ label: 'Garden lights', deviceId: spareDevice.id });
     expect(app.pageErrors).toEqual([]);
   });
 });
