@@ -34,7 +34,7 @@ export default defineConfig({
         // virtual list) as one chunk the signed-in screens share, ~220 KB compressed, fetched once a release
         // of a library; and the few ~1 KB modules every screen shares (the HTTP helper, Vue's SFC helper,
         // the board picture's rows) as one file rather than four, each costing headers and a round trip.
-        advancedChunks: {
+        codeSplitting: {
           groups: [
             { name: 'vue', test: /node_modules[\\/](@vue|vue|vue-router)[\\/]/, priority: 30 },
             { name: 'rules', test: /[\\/]shared[\\/]rules[\\/]/, priority: 20 },
