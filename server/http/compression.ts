@@ -8,18 +8,18 @@ import type { Request, RequestHandler, Response } from 'express';
 /** Bodies smaller than this (bytes) go out as they are: below about one packet, encoding saves no round trip. */
 export const COMPRESSION_THRESHOLD = 1024;
 
-/** Types whose bytes are packed already (PDF streams, archives, raw files): encoding them again only costs time. */
-const PACKED_TYPES = new Set(['application/pdf', 'application/zip', 'application/gzip', 'application/octet-stream']);
-/** Top-level media types whose formats are packed already (pictures, fonts, sound, film); SVG is text and is compressed. */
-const PACKED_MEDIA = /^(?:image|font|audio|video)\//;
-
-function alreadyPacked(contentType: string): boolean {
-  const type = contentType.split(';')[0]!.trim().toLowerCase();
-  return PACKED_TYPES.has(type) || (type !== 'image/svg+xml' && PACKED_MEDIA.test(type));
-}
-
+/**
+ * Which types to encode is the `compression` package's own filter, which asks mime-db (through
+ * `compressible`) whether a type is worth it: PDFs, archives, pictures other than SVG, fonts, sound
+ * and film are not. One exception: mime-db marks raw bytes (`application/octet-stream`) compressible,
+ * but our raw downloads are already packed files, so encoding them again only costs time.
+ */
 function shouldCompress(req: Request, res: Response): boolean {
-  if (alreadyPacked(String(res.getHeader('Content-Type') ?? ''))) return false;
+  const type = String(res.getHeader('Content-Type') ?? '')
+    .split(';')[0]!
+    .trim()
+    .toLowerCase();
+  if (type === 'application/octet-stream') return false;
   return compression.filter(req, res);
 }
 
