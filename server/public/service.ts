@@ -22,6 +22,9 @@ import { requireMemberBoard } from '../boards/member-board.js';
 /** Tokens are base64url; anything else cannot be one, so it is not looked up. */
 const TOKEN_SHAPE = /^[A-Za-z0-9_-]{16,64}$/;
 
+/** The page's live head, or null; a token that cannot be one is not looked up at all. */
+const headFor = (db: Db, token: string) => (TOKEN_SHAPE.test(token) ? findPublicBoardHead(db, token) : Promise.resolve(null));
+
 /** The same answer for every token that does not open a page: it reveals nothing. */
 export const pageNotFound = () => notFound('Not found');
 
@@ -63,7 +66,7 @@ const projections = createProjectionCache();
 
 /** `GET /api/public/boards/:token`. */
 export async function publicBoardPage(db: Db, token: string): Promise<PublicBoardBody> {
-  const head = TOKEN_SHAPE.test(token) ? await findPublicBoardHead(db, token) : null;
+  const head = await headFor(db, token);
   if (!head) throw pageNotFound();
   const key = JSON.stringify([head.id, head.revision, head.updatedAt.getTime(), head.organisation, head.hasLogo]);
   const known = projections.get(key);
@@ -87,7 +90,7 @@ export async function publicBoardPage(db: Db, token: string): Promise<PublicBoar
 /** `GET /api/public/boards/:token/logo`: the contractor's logo, only while the page is on. */
 export async function publicLogo(db: Db, token: string): Promise<StoredImage> {
   // The head says whether a logo exists; the schedule is not needed for it.
-  const head = TOKEN_SHAPE.test(token) ? await findPublicBoardHead(db, token) : null;
+  const head = await headFor(db, token);
   if (!head?.hasLogo) throw pageNotFound();
   const logo = await findLogo(db, head.organisationId);
   if (!logo) throw pageNotFound();
